@@ -4,7 +4,6 @@ export default defineConfig({
   test: {
     projects: [
       {
-        extends: false,
         test: {
           name: 'unit',
           include: ['tests/**/*.test.ts'],
@@ -14,7 +13,6 @@ export default defineConfig({
         },
       },
       {
-        extends: false,
         test: {
           name: 'e2e',
           include: ['tests/e2e/**/*.test.ts'],
