@@ -1,0 +1,229 @@
+/**
+ * Runs: one analysis + design check of one model version, done by the worker pool.
+ *
+ *   POST /api/models/:id/runs                 StartRunInput → 202 Run (queued)
+ *   GET  /api/models/:id/runs                 → RunSummary[] (newest first)
+ *   GET  /api/runs/:id                        → Run (poll for status, phase, progress)
+ *   GET  /api/runs/:id/members                → RunMembers (the utilisation grid)
+ *   GET  /api/runs/:id/members/:member[?loading=]   → MemberDetail
+ *   GET  /api/runs/:id/model[?loading=]       → RunGeometry (the 3D picture)
+ *   GET  /api/runs/compare?a=&b=              → RunComparison
+ *   GET  /api/runs/:id/exports/:kind.:format  kind = utilisation | checks | displacements |
+ *                                             reactions | forces; format = xlsx | csv
+ *
+ * Every number in these responses is SI (N, m, Pa, rad); `units` says how to show it
+ * (shared/units `fromSI`). Ratios are plain numbers; null = not checked.
+ */
+import { z } from 'zod';
+import { CHECK_FAMILIES, CHECK_STATUSES, type CheckFamily, type CheckStatus } from '../design/types.js';
+import { DESIGN_CODES, type DesignCode } from '../model/types.js';
+
+export const RUN_STATUSES = ['queued', 'running', 'done', 'failed'] as const;
+export type RunStatus = (typeof RUN_STATUSES)[number];
+
+export const RUN_PHASES = ['reading', 'assembling', 'factorising', 'solving', 'recovering', 'checking', 'saving'] as const;
+export type RunPhase = (typeof RUN_PHASES)[number];
+
+/** Review state; only `draft` exists until the review workflow lands. */
+export const REVIEW_STATUSES = ['draft', 'submitted', 'returned', 'approved'] as const;
+export type ReviewStatus = (typeof REVIEW_STATUSES)[number];
+
+const designCodeSchema = z.enum(DESIGN_CODES as [DesignCode, ...DesignCode[]]);
+const checkStatusSchema = z.enum(CHECK_STATUSES as [CheckStatus, ...CheckStatus[]]);
+const familySchema = z.enum(CHECK_FAMILIES as [CheckFamily, ...CheckFamily[]]);
+
+export const startRunSchema = z
+  .object({
+    /** default: the model's current version */
+    version: z.number().int().min(1).optional(),
+    /** default: the model's design_code setting */
+    designCode: designCodeSchema.optional(),
+  })
+  .strict();
+export type StartRunInput = z.input<typeof startRunSchema>;
+
+export const runCountsSchema = z.object({ pass: z.number().int(), fail: z.number().int(), notChecked: z.number().int() });
+export type RunCounts = z.infer<typeof runCountsSchema>;
+
+export const runSummarySchema = z.object({
+  id: z.number().int(),
+  modelId: z.number().int(),
+  version: z.number().int(),
+  designCode: designCodeSchema,
+  status: z.enum(RUN_STATUSES),
+  reviewStatus: z.enum(REVIEW_STATUSES),
+  /** the phase in progress (running) or the last one reached */
+  phase: z.enum(RUN_PHASES).nullable(),
+  /** 0..1 rough progress */
+  progress: z.number(),
+  message: z.string(),
+  maxRatio: z.number().nullable(),
+  counts: runCountsSchema.nullable(),
+  /** milliseconds from start to finish; null until finished */
+  durationMs: z.number().nullable(),
+  createdBy: z.number().int().nullable(),
+  createdByName: z.string().nullable(),
+  createdAt: z.string(),
+  startedAt: z.string().nullable(),
+  finishedAt: z.string().nullable(),
+});
+export type RunSummary = z.infer<typeof runSummarySchema>;
+
+export const runSchema = runSummarySchema.extend({
+  /** the model settings the run used */
+  settings: z.record(z.string(), z.unknown()),
+  /** milliseconds per phase */
+  timings: z.record(z.string(), z.number()),
+  diagnostics: z
+    .object({ nodes: z.number(), members: z.number(), freedoms: z.number(), loadings: z.number(), maxEquilibriumResidual: z.number() })
+    .nullable(),
+});
+export type Run = z.infer<typeof runSchema>;
+
+/** One row of the utilisation grid. */
+export const memberRowSchema = z.object({
+  member: z.string(),
+  group: z.string(),
+  section: z.string(),
+  material: z.string(),
+  /** m */
+  length: z.number(),
+  ratio: z.number().nullable(),
+  check: z.string(),
+  clause: z.string(),
+  combination: z.string(),
+  status: checkStatusSchema,
+  families: z.record(z.string(), z.number().nullable()),
+  familyStatus: z.record(z.string(), checkStatusSchema),
+  warnings: z.array(z.string()),
+  vehiclePosition: z.number().optional(),
+  /** governing ratio of the same member in the previous done run of the model (null = none) */
+  previousRatio: z.number().nullable(),
+  /** section in that previous run, when different */
+  previousSection: z.string().optional(),
+});
+export type MemberRow = z.infer<typeof memberRowSchema>;
+
+export const runMembersSchema = z.object({
+  runId: z.number().int(),
+  previousRunId: z.number().int().nullable(),
+  units: z.enum(['metric', 'us']),
+  designCode: designCodeSchema,
+  /** families that occur in this run, in display order */
+  families: z.array(familySchema),
+  counts: runCountsSchema,
+  members: z.array(memberRowSchema),
+});
+export type RunMembers = z.infer<typeof runMembersSchema>;
+
+/** A check record as JSON (shared/design/types.ts CheckRecord). */
+export const checkRecordSchema = z.object({
+  member: z.string(),
+  family: familySchema,
+  code: designCodeSchema,
+  clause: z.string(),
+  title: z.string(),
+  equation: z.string(),
+  inputs: z.array(z.object({ symbol: z.string(), name: z.string(), value: z.union([z.number(), z.string()]), quantity: z.string() })),
+  capacity: z.number().nullable(),
+  demand: z.number().nullable(),
+  quantity: z.string(),
+  combination: z.string(),
+  x: z.number().nullable(),
+  ratio: z.number().nullable(),
+  status: checkStatusSchema,
+  note: z.string().optional(),
+  vehiclePosition: z.number().optional(),
+  envelope: z.enum(['max', 'min']).optional(),
+});
+export type CheckRecordJson = z.infer<typeof checkRecordSchema>;
+
+export const loadingInfoSchema = z.object({
+  id: z.string(),
+  kind: z.enum(['case', 'combination']),
+  limitState: z.enum(['strength', 'service']).nullable(),
+});
+export type LoadingInfo = z.infer<typeof loadingInfoSchema>;
+
+/** Station diagrams (SI; local axes; d_* relative to the chord). */
+export const stationsSchema = z.object({
+  x: z.array(z.number()),
+  N: z.array(z.number()),
+  V_major: z.array(z.number()),
+  V_minor: z.array(z.number()),
+  T: z.array(z.number()),
+  M_major: z.array(z.number()),
+  M_minor: z.array(z.number()),
+  d_major: z.array(z.number()),
+  d_minor: z.array(z.number()),
+});
+export type Stations = z.infer<typeof stationsSchema>;
+
+export const memberDetailSchema = z.object({
+  runId: z.number().int(),
+  units: z.enum(['metric', 'us']),
+  row: memberRowSchema,
+  start: z.string(),
+  end: z.string(),
+  type: z.enum(['frame', 'truss']),
+  loadings: z.array(loadingInfoSchema),
+  /** the loading the diagrams are for */
+  loading: z.string(),
+  /** the governing combination ('' when none) */
+  governing: z.string(),
+  stations: stationsSchema,
+  /** every check record of the governing combination */
+  governingRecords: z.array(checkRecordSchema),
+  /** every check record of the chosen loading (empty for a load case) */
+  loadingRecords: z.array(checkRecordSchema),
+});
+export type MemberDetail = z.infer<typeof memberDetailSchema>;
+
+export const runGeometrySchema = z.object({
+  runId: z.number().int(),
+  units: z.enum(['metric', 'us']),
+  verticalAxis: z.enum(['Y', 'Z']),
+  planeFrame: z.object({ plane: z.enum(['XY', 'XZ', 'YZ']), normal: z.enum(['X', 'Y', 'Z']) }).nullable(),
+  loadings: z.array(loadingInfoSchema),
+  loading: z.string(),
+  /** [id, x, y, z] */
+  nodes: z.array(z.tuple([z.string(), z.number(), z.number(), z.number()])),
+  members: z.array(
+    z.object({ id: z.string(), start: z.number().int(), end: z.number().int(), ratio: z.number().nullable(), status: checkStatusSchema }),
+  ),
+  /** node index and restrained freedoms ux..rz */
+  supports: z.array(z.object({ node: z.number().int(), restrained: z.array(z.boolean()) })),
+  /** loads of the chosen loading (factored for a combination) */
+  nodeLoads: z.array(z.object({ node: z.number().int(), values: z.array(z.number()) })),
+  memberLoads: z.array(
+    z.object({ member: z.number().int(), kind: z.string(), direction: z.string(), a: z.number(), b: z.number(), w1: z.number(), w2: z.number() }),
+  ),
+  /** per node ux, uy, uz, rx, ry, rz of the chosen loading (flattened, m and rad) */
+  displacements: z.array(z.number()),
+  maxDisplacement: z.number(),
+});
+export type RunGeometry = z.infer<typeof runGeometrySchema>;
+
+export const runComparisonSchema = z.object({
+  a: runSummarySchema,
+  b: runSummarySchema,
+  rows: z.array(
+    z.object({
+      member: z.string(),
+      sectionA: z.string().nullable(),
+      sectionB: z.string().nullable(),
+      ratioA: z.number().nullable(),
+      ratioB: z.number().nullable(),
+      statusA: checkStatusSchema.nullable(),
+      statusB: checkStatusSchema.nullable(),
+      /** ratioB − ratioA when both exist */
+      delta: z.number().nullable(),
+    }),
+  ),
+});
+export type RunComparison = z.infer<typeof runComparisonSchema>;
+
+export const EXPORT_KINDS = ['utilisation', 'checks', 'displacements', 'reactions', 'forces'] as const;
+export type ExportKind = (typeof EXPORT_KINDS)[number];
+export const EXPORT_FORMATS = ['xlsx', 'csv'] as const;
+export type ExportFormat = (typeof EXPORT_FORMATS)[number];
