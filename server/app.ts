@@ -1,0 +1,91 @@
+/**
+ * The Express app, built without listening (server/index.ts listens; tests use supertest).
+ *
+ * Adding a router: write `server/<noun>/<noun>.router.ts` exporting `(ctx: AppContext) => Router`
+ * whose every route starts with `requireRole(...)` or `requireAuth`, then add one line to
+ * `apiRouters` below (and its routes to tests/server/route-matrix.test.ts).
+ */
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import cookieParser from 'cookie-parser';
+import express, { type Express, type Router } from 'express';
+import helmet from 'helmet';
+import type { DataSource } from 'typeorm';
+import { authRouter } from './auth/auth.router.js';
+import type { AppConfig } from './config/app-config.js';
+import type { Logger } from './config/logger.js';
+import { apiNotFound, errorHandler } from './errors/error-handler.js';
+import { authenticate } from './middleware/auth.js';
+import { projectsRouter } from './projects/project.router.js';
+import { usersRouter } from './users/user.router.js';
+
+export interface AppContext {
+  config: AppConfig;
+  dataSource: DataSource;
+  logger: Logger;
+}
+
+/** Mount path → router factory. Paths may hold parameters (use `Router({ mergeParams: true })`). */
+export const apiRouters: [string, (ctx: AppContext) => Router][] = [
+  ['/api/auth', authRouter],
+  ['/api/users', usersRouter],
+  ['/api/projects', projectsRouter],
+];
+
+export const JSON_BODY_LIMIT = '5mb';
+
+export function createApp(ctx: AppContext): Express {
+  const { config, dataSource, logger } = ctx;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.trustProxy ? 1 : false);
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: { 'upgrade-insecure-requests': null, 'worker-src': ["'self'", 'blob:'] },
+      },
+    }),
+  );
+  app.use(cookieParser());
+  app.use('/api', express.json({ limit: JSON_BODY_LIMIT }));
+  app.use('/api', (_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
+
+  app.get('/api/health', (_req, res) => {
+    res.json({ status: 'ok' });
+  });
+
+  app.use('/api', authenticate(config, dataSource));
+  for (const [mountPath, makeRouter] of apiRouters) app.use(mountPath, makeRouter(ctx));
+  app.use('/api', apiNotFound);
+
+  serveClient(app, config.distDir);
+  app.use(errorHandler(logger));
+  return app;
+}
+
+/** The built client from `dist/`, with every other GET falling back to index.html. */
+function serveClient(app: Express, distDir: string): void {
+  const indexHtml = path.join(distDir, 'index.html');
+  app.use(
+    express.static(distDir, {
+      index: false,
+      setHeaders: (res, file) => {
+        if (file.includes(`${path.sep}assets${path.sep}`)) res.set('Cache-Control', 'public, max-age=31536000, immutable');
+      },
+    }),
+  );
+  app.get('/{*splat}', (_req, res) => {
+    if (!existsSync(indexHtml)) {
+      res.status(404).type('text/plain').send('The client is not built yet: run `npm run build` (npm start does this for you).');
+      return;
+    }
+    res.set('Cache-Control', 'no-cache');
+    res.sendFile(indexHtml);
+  });
+  app.use((_req, res) => {
+    res.status(404).type('text/plain').send('Not found');
+  });
+}

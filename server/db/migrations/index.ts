@@ -1,0 +1,11 @@
+/**
+ * Every migration, oldest first. To add one: create
+ * `server/db/migrations/<ms timestamp>-<what>.ts` exporting a class whose name ends in the
+ * same 13-digit timestamp (TypeORM reads it from the name), e.g. `Models1764640000000`,
+ * write its SQL by hand (up and down), and append the class here. Never edit a migration
+ * that has shipped; add a new one.
+ */
+import type { MigrationInterface } from 'typeorm';
+import { Foundation1764633600000 } from './1764633600000-foundation.js';
+
+export const migrations: (new () => MigrationInterface)[] = [Foundation1764633600000];

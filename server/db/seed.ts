@@ -1,0 +1,71 @@
+/**
+ * Demo data for a NEW database only: the four demo accounts and two demo projects of our
+ * own invention, then every hook in `seedHooks` in order, all in one transaction.
+ *
+ * To seed more demo data (models, runs…): write `async function seedX(seed: SeedContext)`
+ * next to your noun, using `seed.manager` for every write, and append it to `seedHooks`.
+ */
+import type { DataSource, EntityManager } from 'typeorm';
+import type { Role } from '../../shared/schemas/users.js';
+import { hashPassword } from '../auth/password.js';
+import { ProjectEntity, type ProjectRecord } from '../projects/project.entity.js';
+import { UserEntity, type UserRecord } from '../users/user.entity.js';
+
+export const DEMO_PASSWORD = 'trestle-demo';
+
+export const DEMO_ACCOUNTS: { email: string; name: string; role: Role }[] = [
+  { email: 'admin@example.com', name: 'Ada Admin', role: 'admin' },
+  { email: 'lead@example.com', name: 'Lena Lead', role: 'lead' },
+  { email: 'engineer@example.com', name: 'Eli Engineer', role: 'engineer' },
+  { email: 'viewer@example.com', name: 'Vic Viewer', role: 'viewer' },
+];
+
+export interface SeedContext {
+  dataSource: DataSource;
+  /** Transactional manager: use it for every write. */
+  manager: EntityManager;
+  /** The demo account of each role. */
+  users: Record<Role, UserRecord>;
+  /** The demo projects, in the order created: [footbridge, roof trusses]. */
+  projects: ProjectRecord[];
+}
+
+export type SeedHook = (seed: SeedContext) => Promise<void>;
+
+/** Run after the demo users and projects exist. Append yours. */
+export const seedHooks: SeedHook[] = [];
+
+export async function seedDemoData(dataSource: DataSource): Promise<void> {
+  await dataSource.transaction(async (manager) => {
+    const users = {} as Record<Role, UserRecord>;
+    for (const account of DEMO_ACCOUNTS) {
+      const repo = manager.getRepository(UserEntity);
+      users[account.role] = await repo.save(
+        repo.create({ ...account, passwordHash: await hashPassword(DEMO_PASSWORD), active: true, sessionVersion: 0 }),
+      );
+    }
+    const projectRepo = manager.getRepository(ProjectEntity);
+    const projects = await projectRepo.save([
+      projectRepo.create({
+        name: 'Kestrel Creek footbridge',
+        jobNumber: 'DEMO-101',
+        client: 'Demo: Riverside Parks Trust',
+        description: 'Demo project. A 24 m steel Warren truss footbridge over a creek, checked to EN 1993-1-1.',
+        designCode: 'en1993-1-1',
+        units: 'metric',
+        createdBy: users.engineer.id,
+      }),
+      projectRepo.create({
+        name: 'Granary Row store roof',
+        jobNumber: 'DEMO-102',
+        client: 'Demo: Granary Row Holdings',
+        description: 'Demo project. Pitched steel roof trusses over a single-storey store, checked to AISC 360-22 (LRFD).',
+        designCode: 'aisc360-lrfd',
+        units: 'us',
+        createdBy: users.lead.id,
+      }),
+    ]);
+    const seed: SeedContext = { dataSource, manager, users, projects };
+    for (const hook of seedHooks) await hook(seed);
+  });
+}

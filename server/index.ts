@@ -1,0 +1,76 @@
+/**
+ * Starts Trestle: parse the environment, open and migrate the database, seed a new one,
+ * listen on PORT, and shut down cleanly on SIGINT/SIGTERM.
+ */
+import path from 'node:path';
+import type { Server } from 'node:http';
+import { createApp } from './app.js';
+import { appConfigFromEnv } from './config/app-config.js';
+import { ConfigError, loadEnv } from './config/env.js';
+import { createLogger } from './config/logger.js';
+import { resolveJwtSecret } from './config/secret.js';
+import { DATABASE_FILE, openDatabase } from './db/data-source.js';
+import { seedDemoData } from './db/seed.js';
+
+async function main(): Promise<void> {
+  let env;
+  try {
+    env = loadEnv();
+  } catch (err) {
+    if (err instanceof ConfigError) {
+      console.error(err.message);
+      process.exit(1);
+    }
+    throw err;
+  }
+  const logger = createLogger(env.LOG_LEVEL);
+  const dataDir = path.resolve(env.DATA_DIR);
+  const config = appConfigFromEnv(env, resolveJwtSecret(env.JWT_SECRET, dataDir));
+
+  const databaseFile = path.join(dataDir, DATABASE_FILE);
+  const { dataSource, isNew, applied } = await openDatabase({ database: databaseFile });
+  logger.info(`database ${databaseFile}${applied.length ? `; applied migrations: ${applied.join(', ')}` : ''}`);
+  if (isNew && env.SEED_DEMO) {
+    await seedDemoData(dataSource);
+    logger.info('new database: demo accounts and demo projects seeded (password trestle-demo)');
+  }
+
+  const app = createApp({ config, dataSource, logger });
+  const server: Server = await new Promise((resolve, reject) => {
+    const s = env.HOST ? app.listen(env.PORT, env.HOST) : app.listen(env.PORT);
+    s.once('listening', () => resolve(s));
+    s.once('error', reject);
+  });
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : env.PORT;
+  logger.info(`Trestle listening on http://localhost:${port}`);
+
+  let closing = false;
+  const shutdown = (signal: string) => {
+    if (closing) return;
+    closing = true;
+    logger.info(`${signal}: shutting down`);
+    const force = setTimeout(() => {
+      logger.warn('shutdown timed out; closing open connections');
+      server.closeAllConnections();
+    }, 5000);
+    force.unref();
+    server.close(async () => {
+      try {
+        await dataSource.destroy();
+      } finally {
+        clearTimeout(force);
+        logger.info('stopped');
+        process.exit(0);
+      }
+    });
+    server.closeIdleConnections();
+  };
+  process.on('SIGINT', () => shutdown('SIGINT'));
+  process.on('SIGTERM', () => shutdown('SIGTERM'));
+}
+
+main().catch((err) => {
+  console.error('Trestle could not start:', err instanceof Error ? err.message : err);
+  process.exit(1);
+});
