@@ -1,0 +1,50 @@
+/** Every view is reached through these routes; the guard applies sign-in and roles. */
+import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router';
+import type { Role } from '../../shared/schemas/users.js';
+import { setUnauthorizedHandler } from '../api/http.js';
+import { useAuthStore } from '../stores/auth.js';
+import { decideNavigation, SIGN_IN } from './guard.js';
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Reachable without signing in. */
+    public?: boolean;
+    /** Least role that may open the page. */
+    minRole?: Role;
+    /** 'bare': no app bar or drawer (sign-in). */
+    layout?: 'bare';
+    title?: string;
+  }
+}
+
+const routes: RouteRecordRaw[] = [
+  { path: '/', redirect: { name: 'projects' } },
+  { path: '/sign-in', name: 'sign-in', component: () => import('../views/SignInView.vue'), meta: { public: true, layout: 'bare', title: 'Sign in' } },
+  { path: '/projects', name: 'projects', component: () => import('../views/ProjectsView.vue'), meta: { title: 'Projects' } },
+  { path: '/projects/:id(\\d+)', name: 'project', component: () => import('../views/ProjectView.vue'), props: (r) => ({ id: Number(r.params.id) }), meta: { title: 'Project' } },
+  { path: '/admin/users', name: 'admin-users', component: () => import('../views/AdminUsersView.vue'), meta: { minRole: 'admin', title: 'Users' } },
+  { path: '/about', name: 'about', component: () => import('../views/AboutView.vue'), meta: { public: true, title: 'About' } },
+  { path: '/not-allowed', name: 'forbidden', component: () => import('../views/NotFoundView.vue'), props: { reason: 'forbidden' }, meta: { title: 'Not allowed' } },
+  { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('../views/NotFoundView.vue'), meta: { public: true, title: 'Not found' } },
+];
+
+export const router = createRouter({ history: createWebHistory(), routes });
+
+router.beforeEach(async (to) => {
+  const auth = useAuthStore();
+  await auth.fetchMe();
+  const decision = decideNavigation(to, auth.user);
+  return decision.kind === 'allow' ? true : decision.to;
+});
+
+router.afterEach((to) => {
+  document.title = to.meta.title ? `${to.meta.title} · Trestle` : 'Trestle';
+});
+
+// A 401 from any call means the session ended: forget the user and go to sign-in.
+setUnauthorizedHandler(() => {
+  const auth = useAuthStore();
+  auth.forget();
+  const here = router.currentRoute.value;
+  if (here.name !== SIGN_IN) void router.push({ name: SIGN_IN, query: { redirect: here.fullPath } });
+});
