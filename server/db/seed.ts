@@ -35,15 +35,21 @@ export type SeedHook = (seed: SeedContext) => Promise<void>;
 /** Run after the demo users and projects exist. Append yours. */
 export const seedHooks: SeedHook[] = [];
 
+/** The four demo accounts (also used alone by the API tests). */
+export async function seedDemoAccounts(manager: EntityManager): Promise<Record<Role, UserRecord>> {
+  const repo = manager.getRepository(UserEntity);
+  const users = {} as Record<Role, UserRecord>;
+  for (const account of DEMO_ACCOUNTS) {
+    users[account.role] = await repo.save(
+      repo.create({ ...account, passwordHash: await hashPassword(DEMO_PASSWORD), active: true, sessionVersion: 0 }),
+    );
+  }
+  return users;
+}
+
 export async function seedDemoData(dataSource: DataSource): Promise<void> {
   await dataSource.transaction(async (manager) => {
-    const users = {} as Record<Role, UserRecord>;
-    for (const account of DEMO_ACCOUNTS) {
-      const repo = manager.getRepository(UserEntity);
-      users[account.role] = await repo.save(
-        repo.create({ ...account, passwordHash: await hashPassword(DEMO_PASSWORD), active: true, sessionVersion: 0 }),
-      );
-    }
+    const users = await seedDemoAccounts(manager);
     const projectRepo = manager.getRepository(ProjectEntity);
     const projects = await projectRepo.save([
       projectRepo.create({

@@ -1,0 +1,109 @@
+/**
+ * Role × route matrix: for EVERY route the app registers, anonymous callers get 401 (unless
+ * the route is public) and every role outside `allowed` gets 403; allowed roles get past the
+ * guard. Add your routes to ROUTES; the last test fails when the app has a route the table
+ * lacks (or the table names a route the app no longer has).
+ *
+ * Path parameters are replaced by ids that do not exist, so allowed calls end in 400/404
+ * and nothing is changed.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import request from 'supertest';
+import { ROLES, rolesAtLeast, type Role } from '../../shared/schemas/users.js';
+import { listRoutes } from './helpers/list-routes.js';
+import { createTestApp, type TestApp } from './helpers/test-app.js';
+
+type Access = 'public' | 'signed-in' | readonly Role[];
+
+interface RouteRule {
+  method: 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
+  path: string;
+  allowed: Access;
+}
+
+const ADMIN: Role[] = ['admin'];
+const READ = rolesAtLeast('viewer');
+const EDIT = rolesAtLeast('engineer');
+const LEAD = rolesAtLeast('lead');
+
+export const ROUTES: RouteRule[] = [
+  { method: 'GET', path: '/api/health', allowed: 'public' },
+  { method: 'POST', path: '/api/auth/login', allowed: 'public' },
+  { method: 'POST', path: '/api/auth/logout', allowed: 'public' },
+  { method: 'GET', path: '/api/auth/me', allowed: 'signed-in' },
+  { method: 'POST', path: '/api/auth/password', allowed: 'signed-in' },
+  { method: 'GET', path: '/api/users', allowed: ADMIN },
+  { method: 'POST', path: '/api/users', allowed: ADMIN },
+  { method: 'PATCH', path: '/api/users/:id', allowed: ADMIN },
+  { method: 'GET', path: '/api/projects', allowed: READ },
+  { method: 'POST', path: '/api/projects', allowed: EDIT },
+  { method: 'GET', path: '/api/projects/:id', allowed: READ },
+  { method: 'PATCH', path: '/api/projects/:id', allowed: EDIT },
+  { method: 'DELETE', path: '/api/projects/:id', allowed: LEAD },
+];
+
+/** Routes outside /api (the single-page fallback) are not part of the matrix. */
+const NOT_API = (route: string) => !route.split(' ')[1]!.startsWith('/api');
+
+function concrete(path: string): string {
+  return path.replace(/:[A-Za-z_]\w*/g, '999999');
+}
+
+function allowedRoles(access: Access): readonly Role[] {
+  if (access === 'public' || access === 'signed-in') return ROLES;
+  return access;
+}
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await createTestApp();
+});
+afterAll(() => t.close());
+
+function send(rule: RouteRule, cookie?: string): request.Test {
+  const agent = request(t.app);
+  const url = concrete(rule.path);
+  const r =
+    rule.method === 'GET' ? agent.get(url)
+    : rule.method === 'POST' ? agent.post(url)
+    : rule.method === 'PATCH' ? agent.patch(url)
+    : rule.method === 'PUT' ? agent.put(url)
+    : agent.delete(url);
+  if (cookie) r.set('Cookie', cookie);
+  if (rule.method !== 'GET' && rule.method !== 'DELETE') r.send({});
+  return r;
+}
+
+describe.each(ROUTES)('$method $path', (rule) => {
+  if (rule.allowed !== 'public') {
+    it('answers 401 to an anonymous caller', async () => {
+      const res = await send(rule);
+      expect(res.status).toBe(401);
+      expect(res.body.error.code).toBe('unauthorized');
+    });
+  }
+
+  const allowed = allowedRoles(rule.allowed);
+  for (const role of ROLES) {
+    if (allowed.includes(role)) {
+      it(`lets ${role} past the role guard`, async () => {
+        const res = await send(rule, t.cookieFor(role));
+        expect([401, 403]).not.toContain(res.status);
+      });
+    } else {
+      it(`answers 403 to ${role}`, async () => {
+        const res = await send(rule, t.cookieFor(role));
+        expect(res.status).toBe(403);
+        expect(res.body.error.code).toBe('forbidden');
+      });
+    }
+  }
+});
+
+describe('route table', () => {
+  it('lists exactly the /api routes the app registers', () => {
+    const registered = listRoutes(t.app).filter((r) => !NOT_API(r));
+    const table = ROUTES.map((r) => `${r.method} ${r.path}`).sort();
+    expect(registered).toEqual(table);
+  });
+});
