@@ -1,46 +1,16 @@
 /**
- * Section properties and the built-in catalogue. (Contract stub: the sections work
- * replaces the bodies; signatures stay.)
+ * Section properties, design geometry and the built-in catalogue.
+ *
+ * - `sectionProperties(shape, dims)`: SI properties of a dimensioned shape (one file per
+ *   shape under ./shapes, each stating its approximations: I with root fillets, RHS with
+ *   outer corner radius 2t, angle about its principal axes).
+ * - `validateDimensions(shape, dims)`: problems, each naming its field.
+ * - `designGeometry(section)`: slenderness ratios and shear-centre data for the checks.
+ * - `catalogueSection(designation)`: built-in rolled shapes (./catalogue, source per series).
  */
-import type { Section, SectionDims, SectionProps, ShapeKind } from '../model/types.js';
-
-/** Which dimensions each shape needs (tables.md "sections"); `r` is optional for `i`. */
-export const SHAPE_DIMENSIONS: Record<ShapeKind, (keyof SectionDims)[]> = {
-  i: ['d', 'bf', 'tf', 'tw'],
-  channel: ['d', 'bf', 'tf', 'tw'],
-  angle: ['d', 'b', 't'],
-  tee: ['d', 'bf', 'tf', 'tw'],
-  rhs: ['h', 'b', 't'],
-  chs: ['D', 't'],
-  rect: ['h', 'b'],
-  round: ['D'],
-  custom: [],
-};
-
-/** Problems with a shape's dimensions (missing, negative, impossible such as t >= d/2). */
-export function validateDimensions(shape: ShapeKind, dims: SectionDims): { field: keyof SectionDims; message: string }[] {
-  const out: { field: keyof SectionDims; message: string }[] = [];
-  for (const f of SHAPE_DIMENSIONS[shape]) {
-    const v = dims[f];
-    if (v === undefined) out.push({ field: f, message: `${shape} sections need ${f}` });
-    else if (!(v > 0)) out.push({ field: f, message: `${f} must be greater than zero` });
-  }
-  return out;
-}
-
-/** Properties of a dimensioned shape (SI). Call only after validateDimensions returned []. */
-export function sectionProperties(shape: ShapeKind, dims: SectionDims): SectionProps {
-  void shape; void dims;
-  throw new Error('sectionProperties: not implemented yet');
-}
-
-/** A catalogue section by designation (case-insensitive, spaces ignored), or undefined. */
-export function catalogueSection(designation: string): Section | undefined {
-  void designation;
-  return undefined;
-}
-
-/** All catalogue designations. */
-export function catalogueDesignations(): string[] {
-  return [];
-}
+export { SHAPE_DIMENSIONS, validateDimensions, type DimensionProblem } from './validate.js';
+export { sectionProperties } from './properties.js';
+export { designGeometry, type DesignGeometry, type SlendernessRatios } from './geometry.js';
+export { anglePrincipalAxes, type AngleAxes } from './shapes/angle.js';
+export { rhsCornerRadii } from './shapes/rhs.js';
+export { catalogueSection, catalogueDesignations, normaliseDesignation } from './catalogue/index.js';
