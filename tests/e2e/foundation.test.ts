@@ -1,0 +1,122 @@
+/** The foundation in a real browser: sign-in, roles, projects, sign-out. */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { apiFromPage, chromiumAvailable, screenshot, signIn, signOut, startApp, stopApp, type TrestleApp } from './harness.js';
+
+const enabled = chromiumAvailable('foundation');
+
+describe.skipIf(!enabled)('foundation in the browser', () => {
+  let app: TrestleApp;
+
+  beforeAll(async () => {
+    app = await startApp();
+  });
+
+  afterAll(async () => {
+    await stopApp(app);
+  });
+
+  it('sends a signed-out visitor to sign-in and back to the page asked for', async () => {
+    const page = await app.newPage();
+    await app.goto(page, '/admin/users');
+    await page.waitForURL((u) => u.pathname === '/sign-in');
+    expect(new URL(page.url()).searchParams.get('redirect')).toBe('/admin/users');
+    await page.locator('[data-test=sign-in-email] input').fill('engineer@example.com');
+    await page.locator('[data-test=sign-in-password] input').fill('not-the-password');
+    await page.locator('[data-test=sign-in-submit]').click();
+    await expect.poll(() => page.locator('[data-test=sign-in-error]').isVisible()).toBe(true);
+    await screenshot(page, 'foundation-01-sign-in-error');
+    await page.close();
+  });
+
+  it('lets an engineer create a project, see it listed, and sign out', async () => {
+    const page = await app.newPage();
+    await signIn(page, app.baseUrl, 'engineer@example.com');
+    await page.locator('[data-test=projects-table]').waitFor();
+    await screenshot(page, 'foundation-02-projects-engineer');
+
+    await page.locator('[data-test=new-project]').click();
+    await page.locator('[data-test=project-name] input').fill('Harbour crane rail girder');
+    await page.locator('[data-test=project-job-number] input').fill('E2E-7');
+    await page.locator('[data-test=project-client] input').fill('Test client');
+    await screenshot(page, 'foundation-03-new-project-dialog');
+    await page.locator('[data-test=project-save]').click();
+
+    await page.waitForURL((u) => /^\/projects\/\d+$/.test(u.pathname));
+    await expect.poll(() => page.locator('[data-test=project-title]').textContent()).toBe('Harbour crane rail girder');
+    await page.locator('[data-test=project-models]').waitFor();
+    expect(await page.locator('[data-test=breadcrumbs]').textContent()).toContain('Harbour crane rail girder');
+    await screenshot(page, 'foundation-04-project-page');
+
+    await page.locator('[data-test=nav-projects]').click();
+    await page.waitForURL((u) => u.pathname === '/projects');
+    const row = page.locator('[data-test=project-row]', { hasText: 'Harbour crane rail girder' });
+    await row.waitFor();
+    expect(await row.textContent()).toContain('E2E-7');
+
+    await signOut(page);
+    expect((await apiFromPage(page, 'GET', '/api/auth/me')).status).toBe(401);
+    await page.close();
+  });
+
+  it('shows a viewer no create button, and the API refuses the viewer a new project', async () => {
+    await app.clearSession();
+    const page = await app.newPage();
+    await signIn(page, app.baseUrl, 'viewer@example.com');
+    const row = page.locator('[data-test=project-row]', { hasText: 'Harbour crane rail girder' });
+    await row.waitFor();
+    expect(await page.locator('[data-test=new-project]').count()).toBe(0);
+    expect(await page.locator('[data-test=nav-admin-users]').count()).toBe(0);
+    await screenshot(page, 'foundation-05-projects-viewer');
+
+    const refused = await apiFromPage(page, 'POST', '/api/projects', { name: 'Should not exist' });
+    expect(refused.status).toBe(403);
+    expect(refused.body).toMatchObject({ error: { code: 'forbidden' } });
+    const list = await apiFromPage(page, 'GET', '/api/projects');
+    expect((list.body as { name: string }[]).some((p) => p.name === 'Should not exist')).toBe(false);
+
+    await row.click();
+    await page.locator('[data-test=project-models]').waitFor();
+    expect(await page.locator('[data-test=edit-project]').count()).toBe(0);
+
+    await app.goto(page, '/admin/users');
+    await page.waitForURL((u) => u.pathname === '/not-allowed');
+    await screenshot(page, 'foundation-06-viewer-not-allowed');
+    await signOut(page);
+    await page.close();
+  });
+
+  it('lets an admin create a user, change a role and deactivate an account', async () => {
+    await app.clearSession();
+    const page = await app.newPage();
+    await signIn(page, app.baseUrl, 'admin@example.com');
+    await page.locator('[data-test=nav-admin-users]').click();
+    await page.waitForURL((u) => u.pathname === '/admin/users');
+    await expect.poll(() => page.locator('[data-test=user-row]').count()).toBe(4);
+
+    await page.locator('[data-test=new-user]').click();
+    await page.locator('[data-test=user-name] input').fill('Nia Newcomer');
+    await page.locator('[data-test=user-email] input').fill('nia@example.com');
+    await page.locator('[data-test=user-password] input').fill('a-long-password');
+    await page.locator('[data-test=user-save]').click();
+    const nia = page.locator('[data-test=user-row]', { hasText: 'nia@example.com' });
+    await nia.waitFor();
+    expect(await nia.textContent()).toContain('Engineer');
+
+    const lena = page.locator('[data-test=user-row]', { hasText: 'lead@example.com' });
+    await lena.locator('.v-select').click();
+    await page.locator('.v-overlay--active .v-list-item', { hasText: 'Viewer' }).click();
+    await expect.poll(() => lena.textContent()).toContain('Viewer');
+
+    await nia.locator('.v-switch input').click();
+    await expect.poll(() => nia.textContent()).toContain('Deactivated');
+    await screenshot(page, 'foundation-07-admin-users');
+
+    const users = (await apiFromPage(page, 'GET', '/api/users')).body as { email: string; role: string; active: boolean }[];
+    expect(users.find((u) => u.email === 'lead@example.com')?.role).toBe('viewer');
+    expect(users.find((u) => u.email === 'nia@example.com')?.active).toBe(false);
+
+    await signOut(page);
+    await page.close();
+    expect(app.serverErrors).toEqual([]);
+  });
+});

@@ -1,0 +1,263 @@
+/**
+ * Browser-test harness: builds the client when `dist/` is stale (always under CI), starts
+ * the real server on a free port with a fresh DATA_DIR (so the demo accounts are seeded),
+ * and drives Debian's Chromium through playwright-core.
+ *
+ * Usage in a test file:
+ *   const t = trestleSuite('my feature');        // call at the top of the file
+ *   describe.skipIf(!t.enabled)('my feature', () => {
+ *     beforeAll(t.setup); afterAll(t.teardown);
+ *     it('…', async () => { const page = await t.app.newPage(); await signIn(page, 'engineer@example.com'); … });
+ *   });
+ */
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { existsSync, mkdirSync, mkdtempSync, readdirSync, rmSync, statSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { createRequire } from 'node:module';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+
+export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
+export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+export const ARTIFACTS_DIR = path.join(ROOT, 'test-artifacts');
+export const DEMO_PASSWORD = 'trestle-demo';
+
+const require = createRequire(path.join(ROOT, 'package.json'));
+const CLIENT_SOURCES = ['src', 'shared', 'index.html', 'vite.config.ts', 'public'];
+
+/** True when the browser tests can run; otherwise says why, once, on the console. */
+export function chromiumAvailable(suite: string): boolean {
+  if (existsSync(CHROMIUM_PATH)) return true;
+  console.warn(
+    `SKIPPED browser tests "${suite}": Chromium not found at ${CHROMIUM_PATH}. ` +
+      'Install it with `apt-get install -y chromium` (or set CHROMIUM_PATH); .ci/run does this.',
+  );
+  return false;
+}
+
+/** Latest modification time (ms) of any file under the given paths. */
+export function newestMtime(paths: string[]): number {
+  let newest = 0;
+  const visit = (p: string): void => {
+    if (!existsSync(p)) return;
+    const st = statSync(p);
+    if (st.isDirectory()) {
+      for (const name of readdirSync(p)) if (name !== 'node_modules') visit(path.join(p, name));
+    } else if (st.mtimeMs > newest) newest = st.mtimeMs;
+  };
+  for (const p of paths) visit(p);
+  return newest;
+}
+
+/** True when dist/ is missing or older than any client source. */
+export function clientIsStale(root = ROOT): boolean {
+  const built = path.join(root, 'dist', 'index.html');
+  if (!existsSync(built)) return true;
+  return newestMtime(CLIENT_SOURCES.map((p) => path.join(root, p))) > statSync(built).mtimeMs;
+}
+
+/** Runs `vite build` when the build is stale, or always when CI is set. */
+export function ensureClientBuilt(): void {
+  if (!process.env.CI && !clientIsStale()) return;
+  const vite = path.join(path.dirname(require.resolve('vite/package.json')), 'bin', 'vite.js');
+  const result = spawnSync(process.execPath, [vite, 'build', '--logLevel', 'warn'], { cwd: ROOT, encoding: 'utf8' });
+  if (result.status !== 0) throw new Error(`vite build failed:\n${result.stdout}\n${result.stderr}`);
+}
+
+async function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = createServer();
+    srv.unref();
+    srv.on('error', reject);
+    srv.listen(0, '127.0.0.1', () => {
+      const address = srv.address();
+      const port = typeof address === 'object' && address ? address.port : 0;
+      srv.close(() => resolve(port));
+    });
+  });
+}
+
+export interface RunningServer {
+  baseUrl: string;
+  dataDir: string;
+  /** Everything the server printed, for failure messages. */
+  output: () => string;
+  stop: () => Promise<void>;
+}
+
+/** Starts `server/index.ts` (via tsx) on a free port with a fresh, seeded DATA_DIR. */
+export async function startServer(env: Record<string, string> = {}): Promise<RunningServer> {
+  const dataDir = mkdtempSync(path.join(tmpdir(), 'trestle-e2e-data-'));
+  const port = await freePort();
+  const tsx = path.join(path.dirname(require.resolve('tsx/package.json')), 'dist', 'cli.mjs');
+  let log = '';
+  const child: ChildProcess = spawn(process.execPath, [tsx, 'server/index.ts'], {
+    cwd: ROOT,
+    env: { ...process.env, NODE_ENV: 'test', PORT: String(port), HOST: '127.0.0.1', DATA_DIR: dataDir, LOG_LEVEL: 'warn', SEED_DEMO: 'true', ...env },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  child.stdout?.on('data', (d: Buffer) => (log += d.toString()));
+  child.stderr?.on('data', (d: Buffer) => (log += d.toString()));
+  const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
+
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const deadline = Date.now() + 60_000;
+  for (;;) {
+    if (child.exitCode !== null) throw new Error(`the server exited with code ${child.exitCode}:\n${log}`);
+    try {
+      const res = await fetch(`${baseUrl}/api/health`);
+      if (res.ok) break;
+    } catch {
+      // not listening yet
+    }
+    if (Date.now() > deadline) {
+      child.kill('SIGKILL');
+      throw new Error(`the server did not answer /api/health within 60 s:\n${log}`);
+    }
+    await new Promise((r) => setTimeout(r, 200));
+  }
+
+  return {
+    baseUrl,
+    dataDir,
+    output: () => log,
+    stop: async () => {
+      if (child.exitCode === null) {
+        child.kill('SIGTERM');
+        const timer = setTimeout(() => child.kill('SIGKILL'), 8000);
+        await exited;
+        clearTimeout(timer);
+      }
+      rmSync(dataDir, { recursive: true, force: true });
+    },
+  };
+}
+
+export interface RunningBrowser {
+  context: BrowserContext;
+  close: () => Promise<void>;
+}
+
+/** Headless Chromium with a fresh profile. */
+export async function launchBrowser(): Promise<RunningBrowser> {
+  const profile = mkdtempSync(path.join(tmpdir(), 'trestle-e2e-profile-'));
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: CHROMIUM_PATH,
+    headless: true,
+    viewport: { width: 1280, height: 800 },
+    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+  });
+  return {
+    context,
+    close: async () => {
+      await context.close();
+      rmSync(profile, { recursive: true, force: true });
+    },
+  };
+}
+
+/** A running app: server + browser, with page helpers bound to its address. */
+export interface TrestleApp {
+  server: RunningServer;
+  browser: RunningBrowser;
+  baseUrl: string;
+  /** A new tab (fresh cookies are shared across tabs of one context; use `clearSession` between users). */
+  newPage: () => Promise<Page>;
+  /** Opens a path of the app, e.g. '/projects'. */
+  goto: (page: Page, pathname: string) => Promise<void>;
+  /** Drops every cookie (signs everyone out). */
+  clearSession: () => Promise<void>;
+  /** Requests the page made that the server answered with 5xx, for assertions. */
+  serverErrors: string[];
+}
+
+export async function startApp(): Promise<TrestleApp> {
+  ensureClientBuilt();
+  const server = await startServer();
+  let browser: RunningBrowser;
+  try {
+    browser = await launchBrowser();
+  } catch (err) {
+    await server.stop();
+    throw err;
+  }
+  const serverErrors: string[] = [];
+  const app: TrestleApp = {
+    server,
+    browser,
+    baseUrl: server.baseUrl,
+    serverErrors,
+    newPage: async () => {
+      const page = await browser.context.newPage();
+      page.setDefaultTimeout(15_000);
+      page.on('response', (res) => {
+        if (res.status() >= 500) serverErrors.push(`${res.status()} ${res.request().method()} ${res.url()}`);
+      });
+      return page;
+    },
+    goto: async (page, pathname) => {
+      await page.goto(server.baseUrl + pathname);
+    },
+    clearSession: () => browser.context.clearCookies(),
+  };
+  return app;
+}
+
+export async function stopApp(app: TrestleApp | undefined): Promise<void> {
+  if (!app) return;
+  try {
+    await app.browser.close();
+  } finally {
+    await app.server.stop();
+  }
+}
+
+/** Signs in through the sign-in screen and waits for the projects page. */
+export async function signIn(page: Page, baseUrl: string, email: string, password = DEMO_PASSWORD): Promise<void> {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.locator('[data-test=sign-in-email] input').fill(email);
+  await page.locator('[data-test=sign-in-password] input').fill(password);
+  await page.locator('[data-test=sign-in-submit]').click();
+  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
+  await page.locator('[data-test=user-menu]').waitFor();
+}
+
+/** Signs out through the user menu and waits for the sign-in screen. */
+export async function signOut(page: Page): Promise<void> {
+  await page.locator('[data-test=user-menu]').click();
+  await page.locator('[data-test=sign-out]').click();
+  await page.waitForURL((u) => u.pathname.startsWith('/sign-in'));
+}
+
+/** Calls the API from inside the page (with its session cookie); returns status and body. */
+export async function apiFromPage(page: Page, method: string, pathname: string, body?: unknown): Promise<{ status: number; body: unknown }> {
+  return page.evaluate(
+    async ({ method, pathname, body }) => {
+      const res = await fetch(pathname, {
+        method,
+        credentials: 'same-origin',
+        headers: body === undefined ? {} : { 'Content-Type': 'application/json' },
+        body: body === undefined ? undefined : JSON.stringify(body),
+      });
+      const text = await res.text();
+      let parsed: unknown = text;
+      try {
+        parsed = JSON.parse(text);
+      } catch {
+        // not JSON
+      }
+      return { status: res.status, body: parsed };
+    },
+    { method, pathname, body },
+  );
+}
+
+/** Saves a full-page screenshot as test-artifacts/<name>.png and returns its path. */
+export async function screenshot(page: Page, name: string): Promise<string> {
+  mkdirSync(ARTIFACTS_DIR, { recursive: true });
+  const file = path.join(ARTIFACTS_DIR, `${name}.png`);
+  await page.screenshot({ path: file, fullPage: true });
+  return file;
+}
