@@ -35,14 +35,16 @@ export type SeedHook = (seed: SeedContext) => Promise<void>;
 /** Run after the demo users and projects exist. Append yours. */
 export const seedHooks: SeedHook[] = [];
 
-/** The four demo accounts (also used alone by the API tests). */
-export async function seedDemoAccounts(manager: EntityManager): Promise<Record<Role, UserRecord>> {
+/**
+ * The four demo accounts (also used alone by the API tests, which pass one precomputed hash
+ * of DEMO_PASSWORD to save time).
+ */
+export async function seedDemoAccounts(manager: EntityManager, demoPasswordHash?: string): Promise<Record<Role, UserRecord>> {
   const repo = manager.getRepository(UserEntity);
   const users = {} as Record<Role, UserRecord>;
   for (const account of DEMO_ACCOUNTS) {
-    users[account.role] = await repo.save(
-      repo.create({ ...account, passwordHash: await hashPassword(DEMO_PASSWORD), active: true, sessionVersion: 0 }),
-    );
+    const passwordHash = demoPasswordHash ?? (await hashPassword(DEMO_PASSWORD));
+    users[account.role] = await repo.save(repo.create({ ...account, passwordHash, active: true, sessionVersion: 0 }));
   }
   return users;
 }

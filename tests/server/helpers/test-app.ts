@@ -10,6 +10,8 @@ import request from 'supertest';
 import type { DataSource } from 'typeorm';
 import type { Role } from '../../../shared/schemas/users.js';
 import { createApp } from '../../../server/app.js';
+import { hashPassword } from '../../../server/auth/password.js';
+import { SESSION_COOKIE, signSession } from '../../../server/auth/session-token.js';
 import type { AppConfig } from '../../../server/config/app-config.js';
 import { createLogger, type LogLevel } from '../../../server/config/logger.js';
 import { openDatabase } from '../../../server/db/data-source.js';
@@ -29,7 +31,7 @@ export interface TestApp {
   config: AppConfig;
   /** Demo users by role (empty when seed is 'none'). */
   users: Partial<Record<Role, UserRecord>>;
-  /** Session cookie (`name=value`) of the signed-in demo account of a role. */
+  /** Session cookie (`name=value`) of the demo account of a role (minted, not via login). */
   cookieFor(role: Role): string;
   /** A request builder that sends the role's session cookie. */
   as(role: Role): {
@@ -43,6 +45,8 @@ export interface TestApp {
   signIn(email: string, password: string): Promise<string>;
   close(): Promise<void>;
 }
+
+let demoHash: Promise<string> | undefined;
 
 export const TEST_JWT_SECRET = 'test-secret-test-secret-test-secret-0123456789';
 
@@ -74,7 +78,11 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
   let users: Partial<Record<Role, UserRecord>> = {};
   const seed = options.seed ?? 'accounts';
   if (seed === 'demo') await seedDemoData(dataSource);
-  if (seed === 'accounts') users = await dataSource.transaction((m) => seedDemoAccounts(m));
+  if (seed === 'accounts') {
+    demoHash ??= hashPassword(DEMO_PASSWORD);
+    const hash = await demoHash;
+    users = await dataSource.transaction((m) => seedDemoAccounts(m, hash));
+  }
   if (seed === 'demo') {
     for (const u of await dataSource.getRepository('User').find()) users[(u as UserRecord).role] = u as UserRecord;
   }
@@ -87,10 +95,12 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
     if (res.status !== 200 || !cookie) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
     return cookie;
   };
-  // Sign every seeded demo account in once, so `as(role)` can attach its cookie directly.
+  // A session cookie for every seeded demo account, minted directly (login itself is
+  // tested in auth.test.ts; bcrypt compares would slow every suite).
   const cookies = new Map<Role, string>();
   for (const account of DEMO_ACCOUNTS) {
-    if (users[account.role]) cookies.set(account.role, await signIn(account.email, DEMO_PASSWORD));
+    const u = users[account.role];
+    if (u) cookies.set(account.role, `${SESSION_COOKIE}=${signSession(config, u.id, u.sessionVersion)}`);
   }
   const cookieFor = (role: Role) => {
     const c = cookies.get(role);
