@@ -18,6 +18,10 @@ import { apiNotFound, errorHandler } from './errors/error-handler.js';
 import { authenticate } from './middleware/auth.js';
 import { projectsRouter } from './projects/project.router.js';
 import { usersRouter } from './users/user.router.js';
+import { modelsRouter, projectModelsRouter } from './models/model.router.js';
+import { importsRouter } from './imports/import.router.js';
+import { runsRouter } from './runs/run.router.js';
+import { samplesRouter, templatesRouter } from './samples/sample.router.js';
 
 export interface AppContext {
   config: AppConfig;
@@ -30,6 +34,12 @@ export const apiRouters: [string, (ctx: AppContext) => Router][] = [
   ['/api/auth', authRouter],
   ['/api/users', usersRouter],
   ['/api/projects', projectsRouter],
+  ['/api/projects/:projectId/models', projectModelsRouter],
+  ['/api/projects/:projectId/imports', importsRouter],
+  ['/api/models', modelsRouter],
+  ['/api/runs', runsRouter],
+  ['/api/samples', samplesRouter],
+  ['/api/templates', templatesRouter],
 ];
 
 export const JSON_BODY_LIMIT = '5mb';

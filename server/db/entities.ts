@@ -5,7 +5,18 @@
  */
 import type { EntitySchema } from 'typeorm';
 import { ProjectEntity } from '../projects/project.entity.js';
+import { ModelEntity, ModelVersionEntity } from '../models/model.entity.js';
+import { PendingImportEntity } from '../imports/pending-import.entity.js';
+import { RunEntity, RunResultEntity } from '../runs/run.entity.js';
 import { UserEntity } from '../users/user.entity.js';
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
-export const entities: (EntitySchema<any> | Function)[] = [UserEntity, ProjectEntity];
+export const entities: (EntitySchema<any> | Function)[] = [
+  UserEntity,
+  ProjectEntity,
+  ModelEntity,
+  ModelVersionEntity,
+  PendingImportEntity,
+  RunEntity,
+  RunResultEntity,
+];

@@ -1,0 +1,90 @@
+/**
+ * An export table as a formatted workbook: a header block (project, model, version, run,
+ * date, code, units, status counts, the caution), then the table with a frozen header row,
+ * an autofilter, number formats and fills for ratio bands.
+ */
+import ExcelJS from 'exceljs';
+import { ratioBand, type RatioBand } from '../../shared/results/member-rows.js';
+import type { CheckStatus } from '../../shared/design/types.js';
+import { neutralise, type ExportTable } from './table.js';
+
+export const CAUTION =
+  'Results are for checking by a competent engineer. The design checks implement the cited clauses with the ' +
+  'assumptions and limits stated in each record; members reported as "not checked" are not passing. Local codes, ' +
+  'national annexes and licensed practice govern.';
+
+/** Our own palette for the ratio bands (ARGB). */
+export const BAND_FILLS: Record<RatioBand, string> = {
+  ok: 'FFDCEFE0',
+  near: 'FFFBE7B5',
+  over: 'FFF4C7C3',
+  unchecked: 'FFE3E3EA',
+};
+
+export interface HeaderBlock {
+  project: string;
+  model: string;
+  version: number;
+  run: number;
+  date: string;
+  code: string;
+  units: string;
+  counts: { pass: number; fail: number; notChecked: number };
+  reviewStatus: string;
+}
+
+export async function toXlsx(table: ExportTable, header: HeaderBlock): Promise<Buffer> {
+  const wb = new ExcelJS.Workbook();
+  wb.creator = 'Trestle';
+  wb.created = new Date();
+  const ws = wb.addWorksheet(table.title.slice(0, 31));
+  const block: [string, string | number][] = [
+    ['Project', neutralise(header.project)],
+    ['Model', neutralise(header.model)],
+    ['Model version', header.version],
+    ['Run', header.run],
+    ['Date', header.date],
+    ['Design code', header.code],
+    ['Units', header.units],
+    ['Members passing', header.counts.pass],
+    ['Members failing', header.counts.fail],
+    ['Members not checked', header.counts.notChecked],
+    ['Review status', header.reviewStatus],
+  ];
+  ws.addRow([table.title]).font = { bold: true, size: 14 };
+  for (const [k, v] of block) {
+    const row = ws.addRow([k, v]);
+    row.getCell(1).font = { bold: true };
+    row.getCell(2).alignment = { horizontal: 'left' };
+  }
+  const caution = ws.addRow([CAUTION]);
+  caution.getCell(1).font = { italic: true, color: { argb: 'FF7A3B00' } };
+  ws.mergeCells(caution.number, 1, caution.number, Math.max(6, table.columns.length));
+  caution.getCell(1).alignment = { wrapText: true, vertical: 'top' };
+  caution.height = 48;
+  ws.addRow([]);
+
+  const headerRow = ws.addRow(table.columns.map((c) => c.header));
+  headerRow.font = { bold: true };
+  headerRow.eachCell((cell) => {
+    cell.fill = { type: 'pattern', pattern: 'solid', fgColor: { argb: 'FFD9DEE8' } };
+    cell.border = { bottom: { style: 'thin' } };
+  });
+  const first = headerRow.number;
+  table.columns.forEach((c, i) => {
+    const col = ws.getColumn(i + 1);
+    col.width = Math.max(c.width ?? 12, i === 0 ? 16 : 0);
+    if (c.numFmt) col.numFmt = c.numFmt;
+  });
+  const ratioCol = table.columns.findIndex((c) => c.ratio);
+  table.rows.forEach((cells, r) => {
+    const row = ws.addRow(cells.map((v) => (typeof v === 'string' ? neutralise(v) : v)));
+    if (ratioCol >= 0 && table.statuses) {
+      const band = ratioBand(typeof cells[ratioCol] === 'number' ? (cells[ratioCol] as number) : null, table.statuses[r] as CheckStatus);
+      row.getCell(ratioCol + 1).fill = { type: 'pattern', pattern: 'solid', fgColor: { argb: BAND_FILLS[band] } };
+    }
+  });
+  ws.views = [{ state: 'frozen', xSplit: 0, ySplit: first }];
+  ws.autoFilter = { from: { row: first, column: 1 }, to: { row: first + table.rows.length, column: table.columns.length } };
+  return Buffer.from(await wb.xlsx.writeBuffer());
+}

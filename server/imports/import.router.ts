@@ -1,0 +1,67 @@
+/**
+ * /api/projects/:projectId/imports — upload (multer, in memory, limited), preview, commit.
+ * Engineers and above; the guard runs before the upload is read.
+ */
+import { Router, type RequestHandler } from 'express';
+import multer from 'multer';
+import { rolesAtLeast } from '../../shared/schemas/users.js';
+import type { AppContext } from '../app.js';
+import { AppError, badRequest } from '../errors/app-error.js';
+import { currentUser, requireRole } from '../middleware/auth.js';
+import { parseId } from '../middleware/params.js';
+import { describeBytes, importLimits, type ImportLimits } from './import-limits.js';
+import { commitImport, getPreview, previewImport } from './import.service.js';
+
+export const IMPORTERS = rolesAtLeast('engineer');
+
+/** multer with our limits; its errors become clear 413/400 messages. */
+function upload(limits: ImportLimits): RequestHandler {
+  const parse = multer({ storage: multer.memoryStorage(), limits: { fileSize: limits.maxBytes, files: limits.maxFiles, fields: 20 } }).array(
+    'files',
+    limits.maxFiles,
+  );
+  return (req, res, next) => {
+    parse(req, res, (err: unknown) => {
+      if (!err) return next();
+      if (err instanceof multer.MulterError) {
+        if (err.code === 'LIMIT_FILE_SIZE') {
+          return next(new AppError(413, 'payload_too_large', `${err.field ? 'A file' : 'The upload'} is larger than the ${describeBytes(limits.maxBytes)} limit (IMPORT_MAX_MB)`));
+        }
+        if (err.code === 'LIMIT_FILE_COUNT' || err.code === 'LIMIT_UNEXPECTED_FILE') {
+          return next(badRequest(`Upload at most ${limits.maxFiles} files in the form field "files"`));
+        }
+        return next(badRequest(`The upload could not be read: ${err.message}`));
+      }
+      next(badRequest('The upload could not be read as multipart form data'));
+    });
+  };
+}
+
+export function importsRouter({ dataSource }: AppContext): Router {
+  const router = Router({ mergeParams: true });
+  const limits = importLimits();
+  const projectId = (params: unknown) => parseId((params as Record<string, string>).projectId, 'Project');
+
+  router.post('/', requireRole(...IMPORTERS), upload(limits), async (req, res) => {
+    const files = ((req.files as Express.Multer.File[] | undefined) ?? []).map((f) => ({
+      name: Buffer.from(f.originalname, 'latin1').toString('utf8'),
+      buffer: f.buffer,
+    }));
+    const body = (req.body ?? {}) as Record<string, unknown>;
+    const fields = {
+      modelId: typeof body.modelId === 'string' ? body.modelId : undefined,
+      name: typeof body.name === 'string' ? body.name : undefined,
+    };
+    res.status(201).json(await previewImport(dataSource, projectId(req.params), currentUser(req).id, files, fields, limits));
+  });
+
+  router.get('/:importId', requireRole(...IMPORTERS), async (req, res) => {
+    res.json(await getPreview(dataSource, projectId(req.params), String(req.params.importId)));
+  });
+
+  router.post('/:importId/commit', requireRole(...IMPORTERS), async (req, res) => {
+    res.status(201).json(await commitImport(dataSource, projectId(req.params), String(req.params.importId), currentUser(req).id, req.body ?? {}));
+  });
+
+  return router;
+}

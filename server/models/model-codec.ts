@@ -1,0 +1,34 @@
+/**
+ * How a model version is kept: the validated Model (SI) as JSON, gzip-compressed into a
+ * BLOB, with a SHA-256 of the JSON as its content hash. Pure functions over Buffers.
+ */
+import { createHash } from 'node:crypto';
+import { gunzipSync, gzipSync } from 'node:zlib';
+import type { Model } from '../../shared/model/types.js';
+
+export function encodeJson(value: unknown): Buffer {
+  return gzipSync(Buffer.from(JSON.stringify(value), 'utf8'), { level: 1 });
+}
+
+export function decodeJson<T>(blob: Buffer | Uint8Array): T {
+  return JSON.parse(gunzipSync(blob).toString('utf8')) as T;
+}
+
+/** The model's JSON text from its stored blob (what the worker threads receive). */
+export function decodeText(blob: Buffer | Uint8Array): string {
+  return gunzipSync(blob).toString('utf8');
+}
+
+export interface EncodedModel {
+  data: Buffer;
+  hash: string;
+}
+
+export function encodeModel(model: Model): EncodedModel {
+  const json = JSON.stringify(model);
+  return { data: gzipSync(Buffer.from(json, 'utf8'), { level: 1 }), hash: createHash('sha256').update(json).digest('hex') };
+}
+
+export function decodeModel(blob: Buffer | Uint8Array): Model {
+  return decodeJson<Model>(blob);
+}

@@ -1,0 +1,53 @@
+/**
+ * /api/projects/:projectId/models and /api/models — every role reads; engineers and above
+ * edit and run (the review workflow adds its own routes later).
+ */
+import { Router } from 'express';
+import { rolesAtLeast } from '../../shared/schemas/users.js';
+import type { AppContext } from '../app.js';
+import { currentUser, requireRole } from '../middleware/auth.js';
+import { parseId } from '../middleware/params.js';
+import { listRuns, startRun } from '../runs/run.service.js';
+import { editMembers, getEditableMembers, getModelDetail, listModels, listVersions, renameModel } from './model.service.js';
+
+export const MODEL_READERS = rolesAtLeast('viewer');
+export const MODEL_EDITORS = rolesAtLeast('engineer');
+
+function optionalVersion(raw: unknown): number | undefined {
+  if (raw === undefined || raw === '') return undefined;
+  return parseId(String(raw), 'Version');
+}
+
+export function projectModelsRouter({ dataSource }: AppContext): Router {
+  const router = Router({ mergeParams: true });
+  router.get('/', requireRole(...MODEL_READERS), async (req, res) => {
+    res.json(await listModels(dataSource, parseId((req.params as Record<string, string>).projectId, 'Project')));
+  });
+  return router;
+}
+
+export function modelsRouter({ dataSource }: AppContext): Router {
+  const router = Router();
+  router.get('/:id', requireRole(...MODEL_READERS), async (req, res) => {
+    res.json(await getModelDetail(dataSource, parseId(req.params.id, 'Model')));
+  });
+  router.patch('/:id', requireRole(...MODEL_EDITORS), async (req, res) => {
+    res.json(await renameModel(dataSource, parseId(req.params.id, 'Model'), req.body ?? {}));
+  });
+  router.get('/:id/versions', requireRole(...MODEL_READERS), async (req, res) => {
+    res.json(await listVersions(dataSource, parseId(req.params.id, 'Model')));
+  });
+  router.get('/:id/members', requireRole(...MODEL_READERS), async (req, res) => {
+    res.json(await getEditableMembers(dataSource, parseId(req.params.id, 'Model'), optionalVersion(req.query.version)));
+  });
+  router.patch('/:id/members', requireRole(...MODEL_EDITORS), async (req, res) => {
+    res.json(await editMembers(dataSource, parseId(req.params.id, 'Model'), currentUser(req).id, req.body ?? {}));
+  });
+  router.get('/:id/runs', requireRole(...MODEL_READERS), async (req, res) => {
+    res.json(await listRuns(dataSource, parseId(req.params.id, 'Model')));
+  });
+  router.post('/:id/runs', requireRole(...MODEL_EDITORS), async (req, res) => {
+    res.status(202).json(await startRun(dataSource, parseId(req.params.id, 'Model'), currentUser(req).id, req.body ?? {}));
+  });
+  return router;
+}

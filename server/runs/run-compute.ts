@@ -1,0 +1,119 @@
+/**
+ * The work of one run, as the worker thread does it: read the model JSON, analyse every
+ * loading, check every member, and pack what the server keeps. Pure apart from timing.
+ */
+import { performance } from 'node:perf_hooks';
+import type { DesignCode, Model } from '../../shared/model/types.js';
+import type { AnalysisResult } from '../../shared/engine/types.js';
+import type { CheckRecord, MemberUtilisation } from '../../shared/design/types.js';
+import type { LoadingInfo, RunPhase } from '../../shared/schemas/runs.js';
+import { analyse } from '../../shared/engine/index.js';
+import { checkModel } from '../../shared/design/index.js';
+
+export interface RunOutput {
+  members: MemberUtilisation[];
+  records: CheckRecord[];
+  loadings: LoadingInfo[];
+  nodeCount: number;
+  /** loading-major, nNodes*6 per loading */
+  displacements: Float64Array;
+  reactions: Float64Array;
+  timings: Record<string, number>;
+  diagnostics: { nodes: number; members: number; freedoms: number; loadings: number; maxEquilibriumResidual: number };
+}
+
+export interface Analysed {
+  model: Model;
+  analysis: AnalysisResult;
+}
+
+/** The model of a run: the stored JSON with the run's design code in force. */
+export function readRunModel(modelJson: string, designCode: DesignCode): Model {
+  const model = JSON.parse(modelJson) as Model;
+  model.settings = { ...model.settings, designCode };
+  return model;
+}
+
+export function loadingInfos(analysis: AnalysisResult): LoadingInfo[] {
+  return analysis.loadings.map((l) => ({ id: l.id, kind: l.kind, limitState: l.limitState }));
+}
+
+/** Engine timing keys → our phase names. */
+const ENGINE_PHASES: Record<string, RunPhase> = {
+  assembly: 'assembling',
+  ordering: 'factorising',
+  factorisation: 'factorising',
+  solve: 'solving',
+  recovery: 'recovering',
+};
+
+export function computeRun(
+  modelJson: string,
+  designCode: DesignCode,
+  onPhase: (phase: RunPhase) => void = () => {},
+): { output: RunOutput; analysed: Analysed } {
+  const timings: Record<string, number> = {};
+  let t = performance.now();
+  const lap = (phase: string) => {
+    const now = performance.now();
+    timings[phase] = (timings[phase] ?? 0) + (now - t);
+    t = now;
+  };
+
+  onPhase('reading');
+  const model = readRunModel(modelJson, designCode);
+  lap('reading');
+
+  onPhase('assembling');
+  const analysis = analyse(model);
+  const analysisMs = performance.now() - t;
+  t = performance.now();
+  let engineSum = 0;
+  for (const [key, ms] of Object.entries(analysis.diagnostics.timings ?? {})) {
+    const phase = ENGINE_PHASES[key] ?? key;
+    timings[phase] = (timings[phase] ?? 0) + ms;
+    engineSum += ms;
+  }
+  if (engineSum < analysisMs) timings.assembling = (timings.assembling ?? 0) + (analysisMs - engineSum);
+
+  onPhase('checking');
+  const design = checkModel(model, analysis);
+  lap('checking');
+
+  const nNodes = analysis.nodeIds.length;
+  const nLoadings = analysis.loadings.length;
+  const displacements = new Float64Array(nNodes * 6 * nLoadings);
+  const reactions = new Float64Array(nNodes * 6 * nLoadings);
+  for (let l = 0; l < nLoadings; l++) {
+    displacements.set(analysis.displacements(l), l * nNodes * 6);
+    reactions.set(analysis.reactions(l), l * nNodes * 6);
+  }
+  lap('packing');
+
+  const equilibrium = analysis.diagnostics.equilibrium ?? [];
+  return {
+    analysed: { model, analysis },
+    output: {
+      members: design.members,
+      records: design.records,
+      loadings: loadingInfos(analysis),
+      nodeCount: nNodes,
+      displacements,
+      reactions,
+      timings,
+      diagnostics: {
+        nodes: analysis.diagnostics.nodes,
+        members: analysis.diagnostics.members,
+        freedoms: analysis.diagnostics.freedoms,
+        loadings: nLoadings,
+        maxEquilibriumResidual: equilibrium.reduce((mx, e) => Math.max(mx, e.residual), 0),
+      },
+    },
+  };
+}
+
+/** Analysis only (member detail and force exports when the worker no longer holds it). */
+export function analyseOnly(modelJson: string, designCode: DesignCode): Analysed {
+  const model = readRunModel(modelJson, designCode);
+  return { model, analysis: analyse(model) };
+}

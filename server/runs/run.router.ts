@@ -1,0 +1,50 @@
+/** /api/runs — status, results for the grid, member detail, picture, comparison, exports. */
+import { Router } from 'express';
+import { EXPORT_FORMATS, EXPORT_KINDS, type ExportFormat, type ExportKind } from '../../shared/schemas/runs.js';
+import { rolesAtLeast } from '../../shared/schemas/users.js';
+import type { AppContext } from '../app.js';
+import { badRequest, notFound } from '../errors/app-error.js';
+import { exportRun } from '../exports/export.service.js';
+import { requireRole } from '../middleware/auth.js';
+import { parseId } from '../middleware/params.js';
+import { compareRuns, getMemberDetail, getRun, getRunGeometry, getRunMembers, recoverInterruptedRuns } from './run.service.js';
+
+export const RUN_READERS = rolesAtLeast('viewer');
+export const RUN_EXPORTERS = rolesAtLeast('viewer');
+
+const text = (v: unknown) => (typeof v === 'string' ? v : undefined);
+
+export function runsRouter({ dataSource, logger }: AppContext): Router {
+  const router = Router();
+  void recoverInterruptedRuns(dataSource, logger);
+
+  router.get('/compare', requireRole(...RUN_READERS), async (req, res) => {
+    const a = text(req.query.a);
+    const b = text(req.query.b);
+    if (!a || !b) throw badRequest('Give two run ids: /api/runs/compare?a=<run>&b=<run>');
+    res.json(await compareRuns(dataSource, parseId(a, 'Run'), parseId(b, 'Run')));
+  });
+  router.get('/:id', requireRole(...RUN_READERS), async (req, res) => {
+    res.json(await getRun(dataSource, parseId(req.params.id, 'Run')));
+  });
+  router.get('/:id/members', requireRole(...RUN_READERS), async (req, res) => {
+    res.json(await getRunMembers(dataSource, parseId(req.params.id, 'Run')));
+  });
+  router.get('/:id/members/:member', requireRole(...RUN_READERS), async (req, res) => {
+    res.json(await getMemberDetail(dataSource, parseId(req.params.id, 'Run'), String(req.params.member), text(req.query.loading)));
+  });
+  router.get('/:id/model', requireRole(...RUN_READERS), async (req, res) => {
+    res.json(await getRunGeometry(dataSource, parseId(req.params.id, 'Run'), text(req.query.loading)));
+  });
+  router.get('/:id/exports/:file', requireRole(...RUN_EXPORTERS), async (req, res) => {
+    const m = /^([a-z]+)\.([a-z]+)$/.exec(String(req.params.file));
+    if (!m || !(EXPORT_KINDS as readonly string[]).includes(m[1]) || !(EXPORT_FORMATS as readonly string[]).includes(m[2])) {
+      throw notFound(`No export ${String(req.params.file)}: choose ${EXPORT_KINDS.join(', ')} as .xlsx or .csv`);
+    }
+    const file = await exportRun(dataSource, parseId(req.params.id, 'Run'), m[1] as ExportKind, m[2] as ExportFormat, text(req.query.loading));
+    res.set('Content-Type', file.contentType);
+    res.set('Content-Disposition', `attachment; filename="${file.fileName}"`);
+    res.send(file.body);
+  });
+  return router;
+}

@@ -1,0 +1,379 @@
+/**
+ * Runs: queue a run of one model version on the worker pool, follow its phases, keep its
+ * results (run_results), and answer the grid, the member detail, the picture, history and
+ * comparison from what was kept. Member station forces and check records of one member are
+ * recomputed in a worker on demand (the worker that ran the model usually still holds its
+ * analysis, so this costs no re-solve).
+ */
+import { gunzipSync, gzipSync } from 'node:zlib';
+import { performance } from 'node:perf_hooks';
+import type { DataSource } from 'typeorm';
+import type { CheckRecord, MemberUtilisation } from '../../shared/design/types.js';
+import type { DesignCode, Model } from '../../shared/model/types.js';
+import { compareMembers } from '../../shared/results/compare.js';
+import { runGeometry } from '../../shared/results/geometry.js';
+import { familiesPresent, maxRatio, memberRows, statusCounts, type PreviousMember } from '../../shared/results/member-rows.js';
+import {
+  startRunSchema,
+  type LoadingInfo,
+  type MemberDetail,
+  type Run,
+  type RunComparison,
+  type RunGeometry,
+  type RunMembers,
+  type RunPhase,
+  type RunSummary,
+  type StartRunInput,
+} from '../../shared/schemas/runs.js';
+import type { Logger } from '../config/logger.js';
+import { AppError, badRequest, notFound } from '../errors/app-error.js';
+import { decodeJson, decodeModel, decodeText, encodeJson } from '../models/model-codec.js';
+import { findModel, findVersion } from '../models/model.service.js';
+import type { RunOutput } from './run-compute.js';
+import { RunEntity, RunResultEntity, type RunRecord, type RunResultRecord } from './run.entity.js';
+import { runPool } from './worker-pool.js';
+
+const PHASE_PROGRESS: Record<RunPhase, number> = {
+  reading: 0.05, assembling: 0.15, factorising: 0.3, solving: 0.45, recovering: 0.55, checking: 0.65, saving: 0.9,
+};
+
+export const INTERRUPTED_MESSAGE = 'Interrupted by a server restart; start the run again';
+
+const iso = (d: Date | null) => (d ? d.toISOString() : null);
+
+async function userNames(ds: DataSource, ids: (number | null)[]): Promise<Map<number, string>> {
+  const wanted = [...new Set(ids.filter((i): i is number => i !== null))];
+  if (wanted.length === 0) return new Map();
+  const rows: { id: number; name: string }[] = await ds.query(`SELECT id, name FROM users WHERE id IN (${wanted.map(() => '?').join(',')})`, wanted);
+  return new Map(rows.map((r) => [r.id, r.name]));
+}
+
+export function toRunSummary(r: RunRecord, names: Map<number, string>): RunSummary {
+  const done = r.passCount !== null;
+  return {
+    id: r.id,
+    modelId: r.modelId,
+    version: r.version,
+    designCode: r.designCode,
+    status: r.status,
+    reviewStatus: r.reviewStatus,
+    phase: r.phase,
+    progress: r.status === 'done' ? 1 : r.progress,
+    message: r.message,
+    maxRatio: r.maxRatio,
+    counts: done ? { pass: r.passCount!, fail: r.failCount!, notChecked: r.notCheckedCount! } : null,
+    durationMs: r.startedAt && r.finishedAt ? r.finishedAt.getTime() - r.startedAt.getTime() : null,
+    createdBy: r.createdBy,
+    createdByName: r.createdBy !== null ? names.get(r.createdBy) ?? null : null,
+    createdAt: r.createdAt.toISOString(),
+    startedAt: iso(r.startedAt),
+    finishedAt: iso(r.finishedAt),
+  };
+}
+
+export async function findRun(ds: DataSource, id: number): Promise<RunRecord> {
+  const run = await ds.getRepository(RunEntity).findOneBy({ id });
+  if (!run) throw notFound(`Run ${id} not found`);
+  return run;
+}
+
+export async function getRun(ds: DataSource, id: number): Promise<Run> {
+  const r = await findRun(ds, id);
+  return {
+    ...toRunSummary(r, await userNames(ds, [r.createdBy])),
+    settings: JSON.parse(r.settingsJson) as Record<string, unknown>,
+    timings: JSON.parse(r.timingsJson || '{}') as Record<string, number>,
+    diagnostics: r.diagnosticsJson ? (JSON.parse(r.diagnosticsJson) as Run['diagnostics']) : null,
+  };
+}
+
+export async function listRuns(ds: DataSource, modelId: number): Promise<RunSummary[]> {
+  await findModel(ds, modelId);
+  const rows = await ds.getRepository(RunEntity).find({ where: { modelId }, order: { id: 'DESC' } });
+  const names = await userNames(ds, rows.map((r) => r.createdBy));
+  return rows.map((r) => toRunSummary(r, names));
+}
+
+/** On start-up: runs left queued or running by a previous process can never finish. */
+export async function markInterruptedRuns(ds: DataSource): Promise<number> {
+  const result = await ds
+    .createQueryBuilder()
+    .update(RunEntity)
+    .set({ status: 'failed', message: INTERRUPTED_MESSAGE, finishedAt: () => "datetime('now')" })
+    .where('status IN (:...s)', { s: ['queued', 'running'] })
+    .execute();
+  return result.affected ?? 0;
+}
+
+const recovered = new WeakMap<DataSource, Promise<void>>();
+
+/**
+ * Start-up recovery, once per database: runs a previous process left queued or running are
+ * marked failed. `startRun` waits for it so a new run is never caught by it.
+ */
+export function recoverInterruptedRuns(ds: DataSource, logger?: Logger): Promise<void> {
+  let p = recovered.get(ds);
+  if (!p) {
+    p = markInterruptedRuns(ds).then(
+      (n) => {
+        if (n > 0) logger?.warn(`${n} run${n === 1 ? '' : 's'} interrupted by a restart marked failed`);
+      },
+      (err: unknown) => logger?.error('could not mark interrupted runs', err),
+    );
+    recovered.set(ds, p);
+  }
+  return p;
+}
+
+/** Runs this process is working on → promise settled when the run is done or failed. */
+const active = new Map<number, Promise<void>>();
+
+/** Resolves when the run has finished (done or failed); at once if it is not in progress. */
+export function whenSettled(runId: number): Promise<void> {
+  return active.get(runId) ?? Promise.resolve();
+}
+
+export async function startRun(ds: DataSource, modelId: number, userId: number | null, input: StartRunInput): Promise<RunSummary> {
+  const data = startRunSchema.parse(input);
+  await recoverInterruptedRuns(ds);
+  const record = await findModel(ds, modelId);
+  const version = data.version ?? record.currentVersion;
+  const row = await findVersion(ds, modelId, version);
+  const modelJson = decodeText(row.modelData);
+  const settings = (JSON.parse(modelJson) as Model).settings;
+  const designCode: DesignCode = data.designCode ?? settings.designCode;
+  const repo = ds.getRepository(RunEntity);
+  const run = await repo.save(
+    repo.create({
+      modelId,
+      version,
+      designCode,
+      settingsJson: JSON.stringify({ ...settings, designCode }),
+      status: 'queued',
+      phase: null,
+      progress: 0,
+      message: '',
+      reviewStatus: 'draft',
+      timingsJson: '{}',
+      createdBy: userId,
+    }),
+  );
+  dispatch(ds, run.id, modelJson, designCode);
+  return toRunSummary(run, await userNames(ds, [userId]));
+}
+
+function dispatch(ds: DataSource, runId: number, modelJson: string, designCode: DesignCode): void {
+  // writes about one run happen in order, one after the other
+  let chain: Promise<unknown> = Promise.resolve();
+  const write = (patch: Partial<RunRecord>) => {
+    chain = chain.then(() => ds.getRepository(RunEntity).update({ id: runId }, patch)).catch(() => undefined);
+    return chain;
+  };
+  const done = runPool()
+    .run(
+      { kind: 'run', runId, modelJson, designCode },
+      {
+        onStart: () => void write({ status: 'running', startedAt: new Date(), phase: 'reading', progress: PHASE_PROGRESS.reading }),
+        onPhase: (phase) => void write({ phase, progress: PHASE_PROGRESS[phase] }),
+      },
+    )
+    .then(async (output) => {
+      await chain;
+      await saveResults(ds, runId, output);
+    })
+    .catch(async (err: unknown) => {
+      await chain;
+      const text = err instanceof Error ? err.message : String(err);
+      await ds
+        .getRepository(RunEntity)
+        .update({ id: runId }, { status: 'failed', message: `The run failed: ${text}`, finishedAt: new Date() })
+        .catch(() => undefined);
+    })
+    .finally(() => active.delete(runId));
+  active.set(runId, done);
+}
+
+async function saveResults(ds: DataSource, runId: number, out: RunOutput): Promise<void> {
+  const t0 = performance.now();
+  await ds.getRepository(RunEntity).update({ id: runId }, { phase: 'saving', progress: PHASE_PROGRESS.saving });
+  const nodeBytes = Buffer.concat([
+    Buffer.from(out.displacements.buffer, out.displacements.byteOffset, out.displacements.byteLength),
+    Buffer.from(out.reactions.buffer, out.reactions.byteOffset, out.reactions.byteLength),
+  ]);
+  const counts = statusCounts(out.members);
+  const result: RunResultRecord = {
+    runId,
+    membersData: encodeJson(out.members),
+    recordsData: encodeJson(out.records),
+    loadingsJson: JSON.stringify(out.loadings),
+    nodeData: gzipSync(nodeBytes, { level: 1 }),
+    nodeCount: out.nodeCount,
+  };
+  await ds.transaction(async (m) => {
+    await m.getRepository(RunResultEntity).insert(result);
+    const timings = { ...out.timings, saving: performance.now() - t0 };
+    await m.getRepository(RunEntity).update(
+      { id: runId },
+      {
+        status: 'done',
+        phase: 'saving',
+        progress: 1,
+        message: counts.fail > 0 ? `${counts.fail} member${counts.fail === 1 ? '' : 's'} over capacity` : '',
+        maxRatio: maxRatio(out.members),
+        passCount: counts.pass,
+        failCount: counts.fail,
+        notCheckedCount: counts.notChecked,
+        timingsJson: JSON.stringify(timings),
+        diagnosticsJson: JSON.stringify(out.diagnostics),
+        finishedAt: new Date(),
+      },
+    );
+  });
+}
+
+/* ---------- reading results ---------- */
+
+export interface RunData {
+  run: RunRecord;
+  result: RunResultRecord;
+}
+
+export async function doneRun(ds: DataSource, id: number): Promise<RunData> {
+  const run = await findRun(ds, id);
+  if (run.status !== 'done') {
+    const why = run.status === 'failed' ? `it failed: ${run.message}` : `it is ${run.status}`;
+    throw new AppError(409, 'conflict', `Run ${id} has no results because ${why}`);
+  }
+  const result = await ds.getRepository(RunResultEntity).findOneBy({ runId: id });
+  if (!result) throw new AppError(409, 'conflict', `Run ${id} has no stored results`);
+  return { run, result };
+}
+
+export function membersOf(result: RunResultRecord): MemberUtilisation[] {
+  return decodeJson<MemberUtilisation[]>(result.membersData);
+}
+
+export function recordsOf(result: RunResultRecord): CheckRecord[] {
+  return decodeJson<CheckRecord[]>(result.recordsData);
+}
+
+export function loadingsOf(result: RunResultRecord): LoadingInfo[] {
+  return JSON.parse(result.loadingsJson) as LoadingInfo[];
+}
+
+/** Node displacements and reactions, loading-major, nNodes*6 per loading. */
+export function nodeResultsOf(result: RunResultRecord): { displacements: Float64Array; reactions: Float64Array } {
+  const bytes = gunzipSync(result.nodeData);
+  const all = new Float64Array(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength));
+  const half = all.length / 2;
+  return { displacements: all.subarray(0, half), reactions: all.subarray(half) };
+}
+
+export async function runModel(ds: DataSource, run: RunRecord): Promise<{ model: Model; json: string }> {
+  const row = await findVersion(ds, run.modelId, run.version);
+  const json = decodeText(row.modelData);
+  const model = JSON.parse(json) as Model;
+  model.settings = { ...model.settings, designCode: run.designCode };
+  return { model, json };
+}
+
+async function previousDone(ds: DataSource, run: RunRecord): Promise<RunData | null> {
+  const prev = await ds
+    .getRepository(RunEntity)
+    .createQueryBuilder('r')
+    .where('r.modelId = :m AND r.id < :id AND r.status = :s', { m: run.modelId, id: run.id, s: 'done' })
+    .orderBy('r.id', 'DESC')
+    .getOne();
+  if (!prev) return null;
+  const result = await ds.getRepository(RunResultEntity).findOneBy({ runId: prev.id });
+  return result ? { run: prev, result } : null;
+}
+
+export async function getRunMembers(ds: DataSource, id: number): Promise<RunMembers> {
+  const { run, result } = await doneRun(ds, id);
+  const members = membersOf(result);
+  const prev = await previousDone(ds, run);
+  let previous: Map<string, PreviousMember> | undefined;
+  if (prev) previous = new Map(membersOf(prev.result).map((m) => [m.member, { ratio: m.ratio, section: m.section }]));
+  const settings = JSON.parse(run.settingsJson) as { units?: 'metric' | 'us' };
+  return {
+    runId: run.id,
+    previousRunId: prev?.run.id ?? null,
+    units: settings.units ?? 'metric',
+    designCode: run.designCode,
+    families: familiesPresent(members),
+    counts: statusCounts(members),
+    members: memberRows(members, previous),
+  };
+}
+
+function loadingIndex(loadings: LoadingInfo[], wanted: string | undefined, fallback: number): number {
+  if (wanted === undefined || wanted === '') return fallback;
+  const i = loadings.findIndex((l) => l.id === wanted);
+  if (i < 0) throw badRequest(`loading: "${wanted}" is neither a load case nor a combination of this run`);
+  return i;
+}
+
+export async function getMemberDetail(ds: DataSource, id: number, memberId: string, loading?: string): Promise<MemberDetail> {
+  const { run, result } = await doneRun(ds, id);
+  const members = membersOf(result);
+  const { model, json } = await runModel(ds, run);
+  const index = model.members.findIndex((m) => m.id === memberId);
+  const util = members.find((m) => m.member === memberId);
+  if (index < 0 || !util) throw notFound(`Member ${memberId} not found in run ${id}`);
+  const loadings = loadingsOf(result);
+  const governing = loadings.findIndex((l) => l.id === util.combination && l.kind === 'combination');
+  const firstCombo = loadings.findIndex((l) => l.kind === 'combination');
+  const chosen = loadingIndex(loadings, loading, governing >= 0 ? governing : Math.max(0, firstCombo));
+  const detail = await runPool().run({
+    kind: 'member',
+    runId: run.id,
+    modelJson: json,
+    designCode: run.designCode,
+    member: index,
+    loading: chosen,
+    governing,
+  });
+  const prev = await previousDone(ds, run);
+  const before = prev ? membersOf(prev.result).find((m) => m.member === memberId) : undefined;
+  const [row] = memberRows([util], before ? new Map([[memberId, { ratio: before.ratio, section: before.section }]]) : undefined);
+  const m = model.members[index];
+  return {
+    runId: run.id,
+    units: model.settings.units,
+    row,
+    start: m.start,
+    end: m.end,
+    type: m.type,
+    loadings,
+    loading: loadings[chosen]?.id ?? '',
+    governing: governing >= 0 ? loadings[governing].id : '',
+    stations: detail.stations,
+    governingRecords: detail.governingRecords as MemberDetail['governingRecords'],
+    loadingRecords: detail.loadingRecords as MemberDetail['loadingRecords'],
+  };
+}
+
+export async function getRunGeometry(ds: DataSource, id: number, loading?: string): Promise<RunGeometry> {
+  const { run, result } = await doneRun(ds, id);
+  const { model } = await runModel(ds, run);
+  const loadings = loadingsOf(result);
+  const firstCombo = loadings.findIndex((l) => l.kind === 'combination');
+  const chosen = loadingIndex(loadings, loading, Math.max(0, firstCombo));
+  const n = result.nodeCount * 6;
+  const { displacements } = nodeResultsOf(result);
+  const ratios = new Map(membersOf(result).map((m) => [m.member, { ratio: m.ratio, status: m.status }]));
+  return runGeometry({ runId: run.id, model, loadings, loadingIndex: chosen, displacements: displacements.subarray(chosen * n, (chosen + 1) * n), ratios });
+}
+
+export async function compareRuns(ds: DataSource, a: number, b: number): Promise<RunComparison> {
+  const A = await doneRun(ds, a);
+  const B = await doneRun(ds, b);
+  if (A.run.modelId !== B.run.modelId) throw badRequest(`Runs ${a} and ${b} belong to different models`);
+  const names = await userNames(ds, [A.run.createdBy, B.run.createdBy]);
+  return {
+    a: toRunSummary(A.run, names),
+    b: toRunSummary(B.run, names),
+    rows: compareMembers(membersOf(A.result), membersOf(B.result)),
+  };
+}

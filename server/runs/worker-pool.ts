@@ -1,0 +1,138 @@
+/**
+ * A small pool of worker threads for runs and the work that needs an analysis (member
+ * detail, member-force exports), so the HTTP thread stays responsive. Tasks queue in
+ * arrival order; a task for a run prefers the worker that last handled that run (it
+ * still holds the analysis). A worker that dies fails its task and is replaced.
+ *
+ * The entry is TypeScript: workers start with tsx's loader (`--import tsx`), which works
+ * under vitest, `npm start` and `npm run dev` alike.
+ */
+import os from 'node:os';
+import { Worker } from 'node:worker_threads';
+import type { RunPhase } from '../../shared/schemas/runs.js';
+import type { TaskResult, WorkerReply, WorkerTask } from './worker-protocol.js';
+
+interface Pending {
+  id: number;
+  task: WorkerTask;
+  onStart?: () => void;
+  onPhase?: (phase: RunPhase) => void;
+  resolve: (value: unknown) => void;
+  reject: (err: Error) => void;
+}
+
+interface Slot {
+  worker: Worker;
+  busy: Pending | null;
+  /** runs whose analysis this worker holds, newest last */
+  runs: number[];
+}
+
+export interface TaskHooks {
+  onStart?: () => void;
+  onPhase?: (phase: RunPhase) => void;
+}
+
+export class WorkerPool {
+  private readonly slots: Slot[] = [];
+  private readonly queue: Pending[] = [];
+  private nextId = 1;
+  private closed = false;
+
+  constructor(readonly size = Math.max(1, Math.min(2, os.availableParallelism?.() ?? os.cpus().length))) {
+    for (let i = 0; i < size; i++) this.slots.push(this.spawn());
+  }
+
+  private spawn(): Slot {
+    const worker = new Worker(new URL('./worker.ts', import.meta.url), { execArgv: ['--import', 'tsx'] });
+    worker.unref();
+    const slot: Slot = { worker, busy: null, runs: [] };
+    worker.on('message', (reply: WorkerReply) => this.onReply(slot, reply));
+    worker.on('error', (err) => this.onCrash(slot, err));
+    worker.on('exit', (code) => {
+      if (!this.closed) this.onCrash(slot, new Error(`the analysis worker stopped (exit code ${code})`));
+    });
+    return slot;
+  }
+
+  run<T extends WorkerTask>(task: T, hooks: TaskHooks = {}): Promise<TaskResult<T>> {
+    if (this.closed) return Promise.reject(new Error('the worker pool is closed'));
+    return new Promise((resolve, reject) => {
+      this.queue.push({ id: this.nextId++, task, ...hooks, resolve: resolve as (v: unknown) => void, reject });
+      this.pump();
+    });
+  }
+
+  /** Tasks waiting for a worker. */
+  get waiting(): number {
+    return this.queue.length;
+  }
+
+  private pump(): void {
+    while (this.queue.length > 0) {
+      const idle = this.slots.filter((s) => !s.busy);
+      if (idle.length === 0) return;
+      const next = this.queue.shift()!;
+      const slot = idle.find((s) => s.runs.includes(next.task.runId)) ?? idle[0];
+      slot.busy = next;
+      slot.runs = [...slot.runs.filter((r) => r !== next.task.runId), next.task.runId].slice(-2);
+      next.onStart?.();
+      slot.worker.ref();
+      slot.worker.postMessage({ id: next.id, task: next.task });
+    }
+  }
+
+  private finish(slot: Slot): Pending | null {
+    const done = slot.busy;
+    slot.busy = null;
+    slot.worker.unref();
+    return done;
+  }
+
+  private onReply(slot: Slot, reply: WorkerReply): void {
+    const pending = slot.busy;
+    if (!pending || pending.id !== reply.id) return;
+    if (reply.type === 'progress') {
+      pending.onPhase?.(reply.phase);
+      return;
+    }
+    this.finish(slot);
+    if (reply.type === 'done') pending.resolve(reply.result);
+    else pending.reject(new Error(reply.message));
+    this.pump();
+  }
+
+  private onCrash(slot: Slot, err: Error): void {
+    const index = this.slots.indexOf(slot);
+    if (index < 0) return;
+    const pending = this.finish(slot);
+    void slot.worker.terminate();
+    if (this.closed) return;
+    this.slots[index] = this.spawn();
+    pending?.reject(err);
+    this.pump();
+  }
+
+  async close(): Promise<void> {
+    this.closed = true;
+    for (const p of this.queue.splice(0)) p.reject(new Error('the server is shutting down'));
+    await Promise.all(this.slots.map((s) => s.worker.terminate()));
+  }
+}
+
+let shared: WorkerPool | null = null;
+
+/** The process-wide pool (created on first use; size from RUN_WORKERS or min(2, cpus)). */
+export function runPool(): WorkerPool {
+  if (!shared) {
+    const configured = Number(process.env.RUN_WORKERS);
+    shared = Number.isInteger(configured) && configured > 0 ? new WorkerPool(configured) : new WorkerPool();
+  }
+  return shared;
+}
+
+export async function closeRunPool(): Promise<void> {
+  const pool = shared;
+  shared = null;
+  await pool?.close();
+}

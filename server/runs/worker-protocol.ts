@@ -1,0 +1,59 @@
+/** Messages between the HTTP thread and the run workers. */
+import type { DesignCode } from '../../shared/model/types.js';
+import type { CheckRecord } from '../../shared/design/types.js';
+import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
+import type { RunOutput } from './run-compute.js';
+
+interface TaskBase {
+  /** the run whose analysis the task needs (workers keep the last few analyses) */
+  runId: number;
+  modelJson: string;
+  designCode: DesignCode;
+}
+
+export interface RunTask extends TaskBase {
+  kind: 'run';
+}
+
+export interface MemberTask extends TaskBase {
+  kind: 'member';
+  member: number;
+  loading: number;
+  /** the governing combination's loading index, -1 when none */
+  governing: number;
+}
+
+export interface ForcesTask extends TaskBase {
+  kind: 'forces';
+  /** loading indices to export */
+  loadings: number[];
+}
+
+export type WorkerTask = RunTask | MemberTask | ForcesTask;
+
+export interface MemberTaskResult {
+  stations: Stations;
+  governingRecords: CheckRecord[];
+  loadingRecords: CheckRecord[];
+}
+
+/** Member forces of every member for the requested loadings, flattened. */
+export interface ForcesTaskResult {
+  /** per block (loading × member, loading-major): number of stations */
+  counts: Int32Array;
+  /** per station: x, N, V_major, V_minor, T, M_major, M_minor, d_major, d_minor */
+  data: Float64Array;
+}
+
+export type TaskResult<T extends WorkerTask> = T extends RunTask
+  ? RunOutput
+  : T extends MemberTask
+    ? MemberTaskResult
+    : ForcesTaskResult;
+
+export type WorkerRequest = { id: number; task: WorkerTask };
+
+export type WorkerReply =
+  | { id: number; type: 'progress'; phase: RunPhase }
+  | { id: number; type: 'done'; result: unknown }
+  | { id: number; type: 'error'; message: string };

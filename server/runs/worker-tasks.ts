@@ -1,0 +1,99 @@
+/** What a worker does for each task; kept apart from the thread plumbing so tests can call it. */
+import type { AnalysisResult, StationForces } from '../../shared/engine/types.js';
+import { checkMember } from '../../shared/design/index.js';
+import { FORCE_KEYS } from '../../shared/engine/types.js';
+import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
+import { analyseOnly, computeRun, type Analysed } from './run-compute.js';
+import type { ForcesTaskResult, MemberTaskResult, WorkerTask } from './worker-protocol.js';
+
+/** Analyses kept per worker, newest last. */
+const CACHE_SIZE = 2;
+const cache = new Map<number, Analysed>();
+
+function remember(runId: number, analysed: Analysed): void {
+  cache.delete(runId);
+  cache.set(runId, analysed);
+  while (cache.size > CACHE_SIZE) cache.delete(cache.keys().next().value as number);
+}
+
+function analysedFor(task: WorkerTask): Analysed {
+  const kept = cache.get(task.runId);
+  if (kept) {
+    remember(task.runId, kept);
+    return kept;
+  }
+  const analysed = analyseOnly(task.modelJson, task.designCode);
+  remember(task.runId, analysed);
+  return analysed;
+}
+
+export function stationsJson(s: StationForces): Stations {
+  return {
+    x: Array.from(s.x),
+    N: Array.from(s.N),
+    V_major: Array.from(s.V_major),
+    V_minor: Array.from(s.V_minor),
+    T: Array.from(s.T),
+    M_major: Array.from(s.M_major),
+    M_minor: Array.from(s.M_minor),
+    d_major: Array.from(s.d_major),
+    d_minor: Array.from(s.d_minor),
+  };
+}
+
+function memberForces(analysis: AnalysisResult, loadings: number[]): ForcesTaskResult {
+  const nMembers = analysis.memberIds.length;
+  const counts = new Int32Array(loadings.length * nMembers);
+  const blocks: StationForces[] = [];
+  let total = 0;
+  loadings.forEach((l, li) => {
+    for (let m = 0; m < nMembers; m++) {
+      const s = analysis.memberForces(m, l);
+      counts[li * nMembers + m] = s.x.length;
+      total += s.x.length;
+      blocks.push(s);
+    }
+  });
+  const data = new Float64Array(total * 9);
+  let k = 0;
+  for (const s of blocks) {
+    for (let i = 0; i < s.x.length; i++) {
+      data[k++] = s.x[i];
+      for (const key of FORCE_KEYS) data[k++] = s[key][i];
+    }
+  }
+  return { counts, data };
+}
+
+export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => void): unknown {
+  switch (task.kind) {
+    case 'run': {
+      const { output, analysed } = computeRun(task.modelJson, task.designCode, onPhase);
+      remember(task.runId, analysed);
+      return output;
+    }
+    case 'member': {
+      const { model, analysis } = analysedFor(task);
+      const result: MemberTaskResult = {
+        stations: stationsJson(analysis.memberForces(task.member, task.loading)),
+        governingRecords: task.governing >= 0 ? checkMember(model, analysis, task.member, task.governing) : [],
+        loadingRecords:
+          analysis.loadings[task.loading]?.kind === 'combination' ? checkMember(model, analysis, task.member, task.loading) : [],
+      };
+      return result;
+    }
+    case 'forces': {
+      const { analysis } = analysedFor(task);
+      return memberForces(analysis, task.loadings);
+    }
+  }
+}
+
+/** Buffers to move rather than copy back to the HTTP thread. */
+export function transferList(result: unknown): ArrayBuffer[] {
+  const out: ArrayBuffer[] = [];
+  if (result && typeof result === 'object') {
+    for (const v of Object.values(result)) if (v instanceof Float64Array || v instanceof Int32Array) out.push(v.buffer as ArrayBuffer);
+  }
+  return out;
+}

@@ -1,0 +1,20 @@
+/**
+ * Entry of a run worker thread (started by worker-pool.ts under tsx). Takes one task at a
+ * time from the HTTP thread, reports the phase it reaches, replies with the result.
+ */
+import { parentPort } from 'node:worker_threads';
+import type { WorkerReply, WorkerRequest } from './worker-protocol.js';
+import { runWorkerTask, transferList } from './worker-tasks.js';
+
+if (!parentPort) throw new Error('worker.ts must run in a worker thread');
+const port = parentPort;
+
+port.on('message', ({ id, task }: WorkerRequest) => {
+  try {
+    const result = runWorkerTask(task, (phase) => port.postMessage({ id, type: 'progress', phase } satisfies WorkerReply));
+    port.postMessage({ id, type: 'done', result } satisfies WorkerReply, transferList(result));
+  } catch (err) {
+    const message = err instanceof Error ? err.message : String(err);
+    port.postMessage({ id, type: 'error', message } satisfies WorkerReply);
+  }
+});
