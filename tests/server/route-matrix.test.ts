@@ -40,6 +40,27 @@ export const ROUTES: RouteRule[] = [
   { method: 'GET', path: '/api/projects/:id', allowed: READ },
   { method: 'PATCH', path: '/api/projects/:id', allowed: EDIT },
   { method: 'DELETE', path: '/api/projects/:id', allowed: LEAD },
+  // models, imports, runs, exports, samples, templates (server/models, imports, runs, exports, samples)
+  { method: 'GET', path: '/api/projects/:projectId/models', allowed: READ },
+  { method: 'POST', path: '/api/projects/:projectId/imports', allowed: EDIT },
+  { method: 'GET', path: '/api/projects/:projectId/imports/:importId', allowed: EDIT },
+  { method: 'POST', path: '/api/projects/:projectId/imports/:importId/commit', allowed: EDIT },
+  { method: 'GET', path: '/api/models/:id', allowed: READ },
+  { method: 'PATCH', path: '/api/models/:id', allowed: EDIT },
+  { method: 'GET', path: '/api/models/:id/versions', allowed: READ },
+  { method: 'GET', path: '/api/models/:id/members', allowed: READ },
+  { method: 'PATCH', path: '/api/models/:id/members', allowed: EDIT },
+  { method: 'GET', path: '/api/models/:id/runs', allowed: READ },
+  { method: 'POST', path: '/api/models/:id/runs', allowed: EDIT },
+  { method: 'GET', path: '/api/runs/compare', allowed: READ },
+  { method: 'GET', path: '/api/runs/:id', allowed: READ },
+  { method: 'GET', path: '/api/runs/:id/members', allowed: READ },
+  { method: 'GET', path: '/api/runs/:id/members/:member', allowed: READ },
+  { method: 'GET', path: '/api/runs/:id/model', allowed: READ },
+  { method: 'GET', path: '/api/runs/:id/exports/:file', allowed: READ },
+  { method: 'GET', path: '/api/samples', allowed: READ },
+  { method: 'GET', path: '/api/samples/:file', allowed: READ },
+  { method: 'GET', path: '/api/templates/:file', allowed: READ },
 ];
 
 /** Routes outside /api (the single-page fallback) are not part of the matrix. */
