@@ -1,0 +1,83 @@
+/**
+ * Internal forces and chord deflections at stations along a member, for one case.
+ *
+ * Forces: statics of the free body from the start end forces plus the member loads
+ * (statics.ts) — exact for the loads applied.
+ * Deflections relative to the chord: with the curvature κ(x) = M(x)/EI(x) + κ_T(x) and
+ * d(0) = d(L) = 0,
+ *   d(x) = ∫₀ˣ (x−s) κ(s) ds − (x/L) ∫₀ᴸ (L−s) κ(s) ds = x·A(x) − B(x) − (x/L)(L·A(L) − B(L)),
+ * A(x) = ∫₀ˣ κ, B(x) = ∫₀ˣ s κ. Between breakpoints κ is a polynomial of degree ≤ 3 for a
+ * prismatic member, so three-point Gauss per piece is exact. Releases need no special
+ * treatment (the moment is zero there), and a tapered member uses EI(x) along its length.
+ */
+import type { MemberInfo } from './discretise.js';
+import { GAUSS3_T, GAUSS3_W } from './gauss.js';
+import { emptyLoadSet, type LoadSet, loadBreakpoints, uniqueSorted } from './loadSet.js';
+import { internalForces } from './statics.js';
+
+/** Rows of the per-case block: N, V_major, V_minor, T, M_major, M_minor, d_major, d_minor. */
+export const ROWS = 8;
+const EMPTY = emptyLoadSet();
+
+/** 11 evenly spaced stations plus every concentrated load position of any case. */
+export function memberStations(L: number, sets: (LoadSet | undefined)[]): Float64Array {
+  const xs: number[] = [];
+  for (let i = 0; i <= 10; i++) xs.push((L * i) / 10);
+  for (const ls of sets) {
+    if (!ls) continue;
+    for (let i = 0; i < ls.point.length; i += 4) xs.push(ls.point[i]);
+    for (let i = 0; i < ls.moment.length; i += 4) xs.push(ls.moment[i]);
+  }
+  const u = uniqueSorted(xs, L * 1e-9);
+  u[0] = 0;
+  u[u.length - 1] = L;
+  return Float64Array.from(u);
+}
+
+/**
+ * Fill out[row * nSt + i] for the 8 rows at the given stations, for start end forces f1
+ * (local, forces the start node applies to the member).
+ */
+export function caseStations(m: MemberInfo, lsIn: LoadSet | undefined, f1: ArrayLike<number>, xs: Float64Array, out: Float64Array, outOff: number): void {
+  const ls = lsIn ?? EMPTY;
+  const nSt = xs.length;
+  const L = m.L;
+  const s = new Float64Array(6);
+  for (let i = 0; i < nSt; i++) {
+    internalForces(ls, f1, xs[i], xs[i] <= 0, s);
+    for (let r = 0; r < 6; r++) out[outOff + r * nSt + i] = s[r];
+  }
+  // deflections
+  const E = m.material.E;
+  const pts = [...xs];
+  loadBreakpoints(ls, L, pts);
+  if (m.tapered) for (let k = 1; k < 32; k++) pts.push((L * k) / 32);
+  const P = uniqueSorted(pts, L * 1e-12);
+  const nP = P.length;
+  const Amaj = new Float64Array(nP), Bmaj = new Float64Array(nP), Amin = new Float64Array(nP), Bmin = new Float64Array(nP);
+  const constProps = m.tapered ? null : m.props(0);
+  for (let k = 0; k + 1 < nP; k++) {
+    const x0 = P[k], h = P[k + 1] - x0;
+    let a1 = 0, b1 = 0, a2 = 0, b2 = 0;
+    for (let g = 0; g < 3; g++) {
+      const x = x0 + GAUSS3_T[g] * h, w = GAUSS3_W[g] * h;
+      const pr = constProps ?? m.props(x / L);
+      internalForces(ls, f1, x, false, s);
+      const kmaj = s[4] / (E * pr.Iy) + (ls.grad !== 0 ? -ls.grad / pr.depth : 0);
+      const kmin = s[5] / (E * pr.Iz);
+      a1 += w * kmaj; b1 += w * x * kmaj;
+      a2 += w * kmin; b2 += w * x * kmin;
+    }
+    Amaj[k + 1] = Amaj[k] + a1; Bmaj[k + 1] = Bmaj[k] + b1;
+    Amin[k + 1] = Amin[k] + a2; Bmin[k + 1] = Bmin[k] + b2;
+  }
+  const cMaj = (L * Amaj[nP - 1] - Bmaj[nP - 1]) / L;
+  const cMin = (L * Amin[nP - 1] - Bmin[nP - 1]) / L;
+  let k = 0;
+  for (let i = 0; i < nSt; i++) {
+    const x = xs[i];
+    while (k + 1 < nP && Math.abs(P[k + 1] - x) <= Math.abs(P[k] - x)) k++;
+    out[outOff + 6 * nSt + i] = i === 0 || i === nSt - 1 ? 0 : x * Amaj[k] - Bmaj[k] - x * cMaj;
+    out[outOff + 7 * nSt + i] = i === 0 || i === nSt - 1 ? 0 : x * Amin[k] - Bmin[k] - x * cMin;
+  }
+}

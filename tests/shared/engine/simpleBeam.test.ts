@@ -1,0 +1,58 @@
+import { describe, expect, it } from 'vitest';
+import { analyse } from '../../../shared/engine/index.js';
+import { at, ModelBuilder, nodeIndexOf, STEEL_E } from './builders.js';
+
+// Simply supported beam along X, Z up, plane frame in XZ. L = 6 m, E = 200 GPa, I = 1e-4 m4.
+const L = 6, I = 1e-4, EI = STEEL_E * I;
+
+function simpleBeam() {
+  return new ModelBuilder({ planeNormal: 'Y' })
+    .node('A', 0, 0, 0).node('B', L, 0, 0)
+    .support('A', 'ux uz').support('B', 'uz')
+    .member('M1', 'A', 'B');
+}
+
+describe('simply supported beam', () => {
+  it('UDL: reactions wL/2, midspan moment wL²/8, deflection 5wL⁴/384EI', () => {
+    const w = 10e3; // N/m downward
+    const m = simpleBeam().loadCase('D').memberLoad('D', 'M1', 'uniform', 'global_z', -w).build();
+    const r = analyse(m);
+    const f = r.memberForces(0, 0);
+    // Closed form (statics): R = wL/2; M(L/2) = wL²/8; δ = 5wL⁴/(384EI). Tolerance rel 1e-9.
+    const RA = r.reactions(0)[nodeIndexOf(m, 'A') * 6 + 2];
+    expect(RA).toBeCloseTo((w * L) / 2, 6);
+    expect(at(f.x, f.M_major, L / 2) / ((w * L * L) / 8)).toBeCloseTo(1, 9);
+    // conventions.md: sagging positive, V_major positive near the start, negative near the end
+    expect(at(f.x, f.V_major, 0)).toBeCloseTo((w * L) / 2, 6);
+    expect(at(f.x, f.V_major, L)).toBeCloseTo((-w * L) / 2, 6);
+    const dmid = (5 * w * L ** 4) / (384 * EI);
+    expect(at(f.x, f.d_major, L / 2) / -dmid).toBeCloseTo(1, 9);
+    // d_major is relative to the chord; supports do not move, so it equals the node-free deflection
+    expect(f.d_major[0]).toBe(0);
+    // end rotation wL³/24EI (Roark's Formulas table 8.1 case 2e, from memory); θy = −dw/dx so +θ at A
+    expect(r.displacements(0)[4] / ((w * L ** 3) / (24 * EI))).toBeCloseTo(1, 9);
+  });
+
+  it('midspan point load: M = PL/4, δ = PL³/48EI', () => {
+    const P = 20e3;
+    const m = simpleBeam().loadCase('D').memberLoad('D', 'M1', 'point', 'global_z', -P, { a: L / 2 }).build();
+    const r = analyse(m);
+    const f = r.memberForces(0, 0);
+    // Closed form: M_max = PL/4, δ = PL³/(48EI). Tolerance rel 1e-9.
+    expect(at(f.x, f.M_major, L / 2) / ((P * L) / 4)).toBeCloseTo(1, 9);
+    expect(at(f.x, f.d_major, L / 2) / (-(P * L ** 3) / (48 * EI))).toBeCloseTo(1, 9);
+  });
+
+  it('off-centre point load: reactions Pb/L, Pa/L, M = Pab/L, deflection under the load Pa²b²/3EIL', () => {
+    const P = 15e3, a = 2, b = L - a;
+    const m = simpleBeam().loadCase('D').memberLoad('D', 'M1', 'point', 'global_z', -P, { a }).build();
+    const r = analyse(m);
+    const f = r.memberForces(0, 0);
+    // AISC Manual Table 3-23 case 8 (from memory): R1 = Pb/L, R2 = Pa/L, Mmax = Pab/L, Δa = Pa²b²/(3EIL). Tol rel 1e-9.
+    expect(r.reactions(0)[2] / ((P * b) / L)).toBeCloseTo(1, 9);
+    expect(r.reactions(0)[8] / ((P * a) / L)).toBeCloseTo(1, 9);
+    expect(f.x).toContain(a);
+    expect(at(f.x, f.M_major, a) / ((P * a * b) / L)).toBeCloseTo(1, 9);
+    expect(at(f.x, f.d_major, a) / (-(P * a * a * b * b) / (3 * EI * L))).toBeCloseTo(1, 9);
+  });
+});
