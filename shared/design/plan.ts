@@ -1,0 +1,57 @@
+/**
+ * A member's design plan: its checks (slots), evaluated for many loadings with plain
+ * numbers and no allocation, and turned into full records only when asked (the governing
+ * loading of each slot, or the member-detail view).
+ *
+ * evaluate() writes per slot: ratio (NaN = not checked, −1 = not applicable in this
+ * loading) and the position x of the governing demand.
+ */
+import type { StationForces } from '../engine/types.js';
+import type { CheckFamily, CheckRecord } from './types.js';
+
+export interface Slot {
+  family: CheckFamily;
+  /** stable key within the member: "D2(a)", "E3", "bending_major" … */
+  key: string;
+}
+
+export interface MemberPlan {
+  member: string;
+  slots: Slot[];
+  evaluate(sf: StationForces, ratio: Float64Array, x: Float64Array): void;
+  /** records aligned with slots (null where not applicable) */
+  records(sf: StationForces, combination: string): (CheckRecord | null)[];
+}
+
+/** What the orchestration knows about a member before any code-specific work (SI). */
+export interface MemberSetup {
+  id: string;
+  length: number;
+  truss: boolean;
+  /** effective lengths K·L about the major and minor axes */
+  LcMajor: number;
+  LcMinor: number;
+  /** laterally unbraced length (≤ length) */
+  Lb: number;
+  /** given Cb / C1, or undefined = from the moment diagram */
+  cb?: number;
+  /** one end free and unsupported */
+  cantilever: boolean;
+}
+
+/** Largest |v| over stations and where it occurs; writes [value, x] into out. */
+export function absMax(v: Float64Array, xs: Float64Array, out: Float64Array, k: number): void {
+  let m = 0, at = 0;
+  for (let i = 0; i < v.length; i++) {
+    const a = v[i] < 0 ? -v[i] : v[i];
+    if (a > m) { m = a; at = xs[i]; }
+  }
+  out[k] = m;
+  out[k + 1] = at;
+}
+
+/** Number of unbraced segments for lateral-torsional buckling: segments of length Lb from the start. */
+export function segmentCount(L: number, Lb: number): number {
+  if (!(Lb < L)) return 1;
+  return Math.max(1, Math.ceil(L / Lb - 1e-9));
+}
