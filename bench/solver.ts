@@ -1,0 +1,253 @@
+/**
+ * Solver benchmark on synthetic 3D building frames: a grid of nodes (6 freedoms each),
+ * columns and beams along the grid lines with Euler–Bernoulli 12×12 element stiffness,
+ * base nodes fixed. Prints ordering, symbolic, numeric, 20-case block solve, nnz(L) and
+ * peak resident memory. Run: npx tsx bench/solver.ts [amd|nested-dissection|auto ...]
+ */
+import { factorise, type SymmetricCsc } from '../shared/solver/index.js';
+
+export interface FrameSpec {
+  baysX: number;
+  baysY: number;
+  storeys: number;
+}
+
+/** Local stiffness of a 3D frame member (u, v, w, θx, θy, θz at each end), row-major 12×12. */
+function memberStiffness(E: number, G: number, A: number, Iy: number, Iz: number, J: number, L: number): Float64Array {
+  const k = new Float64Array(144);
+  const set = (i: number, j: number, v: number): void => {
+    k[i * 12 + j] = v;
+    k[j * 12 + i] = v;
+  };
+  const ea = (E * A) / L;
+  const gj = (G * J) / L;
+  const z12 = (12 * E * Iz) / L ** 3, z6 = (6 * E * Iz) / L ** 2, z4 = (4 * E * Iz) / L, z2 = (2 * E * Iz) / L;
+  const y12 = (12 * E * Iy) / L ** 3, y6 = (6 * E * Iy) / L ** 2, y4 = (4 * E * Iy) / L, y2 = (2 * E * Iy) / L;
+  set(0, 0, ea); set(6, 6, ea); set(0, 6, -ea);
+  set(3, 3, gj); set(9, 9, gj); set(3, 9, -gj);
+  // bending in the x–y plane (v, θz)
+  set(1, 1, z12); set(7, 7, z12); set(1, 7, -z12);
+  set(1, 5, z6); set(1, 11, z6); set(7, 5, -z6); set(7, 11, -z6);
+  set(5, 5, z4); set(11, 11, z4); set(5, 11, z2);
+  // bending in the x–z plane (w, θy)
+  set(2, 2, y12); set(8, 8, y12); set(2, 8, -y12);
+  set(2, 4, -y6); set(2, 10, -y6); set(8, 4, y6); set(8, 10, y6);
+  set(4, 4, y4); set(10, 10, y4); set(4, 10, y2);
+  return k;
+}
+
+/** Global stiffness (lower triangle, CSC) of a building frame; returns the matrix and counts. */
+export function buildFrame(spec: FrameSpec): { K: SymmetricCsc; members: number; freedoms: number } {
+  const { baysX, baysY, storeys } = spec;
+  const nx = baysX + 1, ny = baysY + 1, nz = storeys + 1;
+  const node = (i: number, j: number, k: number): number => (k * ny + j) * nx + i;
+  // freedoms: base nodes (k = 0) are fixed
+  const dofOf = (nd: number): number => (nd < nx * ny ? -1 : (nd - nx * ny) * 6);
+  const n = (nz - 1) * nx * ny * 6;
+  const E = 210e9, G = 81e9;
+  const beam = { A: 5.4e-3, Iy: 1.2e-4, Iz: 1.0e-5, J: 2.0e-7 };
+  const column = { A: 1.1e-2, Iy: 2.5e-4, Iz: 8.0e-5, J: 1.0e-6 };
+  const bay = 6, storey = 3.5;
+  // local stiffness for each member direction, rotated to global (axis permutations)
+  const rot = (axis: 0 | 1 | 2): number[][] =>
+    axis === 0 ? [[1, 0, 0], [0, 1, 0], [0, 0, 1]] : axis === 1 ? [[0, 1, 0], [-1, 0, 0], [0, 0, 1]] : [[0, 0, 1], [0, 1, 0], [-1, 0, 0]];
+  const globalK = (axis: 0 | 1 | 2, s: typeof beam, L: number): Float64Array => {
+    const kl = memberStiffness(E, G, s.A, s.Iy, s.Iz, s.J, L);
+    const R = rot(axis);
+    const T = new Float64Array(144);
+    for (let b = 0; b < 4; b++) for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) T[(b * 3 + i) * 12 + b * 3 + j] = R[i][j];
+    const kg = new Float64Array(144);
+    // kg = Tᵀ kl T
+    const tmp = new Float64Array(144);
+    for (let i = 0; i < 12; i++) for (let j = 0; j < 12; j++) {
+      let s2 = 0;
+      for (let m = 0; m < 12; m++) s2 += kl[i * 12 + m] * T[m * 12 + j];
+      tmp[i * 12 + j] = s2;
+    }
+    for (let i = 0; i < 12; i++) for (let j = 0; j < 12; j++) {
+      let s2 = 0;
+      for (let m = 0; m < 12; m++) s2 += T[m * 12 + i] * tmp[m * 12 + j];
+      kg[i * 12 + j] = s2;
+    }
+    return kg;
+  };
+  const kx = globalK(0, beam, bay), ky = globalK(1, beam, bay), kz = globalK(2, column, storey);
+  const ends: Array<[number, number, Float64Array]> = [];
+  for (let k = 0; k < nz; k++) for (let j = 0; j < ny; j++) for (let i = 0; i < nx; i++) {
+    if (k > 0 && i + 1 < nx) ends.push([node(i, j, k), node(i + 1, j, k), kx]);
+    if (k > 0 && j + 1 < ny) ends.push([node(i, j, k), node(i, j + 1, k), ky]);
+    if (k + 1 < nz) ends.push([node(i, j, k), node(i, j, k + 1), kz]);
+  }
+  // count entries per column (upper bound with duplicates), then assemble with a dense column map
+  const triI: number[] = [];
+  void triI;
+  const cnt = new Int32Array(n + 1);
+  for (const [a, b] of ends) {
+    const da = dofOf(a), db = dofOf(b);
+    for (const d1 of [da, db]) for (const d2 of [da, db]) {
+      if (d1 < 0 || d2 < 0 || d2 > d1) continue;
+      for (let c = 0; c < 6; c++) cnt[d2 + c + 1] += 6;
+    }
+  }
+  for (let j = 0; j < n; j++) cnt[j + 1] += cnt[j];
+  const rawRow = new Int32Array(cnt[n]);
+  const rawVal = new Float64Array(cnt[n]);
+  const fillp = cnt.slice(0, n);
+  for (const [a, b, kg] of ends) {
+    const dofs = [dofOf(a), dofOf(b)];
+    for (let ea = 0; ea < 2; ea++) for (let eb = 0; eb < 2; eb++) {
+      const d1 = dofs[ea], d2 = dofs[eb];
+      if (d1 < 0 || d2 < 0 || d2 > d1) continue;
+      for (let c = 0; c < 6; c++) for (let r = 0; r < 6; r++) {
+        const row = d1 + r, col = d2 + c;
+        const q = fillp[col]++;
+        rawRow[q] = row;
+        rawVal[q] = row >= col ? kg[(ea * 6 + r) * 12 + eb * 6 + c] : 0;
+      }
+    }
+  }
+  // sum duplicates and keep the lower triangle, rows ascending
+  const colPtr = new Int32Array(n + 1);
+  const rows: number[] = [];
+  const vals: number[] = [];
+  const acc = new Float64Array(n);
+  const seen = new Int32Array(n).fill(-1);
+  const list: number[] = [];
+  for (let j = 0; j < n; j++) {
+    list.length = 0;
+    for (let p = cnt[j]; p < cnt[j + 1]; p++) {
+      const r = rawRow[p];
+      if (r < j) continue;
+      if (seen[r] !== j) {
+        seen[r] = j;
+        acc[r] = 0;
+        list.push(r);
+      }
+      acc[r] += rawVal[p];
+    }
+    list.sort((x, y) => x - y);
+    for (const r of list) {
+      rows.push(r);
+      vals.push(acc[r]);
+    }
+    colPtr[j + 1] = rows.length;
+  }
+  return {
+    K: { n, colPtr, rowIdx: Int32Array.from(rows), values: Float64Array.from(vals) },
+    members: ends.length,
+    freedoms: n,
+  };
+}
+
+export interface SolverBenchRow {
+  model: string;
+  members: number;
+  freedoms: number;
+  ordering: string;
+  orderingMs: number;
+  symbolicMs: number;
+  numericMs: number;
+  solveMs: number;
+  nnzL: number;
+  gflops: number;
+  residual: number;
+  peakRssMb: number;
+}
+
+export const solverBenchModels: Array<{ name: string; spec: FrameSpec }> = [
+  { name: 'frame 5×5×10', spec: { baysX: 5, baysY: 5, storeys: 10 } },
+  { name: 'frame 10×10×30', spec: { baysX: 10, baysY: 10, storeys: 30 } },
+  { name: 'frame 20×20×40', spec: { baysX: 20, baysY: 20, storeys: 40 } },
+];
+
+/** Runs the solver on each synthetic frame; returns one row per model and ordering. */
+export function benchSolver(
+  orderings: Array<'auto' | 'amd' | 'nested-dissection'> = ['auto'],
+  models = solverBenchModels,
+): SolverBenchRow[] {
+  const out: SolverBenchRow[] = [];
+  let peak = process.memoryUsage().rss;
+  for (const { name, spec } of models) {
+    const { K, members, freedoms } = buildFrame(spec);
+    for (const ordering of orderings) {
+      const f = factorise(K, { ordering });
+      peak = Math.max(peak, process.memoryUsage().rss);
+      const nrhs = 20;
+      const B = new Float64Array(freedoms * nrhs);
+      for (let q = 0; q < nrhs; q++) for (let i = 0; i < freedoms; i++) B[q * freedoms + i] = Math.sin(i * (q + 1) * 0.37) * 1e3;
+      const t = performance.now();
+      const X = f.solve(B, nrhs);
+      const solveMs = performance.now() - t;
+      peak = Math.max(peak, process.memoryUsage().rss);
+      out.push({
+        model: name,
+        members,
+        freedoms,
+        ordering: f.ordering,
+        orderingMs: f.timings.ordering,
+        symbolicMs: f.timings.symbolic,
+        numericMs: f.timings.numeric,
+        solveMs,
+        nnzL: f.nnzFactor,
+        gflops: f.flops / f.timings.numeric / 1e6,
+        residual: relativeResidual(K, X, B, nrhs),
+        peakRssMb: peak / 2 ** 20,
+      });
+    }
+  }
+  return out;
+}
+
+/** max over right-hand sides of ‖K x − b‖∞ / (‖K‖∞‖x‖∞ + ‖b‖∞) */
+export function relativeResidual(K: SymmetricCsc, X: Float64Array, B: Float64Array, nrhs: number): number {
+  const { n, colPtr, rowIdx, values } = K;
+  let worst = 0;
+  const r = new Float64Array(n);
+  const rowSum = new Float64Array(n);
+  for (let j = 0; j < n; j++) for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
+    const i = rowIdx[p];
+    rowSum[i] += Math.abs(values[p]);
+    if (i !== j) rowSum[j] += Math.abs(values[p]);
+  }
+  let normK = 0;
+  for (let i = 0; i < n; i++) normK = Math.max(normK, rowSum[i]);
+  for (let q = 0; q < nrhs; q++) {
+    const x = X.subarray(q * n, (q + 1) * n);
+    const b = B.subarray(q * n, (q + 1) * n);
+    r.set(b);
+    for (let j = 0; j < n; j++) for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
+      const i = rowIdx[p];
+      r[i] -= values[p] * x[j];
+      if (i !== j) r[j] -= values[p] * x[i];
+    }
+    let rn = 0, xn = 0, bn = 0;
+    for (let i = 0; i < n; i++) {
+      rn = Math.max(rn, Math.abs(r[i]));
+      xn = Math.max(xn, Math.abs(x[i]));
+      bn = Math.max(bn, Math.abs(b[i]));
+    }
+    worst = Math.max(worst, rn / (normK * xn + bn));
+  }
+  return worst;
+}
+
+function printTable(rows: SolverBenchRow[]): void {
+  const head = ['model', 'members', 'freedoms', 'ordering', 'order ms', 'symb ms', 'numeric ms', '20-rhs ms', 'nnz(L)', 'GFLOP/s', 'residual', 'peak MB'];
+  const lines = rows.map((r) => [
+    r.model, String(r.members), String(r.freedoms), r.ordering, r.orderingMs.toFixed(0), r.symbolicMs.toFixed(0),
+    r.numericMs.toFixed(0), r.solveMs.toFixed(0), String(r.nnzL), r.gflops.toFixed(2), r.residual.toExponential(1), r.peakRssMb.toFixed(0),
+  ]);
+  const widths = head.map((h, c) => Math.max(h.length, ...lines.map((l) => l[c].length)));
+  const fmt = (cells: string[]): string => cells.map((c, i) => c.padStart(widths[i])).join('  ');
+  console.log(fmt(head));
+  for (const l of lines) console.log(fmt(l));
+}
+
+const isMain = process.argv[1] !== undefined && import.meta.url === new URL(`file://${process.argv[1]}`).href;
+if (isMain) {
+  const args = process.argv.slice(2) as Array<'auto' | 'amd' | 'nested-dissection'>;
+  const sizes = args.filter((a) => /^\d+$/.test(a)).map(Number);
+  const orderings = args.filter((a) => !/^\d+$/.test(a));
+  const models = sizes.length > 0 ? sizes.map((i) => solverBenchModels[i]) : solverBenchModels;
+  printTable(benchSolver(orderings.length > 0 ? orderings : ['auto'], models));
+}
