@@ -93,6 +93,7 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
   // 3. nodes
   const nodes = new Map<string, Node>();
   const coincident = new Map<string, Node>();
+  const invalidNodes = new Set<string>();
   for (const r of parsed.nodes?.rows ?? []) {
     const id = r.v.node as string | undefined;
     if (id === undefined) continue;
@@ -102,7 +103,10 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
     }
     const n: Node = { id, x: (r.v.x as number) ?? 0, y: (r.v.y as number) ?? 0, z: (r.v.z as number | undefined) ?? 0, row: r.row };
     nodes.set(id, n);
-    if (r.invalid) continue;
+    if (r.invalid) {
+      invalidNodes.add(id);
+      continue;
+    }
     const key = [n.x, n.y, n.z].map((c) => Math.round(c * 1e6)).join(',');
     const other = coincident.get(key);
     if (other) problems.warning('nodes', r.row, lab('nodes', 'node'), `node ${id} is at the same place as node ${other.id} (row ${other.row})`);
@@ -205,7 +209,7 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
       row: r.row,
     };
     members.set(id, m);
-    if (a && b) {
+    if (a && b && !invalidNodes.has(a.id) && !invalidNodes.has(b.id)) {
       const L = dist(a, b);
       memberLength.set(id, L);
       if (L <= 1e-9) problems.error('members', r.row, lab('members', 'end'), m.start === m.end ? `member ${id} starts and ends at node ${m.start}` : `member ${id} has zero length: nodes ${m.start} and ${m.end} are at the same place`);
@@ -339,7 +343,7 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
       problems.error('member_loads', r.row, lab('member_loads', 'b'), `b is beyond the end of member ${m.id}, whose length is ${L.toPrecision(6)} m`);
       bad = true;
     }
-    if (!bad && (kind === 'uniform' || kind === 'linear') && !(b > a)) {
+    if (!bad && memberLength.has(m.id) && (kind === 'uniform' || kind === 'linear') && !(b > a)) {
       problems.error('member_loads', r.row, lab('member_loads', 'b'), `b must be greater than a for a ${kind} load`);
       bad = true;
     }
