@@ -56,3 +56,33 @@ describe('simply supported beam', () => {
     expect(at(f.x, f.d_major, a) / (-(P * a * a * b * b) / (3 * EI * L))).toBeCloseTo(1, 9);
   });
 });
+
+describe('simply supported beam, partial and triangular loads', () => {
+  it('partial UDL from a to b: reactions and moment by statics', () => {
+    const w = 8e3, a = 1, b = 4, c = b - a;
+    const m = simpleBeam().loadCase('D').memberLoad('D', 'M1', 'uniform', 'global_z', -w, { a, b }).build();
+    const r = analyse(m);
+    const f = r.memberForces(0, 0);
+    // Statics: R_A = w·c·(L − (a + c/2))/L; M(3) = R_A·3 − w(3 − a)²/2. Tolerance rel 1e-9.
+    const RA = (w * c * (L - (a + c / 2))) / L;
+    expect(r.reactions(0)[2] / RA).toBeCloseTo(1, 9);
+    expect(r.reactions(0)[8] / (w * c - RA)).toBeCloseTo(1, 9);
+    expect(at(f.x, f.M_major, 3) / (RA * 3 - (w * (3 - a) ** 2) / 2)).toBeCloseTo(1, 9);
+    // shear is constant on the unloaded part: V = R_A on [0, a]
+    expect(at(f.x, f.V_major, 0.6) / RA).toBeCloseTo(1, 9);
+  });
+
+  it('triangular load 0 → w: reactions wL/6 and wL/3, M(L/2) = wL²/16, δ(L/2) = 5wL⁴/768EI', () => {
+    const w = 12e3;
+    const m = simpleBeam().loadCase('D').memberLoad('D', 'M1', 'linear', 'global_z', 0, { w2: -w }).build();
+    const r = analyse(m);
+    const f = r.memberForces(0, 0);
+    // AISC Manual Table 3-23 case 2 (from memory): R1 = W/3 … here R_A = wL/6, R_B = wL/3;
+    // M(x) = R_A·x − w x³/(6L) → M(L/2) = wL²/16. Midspan deflection: two mirrored triangles make a
+    // UDL, so δ = ½ · 5wL⁴/(384EI) = 5wL⁴/(768EI). Tolerance rel 1e-9.
+    expect(r.reactions(0)[2] / ((w * L) / 6)).toBeCloseTo(1, 9);
+    expect(r.reactions(0)[8] / ((w * L) / 3)).toBeCloseTo(1, 9);
+    expect(at(f.x, f.M_major, L / 2) / ((w * L * L) / 16)).toBeCloseTo(1, 9);
+    expect(at(f.x, f.d_major, L / 2) / (-(5 * w * L ** 4) / (768 * EI))).toBeCloseTo(1, 9);
+  });
+});
