@@ -20,7 +20,7 @@ export const trestleLight: ThemeDefinition = {
     'surface-variant': '#2B3A40',
     'on-surface-variant': '#EDEDE8',
     error: '#B3261E',
-    warning: '#B8742A',
+    warning: '#8F5512',
     info: '#2F6F8A',
     success: '#3E7B4F',
   },

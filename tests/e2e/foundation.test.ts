@@ -15,16 +15,22 @@ describe.skipIf(!enabled)('foundation in the browser', () => {
     await stopApp(app);
   });
 
-  it('sends a signed-out visitor to sign-in and back to the page asked for', async () => {
+  it('sends a signed-out visitor to sign-in, shows a wrong password, then returns to the page asked for', async () => {
     const page = await app.newPage();
-    await app.goto(page, '/admin/users');
+    await app.goto(page, '/projects/1');
     await page.waitForURL((u) => u.pathname === '/sign-in');
-    expect(new URL(page.url()).searchParams.get('redirect')).toBe('/admin/users');
+    expect(new URL(page.url()).searchParams.get('redirect')).toBe('/projects/1');
     await page.locator('[data-test=sign-in-email] input').fill('engineer@example.com');
     await page.locator('[data-test=sign-in-password] input').fill('not-the-password');
     await page.locator('[data-test=sign-in-submit]').click();
-    await expect.poll(() => page.locator('[data-test=sign-in-error]').isVisible()).toBe(true);
+    await page.locator('[data-test=sign-in-error]').waitFor();
     await screenshot(page, 'foundation-01-sign-in-error');
+
+    await page.locator('[data-test=sign-in-password] input').fill('trestle-demo');
+    await page.locator('[data-test=sign-in-submit]').click();
+    await page.waitForURL((u) => u.pathname === '/projects/1');
+    await page.locator('[data-test=project-title]').waitFor();
+    await signOut(page);
     await page.close();
   });
 
@@ -81,6 +87,28 @@ describe.skipIf(!enabled)('foundation in the browser', () => {
     await app.goto(page, '/admin/users');
     await page.waitForURL((u) => u.pathname === '/not-allowed');
     await screenshot(page, 'foundation-06-viewer-not-allowed');
+    await signOut(page);
+    await page.close();
+  });
+
+  it('lets a user change their own password from the user menu', async () => {
+    await app.clearSession();
+    const page = await app.newPage();
+    await signIn(page, app.baseUrl, 'lead@example.com');
+    await page.locator('[data-test=user-menu]').click();
+    await page.locator('[data-test=change-password]').click();
+    const dialog = page.locator('[data-test=password-dialog]');
+    await dialog.locator('[data-test=current-password] input').fill('trestle-demo');
+    await dialog.locator('[data-test=new-password] input').fill('lead-new-password');
+    await dialog.locator('[data-test=repeat-password] input').fill('lead-new-password');
+    await dialog.locator('[data-test=password-save]').click();
+    await page.locator('.v-snackbar', { hasText: 'password has been changed' }).waitFor();
+
+    await app.goto(page, '/about');
+    await page.locator('text=Before you rely on a result').waitFor();
+    await screenshot(page, 'foundation-08-about');
+    await signOut(page);
+    await signIn(page, app.baseUrl, 'lead@example.com', 'lead-new-password');
     await signOut(page);
     await page.close();
   });
