@@ -106,12 +106,14 @@ export async function markInterruptedRuns(ds: DataSource): Promise<number> {
 }
 
 const recovered = new WeakMap<DataSource, Promise<void>>();
+const loggers = new WeakMap<DataSource, Logger>();
 
 /**
  * Start-up recovery, once per database: runs a previous process left queued or running are
  * marked failed. `startRun` waits for it so a new run is never caught by it.
  */
 export function recoverInterruptedRuns(ds: DataSource, logger?: Logger): Promise<void> {
+  if (logger) loggers.set(ds, logger);
   let p = recovered.get(ds);
   if (!p) {
     p = markInterruptedRuns(ds).then(
@@ -163,6 +165,7 @@ export async function startRun(ds: DataSource, modelId: number, userId: number |
 }
 
 function dispatch(ds: DataSource, runId: number, modelJson: string, designCode: DesignCode): void {
+  const logger = loggers.get(ds);
   // writes about one run happen in order, one after the other
   let chain: Promise<unknown> = Promise.resolve();
   const write = (patch: Partial<RunRecord>) => {
@@ -183,7 +186,11 @@ function dispatch(ds: DataSource, runId: number, modelJson: string, designCode: 
     })
     .catch(async (err: unknown) => {
       await chain;
-      const text = err instanceof Error ? err.message : String(err);
+      const raw = err instanceof Error ? err.message : String(err);
+      // engine and reader messages name nodes and members; anything that names our files is internal
+      const internal = /\.(ts|js|mjs)\b|Cannot find module|is not a function|undefined/.test(raw);
+      if (internal) logger?.error(`run ${runId} failed`, err);
+      const text = internal ? 'an internal error stopped the analysis (the server log has the details)' : raw;
       await ds
         .getRepository(RunEntity)
         .update({ id: runId }, { status: 'failed', message: `The run failed: ${text}`, finishedAt: new Date() })

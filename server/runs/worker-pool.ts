@@ -4,7 +4,7 @@
  * arrival order; a task for a run prefers the worker that last handled that run (it
  * still holds the analysis). A worker that dies fails its task and is replaced.
  *
- * The entry is TypeScript: workers start with tsx's loader (`--import tsx`), which works
+ * The entry is worker.mjs, which registers tsx in the thread and loads worker-main.ts; it works
  * under vitest, `npm start` and `npm run dev` alike.
  */
 import os from 'node:os';
@@ -22,7 +22,8 @@ interface Pending {
 }
 
 interface Slot {
-  worker: Worker;
+  /** null after a crash: a new worker starts when the next task needs this slot */
+  worker: Worker | null;
   busy: Pending | null;
   /** runs whose analysis this worker holds, newest last */
   runs: number[];
@@ -40,19 +41,20 @@ export class WorkerPool {
   private closed = false;
 
   constructor(readonly size = Math.max(1, Math.min(2, os.availableParallelism?.() ?? os.cpus().length))) {
-    for (let i = 0; i < size; i++) this.slots.push(this.spawn());
+    for (let i = 0; i < size; i++) this.slots.push({ worker: null, busy: null, runs: [] });
   }
 
-  private spawn(): Slot {
-    const worker = new Worker(new URL('./worker.ts', import.meta.url), { execArgv: ['--import', 'tsx'] });
+  private spawn(slot: Slot): Worker {
+    const worker = new Worker(new URL('./worker.mjs', import.meta.url));
     worker.unref();
-    const slot: Slot = { worker, busy: null, runs: [] };
+    slot.worker = worker;
+    slot.runs = [];
     worker.on('message', (reply: WorkerReply) => this.onReply(slot, reply));
-    worker.on('error', (err) => this.onCrash(slot, err));
+    worker.on('error', (err) => this.onCrash(slot, worker, err));
     worker.on('exit', (code) => {
-      if (!this.closed) this.onCrash(slot, new Error(`the analysis worker stopped (exit code ${code})`));
+      if (!this.closed) this.onCrash(slot, worker, new Error(`the analysis worker stopped (exit code ${code})`));
     });
-    return slot;
+    return worker;
   }
 
   run<T extends WorkerTask>(task: T, hooks: TaskHooks = {}): Promise<TaskResult<T>> {
@@ -77,15 +79,16 @@ export class WorkerPool {
       slot.busy = next;
       slot.runs = [...slot.runs.filter((r) => r !== next.task.runId), next.task.runId].slice(-2);
       next.onStart?.();
-      slot.worker.ref();
-      slot.worker.postMessage({ id: next.id, task: next.task });
+      const worker = slot.worker ?? this.spawn(slot);
+      worker.ref();
+      worker.postMessage({ id: next.id, task: next.task });
     }
   }
 
   private finish(slot: Slot): Pending | null {
     const done = slot.busy;
     slot.busy = null;
-    slot.worker.unref();
+    slot.worker?.unref();
     return done;
   }
 
@@ -102,21 +105,20 @@ export class WorkerPool {
     this.pump();
   }
 
-  private onCrash(slot: Slot, err: Error): void {
-    const index = this.slots.indexOf(slot);
-    if (index < 0) return;
+  private onCrash(slot: Slot, worker: Worker, err: Error): void {
+    if (slot.worker !== worker) return; // already handled (error then exit)
     const pending = this.finish(slot);
-    void slot.worker.terminate();
-    if (this.closed) return;
-    this.slots[index] = this.spawn();
+    slot.worker = null;
+    slot.runs = [];
+    void worker.terminate();
     pending?.reject(err);
-    this.pump();
+    if (!this.closed) this.pump();
   }
 
   async close(): Promise<void> {
     this.closed = true;
     for (const p of this.queue.splice(0)) p.reject(new Error('the server is shutting down'));
-    await Promise.all(this.slots.map((s) => s.worker.terminate()));
+    await Promise.all(this.slots.map((s) => s.worker?.terminate()));
   }
 }
 

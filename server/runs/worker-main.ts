@@ -1,5 +1,5 @@
 /**
- * Entry of a run worker thread (started by worker-pool.ts under tsx). Takes one task at a
+ * Body of a run worker thread (loaded by worker.mjs through tsx). Takes one task at a
  * time from the HTTP thread, reports the phase it reaches, replies with the result.
  */
 import { parentPort } from 'node:worker_threads';

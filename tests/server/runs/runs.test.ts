@@ -1,0 +1,110 @@
+/** Runs: worker pool end to end, results for the grid, member detail, picture, history, compare. */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { closeRunPool } from '../../../server/runs/worker-pool.js';
+import { createTestApp, type TestApp } from '../helpers/test-app.js';
+import { importDemo, newProject } from '../models/fixture.js';
+import { settle } from './poll.js';
+
+let t: TestApp;
+let modelId: number;
+let firstRun: number;
+let secondRun: number;
+beforeAll(async () => {
+  t = await createTestApp();
+  modelId = await importDemo(t, await newProject(t));
+});
+afterAll(async () => {
+  await closeRunPool();
+  await t.close();
+});
+
+describe('runs', () => {
+  it('queues a run, reports its phases and finishes with counts', async () => {
+    const start = await t.as('engineer').post(`/api/models/${modelId}/runs`).send({});
+    expect(start.status).toBe(202);
+    expect(start.body).toMatchObject({ status: 'queued', version: 1, designCode: 'en1993-1-1', reviewStatus: 'draft' });
+    firstRun = start.body.id;
+    const run = await settle(t, firstRun);
+    expect(run.status, String(run.message)).toBe('done');
+    const counts = run.counts as { pass: number; fail: number; notChecked: number };
+    expect(counts.pass + counts.fail + counts.notChecked).toBe(2);
+    expect(run.maxRatio).toEqual(expect.any(Number));
+    expect(Object.keys(run.timings as object)).toEqual(expect.arrayContaining(['reading', 'checking', 'saving']));
+    expect(run.createdByName).toBe('Eli Engineer');
+  });
+
+  it('gives one grid row per member with ratio, check, clause and combination', async () => {
+    const res = await t.as('viewer').get(`/api/runs/${firstRun}/members`);
+    expect(res.status).toBe(200);
+    expect(res.body.members.map((m: { member: string }) => m.member)).toEqual(['M1', 'M2']);
+    const m1 = res.body.members[0];
+    expect(m1).toMatchObject({ section: 'B300', group: 'beams', previousRatio: null });
+    // closed form: M1 spans x = 0..6 m
+    expect(m1.length).toBeCloseTo(6, 9);
+    expect(res.body.previousRunId).toBeNull();
+  });
+
+  it('gives member detail with station diagrams for the governing and a chosen loading', async () => {
+    const res = await t.as('viewer').get(`/api/runs/${firstRun}/members/M1`);
+    expect(res.status).toBe(200);
+    expect(res.body.loadings.map((l: { id: string }) => l.id)).toEqual(['D', 'L', 'ULS', 'SLS']);
+    expect(res.body.stations.x[0]).toBe(0);
+    expect(res.body.stations.x.at(-1)).toBeCloseTo(6, 9);
+    // closed form, two equal spans under uniform w: support moment −wL²/8 at the middle support
+    // (L = 6 m; w of the live case = 12 kN/m → −54 kNm); tolerance 0.5 %.
+    const live = await t.as('viewer').get(`/api/runs/${firstRun}/members/M1?loading=L`);
+    expect(live.body.loading).toBe('L');
+    expect(live.body.stations.M_major.at(-1) / 1000).toBeCloseTo(-54, 0);
+    expect(Math.abs(live.body.stations.M_major.at(-1) / 1000 + 54)).toBeLessThan(0.27);
+    expect(live.body.loadingRecords).toEqual([]);
+    const uls = await t.as('viewer').get(`/api/runs/${firstRun}/members/M1?loading=ULS`);
+    expect(uls.body.loadingRecords.length).toBeGreaterThan(0);
+    const bad = await t.as('viewer').get(`/api/runs/${firstRun}/members/M1?loading=NOPE`);
+    expect(bad.status).toBe(400);
+    const missing = await t.as('viewer').get(`/api/runs/${firstRun}/members/M99`);
+    expect(missing.status).toBe(404);
+  });
+
+  it('gives the picture: nodes, members with ratio, supports, loads and displacements', async () => {
+    const res = await t.as('viewer').get(`/api/runs/${firstRun}/model?loading=L`);
+    expect(res.status).toBe(200);
+    expect(res.body.nodes).toHaveLength(3);
+    expect(res.body.members[0]).toMatchObject({ id: 'M1', start: 0, end: 1 });
+    expect(res.body.supports).toHaveLength(3);
+    expect(res.body.memberLoads).toHaveLength(2);
+    expect(res.body.displacements).toHaveLength(18);
+    expect(res.body.maxDisplacement).toBeGreaterThan(0);
+    expect(res.body.planeFrame).not.toBeNull();
+  });
+
+  it('reruns after an edit and shows the previous ratio and section', async () => {
+    const edit = await t.as('engineer').patch(`/api/models/${modelId}/members`).send({ baseVersion: 1, edits: [{ member: 'M1', field: 'section', value: 'B400' }] });
+    expect(edit.status).toBe(200);
+    const start = await t.as('engineer').post(`/api/models/${modelId}/runs`).send({});
+    secondRun = start.body.id;
+    expect(start.body.version).toBe(2);
+    expect((await settle(t, secondRun)).status).toBe('done');
+    const res = await t.as('viewer').get(`/api/runs/${secondRun}/members`);
+    expect(res.body.previousRunId).toBe(firstRun);
+    const m1 = res.body.members[0];
+    expect(m1.section).toBe('B400');
+    expect(m1.previousSection).toBe('B300');
+    expect(m1.previousRatio).toEqual(expect.any(Number));
+  });
+
+  it('lists the history and compares two runs member by member', async () => {
+    const list = await t.as('viewer').get(`/api/models/${modelId}/runs`);
+    expect(list.body.map((r: { id: number }) => r.id)).toEqual([secondRun, firstRun]);
+    expect(list.body[0].durationMs).toEqual(expect.any(Number));
+    const cmp = await t.as('viewer').get(`/api/runs/compare?a=${firstRun}&b=${secondRun}`);
+    expect(cmp.status).toBe(200);
+    const row = cmp.body.rows.find((r: { member: string }) => r.member === 'M1');
+    expect(row).toMatchObject({ sectionA: 'B300', sectionB: 'B400' });
+    expect(row.delta).toBeCloseTo(row.ratioB - row.ratioA, 12);
+  });
+
+  it('refuses results of a run that is not done and runs of a missing version', async () => {
+    const res = await t.as('engineer').post(`/api/models/${modelId}/runs`).send({ version: 9 });
+    expect(res.status).toBe(404);
+  });
+});
