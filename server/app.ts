@@ -42,6 +42,12 @@ export const apiRouters: [string, (ctx: AppContext) => Router][] = [
   ['/api/templates', templatesRouter],
 ];
 
+/**
+ * Work to finish when the server stops (SIGINT/SIGTERM), run in order after the HTTP server
+ * has closed and before the database closes, e.g. `shutdownHooks.push(() => pool.close())`.
+ */
+export const shutdownHooks: (() => Promise<void> | void)[] = [];
+
 export const JSON_BODY_LIMIT = '5mb';
 
 export function createApp(ctx: AppContext): Express {

@@ -4,7 +4,7 @@
  */
 import path from 'node:path';
 import type { Server } from 'node:http';
-import { createApp } from './app.js';
+import { createApp, shutdownHooks } from './app.js';
 import { appConfigFromEnv } from './config/app-config.js';
 import { ConfigError, loadEnv } from './config/env.js';
 import { createLogger } from './config/logger.js';
@@ -57,6 +57,13 @@ async function main(): Promise<void> {
     force.unref();
     server.close(async () => {
       try {
+        for (const hook of shutdownHooks) {
+          try {
+            await hook();
+          } catch (err) {
+            logger.error('shutdown hook failed', err);
+          }
+        }
         await dataSource.destroy();
       } finally {
         clearTimeout(force);
