@@ -33,6 +33,7 @@ export function rhsProperties(dims: SectionDims): SectionProps {
   const { ro, ri } = rhsCornerRadii(h, b, t);
   const o = roundedRect(h, b, ro);
   const i = roundedRect(h - 2 * t, b - 2 * t, ri);
+  const A = o.A - i.A;
   const I_major = o.Iy - i.Iy;
   const I_minor = o.Iz - i.Iz;
   // Bredt–Batho thin-walled closed section: J = 4·Ap²·t / p, Ap and p on the wall's
@@ -41,7 +42,7 @@ export function rhsProperties(dims: SectionDims): SectionProps {
   const Ap = (h - t) * (b - t) - (4 - Math.PI) * rm * rm;
   const p = 2 * (h - t) + 2 * (b - t) - (8 - 2 * Math.PI) * rm;
   return {
-    A: o.A - i.A,
+    A,
     I_major,
     I_minor,
     J: (4 * Ap * Ap * t) / p,
@@ -50,9 +51,10 @@ export function rhsProperties(dims: SectionDims): SectionProps {
     S_minor: (2 * I_minor) / b,
     Z_major: o.Zy - i.Zy,
     Z_minor: o.Zz - i.Zz,
-    // AISC 360-22 G4: Aw = 2·h'·t with h' = h − 3t when the corner radius is not known
-    Av_major: 2 * Math.max(h - 3 * t, 0) * t,
-    Av_minor: 2 * Math.max(b - 3 * t, 0) * t,
+    // AISC 360-22 G4: Aw = 2·h'·t with h' = h − 3t when the corner radius is not known;
+    // for walls so thick that h − 3t ≤ 0, EN 1993-1-1 6.2.6(3)(f) A·h/(b + h) instead
+    Av_major: h > 3 * t ? 2 * (h - 3 * t) * t : (A * h) / (b + h),
+    Av_minor: b > 3 * t ? 2 * (b - 3 * t) * t : (A * b) / (b + h),
     depth: h,
   };
 }
