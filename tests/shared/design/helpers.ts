@@ -50,3 +50,14 @@ export const W18X50 = () => section('i', { d: 18.0, bf: 7.5, tf: 0.57, tw: 0.355
   { A: 14.7, I_major: 800, I_minor: 40.1, J: 1.24, Cw: 3040, S_major: 88.9, S_minor: 10.7, Z_major: 101, Z_minor: 16.6 }, IN, 'W18X50');
 export const W14X90 = () => section('i', { d: 14.0, bf: 14.5, tf: 0.71, tw: 0.44, r: 1.31 - 0.71 },
   { A: 26.5, I_major: 999, I_minor: 362, J: 4.06, Cw: 16000, S_major: 143, S_minor: 49.9, Z_major: 157, Z_minor: 75.6 }, IN, 'W14X90');
+
+/**
+ * European rolled sections (dimensions and properties as published in the producers'
+ * section tables to EN 10365, from memory), mm units.
+ */
+export const IPE300 = () => section('i', { d: 300, bf: 150, tf: 10.7, tw: 7.1, r: 15 },
+  { A: 5381, I_major: 8356e4, I_minor: 603.8e4, J: 20.12e4, Cw: 125.9e9, S_major: 557.1e3, S_minor: 80.5e3, Z_major: 628.4e3, Z_minor: 125.2e3 }, 0.001, 'IPE300');
+export const HEB200 = () => section('i', { d: 200, bf: 200, tf: 15, tw: 9, r: 18 },
+  { A: 7808, I_major: 5696e4, I_minor: 2003e4, J: 59.28e4, Cw: 171.1e9, S_major: 569.6e3, S_minor: 200.3e3, Z_major: 642.5e3, Z_minor: 305.8e3 }, 0.001, 'HEB200');
+export const HEA300 = () => section('i', { d: 290, bf: 300, tf: 14, tw: 8.5, r: 27 },
+  { A: 11250, I_major: 18260e4, I_minor: 6310e4, J: 85.17e4, Cw: 1200e9, S_major: 1260e3, S_minor: 420.6e3, Z_major: 1383e3, Z_minor: 641.2e3 }, 0.001, 'HEA300');

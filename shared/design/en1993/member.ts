@@ -1,0 +1,230 @@
+/**
+ * The EN 1993-1-1 plan of one member: resistances computed once, ratios per loading with
+ * plain numbers, records on request. Bending (6.2.5 with the 6.2.8 shear reduction) and
+ * 6.2.9 are evaluated at every station; 6.3.2 per unbraced segment (segments of length Lb
+ * from the start node, each with Lcr = Lb) with C1 from the segment's moment diagram, or
+ * the member's given cb used as C1; 6.3.3 with the member's largest forces.
+ * Cross-section class for 6.2.9 and 6.3.3: the worst of the compression and bending
+ * classes (conservative).
+ */
+import type { StationForces } from '../../engine/types.js';
+import type { DesignGeometry } from '../geometry.js';
+import { finish, interactionRecord, notChecked, notCheckedHead, type RecordHead } from '../record.js';
+import type { CheckRecord } from '../types.js';
+import { absMax, segmentCount, type MemberPlan, type MemberSetup, type Slot } from '../plan.js';
+import { cbF11, isLinearSegment, segmentMoments, SEG_M0, SEG_M1, SEG_MA, SEG_MB, SEG_MC, SEG_MMAX, SEG_MS, SEG_SIZE, SEG_XMAX } from '../moment-diagram.js';
+import type { EnContext, Resistance } from './context.js';
+import { enClass } from './classification.js';
+import { tensionGross, tensionNet } from './tension.js';
+import { compressionResistance } from './compression.js';
+import { flexuralBuckling } from './buckling.js';
+import { bendingResistance, momentWithShear } from './bending.js';
+import { shearResistance } from './shear.js';
+import { axialBendingHead, axialBendingPlan, axialBendingRatio } from './axial-bending.js';
+import { c1Linear, ltbHead, ltbPlan, ltbResistance } from './ltb.js';
+import { annexB, cmB3, interactionHead, type InteractionInput } from './interaction.js';
+
+const D_NT = 0, D_NC = 2, D_T = 4, D_C1 = 6, D_MLT = 7, D_XLT = 8, D_CHILT = 9, D_IMAJ = 10, D_IMIN = 11, D_I629 = 12, D_MY = 13, D_XMY = 14, D_MZ = 15, D_XMZ = 16;
+const D_SIZE = 17;
+
+/** C1 of a segment read by segmentMoments: linear diagrams by ψ, others by the F1-1 quarter-point expression, ≤ 2.7. */
+export function c1FromSegment(seg: Float64Array): number {
+  if (!(seg[SEG_MMAX] > 0)) return 1;
+  if (isLinearSegment(seg)) {
+    const m0 = seg[SEG_M0], m1 = seg[SEG_M1];
+    const big = Math.abs(m0) >= Math.abs(m1) ? m0 : m1;
+    const small = Math.abs(m0) >= Math.abs(m1) ? m1 : m0;
+    return c1Linear(big === 0 ? 1 : small / big);
+  }
+  const c = cbF11(seg[SEG_MMAX], seg[SEG_MA], seg[SEG_MB], seg[SEG_MC]);
+  return c > 2.7 ? 2.7 : c;
+}
+
+export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): MemberPlan {
+  const code = 'en1993-1-1' as const;
+  const tg = tensionGross(g, cx);
+  const tn = tensionNet(g, cx);
+  const nc = compressionResistance(g, cx);
+  const fb = flexuralBuckling(g, cx, m.LcMajor, m.LcMinor);
+  const openMono = g.shape === 'channel' || g.shape === 'tee';
+  const slots: Slot[] = [{ family: 'tension', key: '6.2.3(2)a' }, { family: 'tension', key: '6.2.3(2)b' }, { family: 'compression', key: '6.2.4' }, { family: 'compression', key: '6.3.1' }];
+  const tfb: Resistance | null = openMono
+    ? { capacity: NaN, head: notCheckedHead('compression', code, '6.3.1.4', 'torsional-flexural buckling', `${g.shape}: torsional and torsional-flexural buckling (6.3.1.4) not implemented`) }
+    : null;
+  if (tfb) slots.push({ family: 'compression', key: '6.3.1.4' });
+  const frame = !m.truss;
+  const iFrame = slots.length;
+  const bMaj = bendingResistance(g, cx, 'major');
+  const bMin = bendingResistance(g, cx, 'minor');
+  const vMaj = shearResistance(g, cx, 'major');
+  const vMin = shearResistance(g, cx, 'minor');
+  const clsComb = g.hasDims ? Math.max(enClass(g, cx.fy, 'compression'), enClass(g, cx.fy, 'major'), g.shape === 'tee' ? 1 : enClass(g, cx.fy, 'minor')) : 4;
+  const combScope = !g.hasDims || g.shape === 'angle' || g.shape === 'tee' || clsComb === 4 || Number.isNaN(bMaj.Mc) || Number.isNaN(bMin.Mc);
+  const Wy = clsComb <= 2 ? g.Zmaj : g.Smaj;
+  const Wz = clsComb <= 2 ? g.Zmin : g.Smin;
+  const NRd = (g.A * cx.fy) / cx.gammaM0;
+  const ab = axialBendingPlan(g, clsComb, NRd, (Wy * cx.fy) / cx.gammaM0, (Wz * cx.fy) / cx.gammaM0);
+  const ltb = ltbPlan(g, cx, bMaj, m.Lb, m.cantilever);
+  if (frame) {
+    slots.push({ family: 'bending_major', key: '6.2.5 major' }, { family: 'bending_minor', key: '6.2.5 minor' },
+      { family: 'shear_major', key: '6.2.6 major' }, { family: 'shear_minor', key: '6.2.6 minor' }, { family: 'combined', key: '6.2.9' });
+    if (ltb.applies) slots.push({ family: 'bending_major', key: '6.3.2' });
+    slots.push({ family: 'combined', key: '6.3.3' }, { family: 'torsion', key: '6.2.7' });
+  }
+  const iLtb = ltb.applies ? iFrame + 5 : -1;
+  const i633 = iFrame + (ltb.applies ? 6 : 5);
+  const iTor = i633 + 1;
+  const nSeg = frame ? segmentCount(m.length, m.Lb) : 1;
+  const seg = new Float64Array(SEG_SIZE);
+  const d = new Float64Array(D_SIZE);
+  const tThreshold = 1e-6 * cx.fy * (g.Zmaj > 0 ? g.Zmaj : g.A * 1e-3);
+  const c1Source = m.cb !== undefined ? 'given cb used as C1' : 'from the moment diagram';
+  const ltbNaN = ltb.applies && Number.isNaN(ltb.Mcr1);
+  const ii: InteractionInput = {
+    NEd: 0, MyEd: 0, MzEd: 0, NRk: g.A * cx.fy, MyRk: Wy * cx.fy, MzRk: Wz * cx.fy, chiY: fb.chiY, chiZ: fb.chiZ, chiLT: 1,
+    lambdaY: fb.lambdaY, lambdaZ: fb.lambdaZ, Cmy: 1, Cmz: 1, CmLT: 1, gammaM1: cx.gammaM1, plastic: clsComb <= 2,
+    iSection: g.shape === 'i', susceptible: g.shape === 'i' || g.shape === 'channel',
+  };
+  const r633NaN = combScope || Number.isNaN(fb.capacity) || ltbNaN;
+
+  function ratioOf(cap: number, demand: number): number {
+    return Number.isNaN(cap) ? NaN : demand === 0 ? 0 : demand / cap;
+  }
+
+  function evaluate(sf: StationForces, ratio: Float64Array, xo: Float64Array): void {
+    const xs = sf.x;
+    const n = xs.length;
+    let nt = 0, xt = 0, ncm = 0, xc = 0;
+    for (let i = 0; i < n; i++) {
+      const v = sf.N[i];
+      if (v > nt) { nt = v; xt = xs[i]; } else if (-v > ncm) { ncm = -v; xc = xs[i]; }
+    }
+    d[D_NT] = nt; d[D_NT + 1] = xt; d[D_NC] = ncm; d[D_NC + 1] = xc;
+    ratio[0] = ratioOf(tg.capacity, nt); xo[0] = xt;
+    ratio[1] = ratioOf(tn.capacity, nt); xo[1] = xt;
+    ratio[2] = ratioOf(nc.capacity, ncm); xo[2] = xc;
+    ratio[3] = ratioOf(fb.capacity, ncm); xo[3] = xc;
+    if (tfb) { ratio[4] = NaN; xo[4] = xc; }
+    if (!frame) return;
+    // bending with shear, and 6.2.9, station by station
+    let rMaj = 0, iMaj = 0, rMin = 0, iMin = 0, r629 = 0, i629 = 0;
+    const VplMaj = vMaj.capacity, VplMin = vMin.capacity;
+    for (let i = 0; i < n; i++) {
+      const My = sf.M_major[i] < 0 ? -sf.M_major[i] : sf.M_major[i];
+      const Mz = sf.M_minor[i] < 0 ? -sf.M_minor[i] : sf.M_minor[i];
+      if (My > 0) {
+        const V = sf.V_major[i] < 0 ? -sf.V_major[i] : sf.V_major[i];
+        const r = My / (VplMaj === VplMaj ? momentWithShear(bMaj, V, VplMaj) : bMaj.Mc);
+        if (r > rMaj) { rMaj = r; iMaj = i; }
+      }
+      if (Mz > 0) {
+        const V = sf.V_minor[i] < 0 ? -sf.V_minor[i] : sf.V_minor[i];
+        const r = Mz / (VplMin === VplMin ? momentWithShear(bMin, V, VplMin) : bMin.Mc);
+        if (r > rMin) { rMin = r; iMin = i; }
+      }
+      if (!combScope) {
+        const N = sf.N[i] < 0 ? -sf.N[i] : sf.N[i];
+        const r = axialBendingRatio(ab, N, My, Mz);
+        if (r > r629) { r629 = r; i629 = i; }
+      }
+    }
+    d[D_IMAJ] = iMaj; d[D_IMIN] = iMin; d[D_I629] = i629;
+    ratio[iFrame] = Number.isNaN(bMaj.Mc) ? NaN : rMaj; xo[iFrame] = xs[iMaj];
+    ratio[iFrame + 1] = Number.isNaN(bMin.Mc) ? NaN : rMin; xo[iFrame + 1] = xs[iMin];
+    absMax(sf.V_major, xs, d, D_T);
+    ratio[iFrame + 2] = ratioOf(vMaj.capacity, d[D_T]); xo[iFrame + 2] = d[D_T + 1];
+    absMax(sf.V_minor, xs, d, D_T);
+    ratio[iFrame + 3] = ratioOf(vMin.capacity, d[D_T]); xo[iFrame + 3] = d[D_T + 1];
+    ratio[iFrame + 4] = combScope ? NaN : r629; xo[iFrame + 4] = xs[i629];
+    // lateral-torsional buckling by segment
+    let chiMin = 1;
+    if (ltb.applies) {
+      let rL = 0, xL = 0, c1Gov = 1, mGov = 0;
+      if (!ltbNaN) {
+        const L = m.length;
+        for (let s = 0; s < nSeg; s++) {
+          const a = nSeg === 1 ? 0 : s * m.Lb;
+          const b = nSeg === 1 ? L : Math.min(L, a + m.Lb);
+          segmentMoments(xs, sf.M_major, a, b, seg);
+          const c1 = m.cb !== undefined ? m.cb : c1FromSegment(seg);
+          const res = ltbResistance(ltb, c1);
+          if (res.chi < chiMin) chiMin = res.chi;
+          const r = seg[SEG_MMAX] === 0 ? 0 : seg[SEG_MMAX] / res.Mb;
+          if (s === 0 || r > rL) { rL = r; xL = seg[SEG_XMAX]; c1Gov = c1; mGov = seg[SEG_MMAX]; }
+        }
+      }
+      d[D_C1] = c1Gov; d[D_MLT] = mGov; d[D_XLT] = xL; d[D_CHILT] = chiMin;
+      ratio[iLtb] = ltbNaN ? NaN : rL; xo[iLtb] = xL;
+    }
+    // 6.3.3
+    absMax(sf.M_major, xs, d, D_MY);
+    absMax(sf.M_minor, xs, d, D_MZ);
+    if (ncm === 0) { ratio[i633] = -1; xo[i633] = 0; }
+    else if (r633NaN || (Number.isNaN(bMaj.Mc) && d[D_MY] > 0)) { ratio[i633] = NaN; xo[i633] = xc; }
+    else {
+      segmentMoments(xs, sf.M_major, 0, m.length, seg);
+      ii.Cmy = cmB3(seg[SEG_M0], seg[SEG_M1], seg[SEG_MS], isLinearSegment(seg));
+      ii.CmLT = ii.Cmy;
+      segmentMoments(xs, sf.M_minor, 0, m.length, seg);
+      ii.Cmz = cmB3(seg[SEG_M0], seg[SEG_M1], seg[SEG_MS], isLinearSegment(seg));
+      ii.NEd = ncm; ii.MyEd = d[D_MY]; ii.MzEd = d[D_MZ]; ii.chiLT = ltb.applies ? chiMin : 1;
+      const f = annexB(ii);
+      ratio[i633] = f.r61 > f.r62 ? f.r61 : f.r62; xo[i633] = d[D_MY] > 0 ? d[D_XMY] : xc;
+    }
+    absMax(sf.T, xs, d, D_T);
+    ratio[iTor] = d[D_T] > tThreshold ? NaN : -1; xo[iTor] = d[D_T + 1];
+  }
+
+  const ratio = new Float64Array(slots.length);
+  const xo = new Float64Array(slots.length);
+
+  function records(sf: StationForces, combination: string): (CheckRecord | null)[] {
+    evaluate(sf, ratio, xo);
+    const id = m.id;
+    const rec = (head: RecordHead, capacity: number, demand: number, x: number): CheckRecord =>
+      Number.isNaN(capacity) ? notChecked(id, head.family, code, head.clause, head.title, head.note ?? '', combination) : finish(head, id, combination, capacity, demand, x);
+    const out: (CheckRecord | null)[] = [
+      rec(tg.head, tg.capacity, d[D_NT], d[D_NT + 1]), rec(tn.head, tn.capacity, d[D_NT], d[D_NT + 1]),
+      rec(nc.head, nc.capacity, d[D_NC], d[D_NC + 1]), rec(fb.head, fb.capacity, d[D_NC], d[D_NC + 1]),
+    ];
+    if (tfb) out.push(rec(tfb.head, NaN, 0, 0));
+    if (!frame) return out;
+    const xs = sf.x;
+    for (const [b, v, k, M, V] of [[bMaj, vMaj, D_IMAJ, sf.M_major, sf.V_major], [bMin, vMin, D_IMIN, sf.M_minor, sf.V_minor]] as const) {
+      const i = d[k];
+      const Vi = Math.abs(V[i]);
+      const cap = Number.isNaN(b.Mc) ? NaN : Number.isNaN(v.capacity) ? b.Mc : momentWithShear(b, Vi, v.capacity);
+      const reduced = cap < b.Mc;
+      const head = reduced ? { ...b.head, clause: '6.2.8', note: `VEd = ${(Vi / 1e3).toPrecision(4)} kN > 0.5·Vpl,Rd: moment resistance reduced` } : b.head;
+      out.push(rec(head, cap, Math.abs(M[i]), xs[i]));
+    }
+    out.push(rec(vMaj.head, vMaj.capacity, Math.abs(maxAbs(sf.V_major)), xo[iFrame + 2]));
+    out.push(rec(vMin.head, vMin.capacity, Math.abs(maxAbs(sf.V_minor)), xo[iFrame + 3]));
+    if (combScope) out.push(notChecked(id, 'combined', code, '6.2.9', 'bending and axial force, cross-section', clsComb === 4 ? 'class 4 cross-section: not implemented' : `${g.shape} section: a component resistance is not checked`, combination));
+    else {
+      const i = d[D_I629];
+      out.push(interactionRecord(axialBendingHead(ab, Math.abs(sf.N[i]), Math.abs(sf.M_major[i]), Math.abs(sf.M_minor[i])), id, combination, ratio[iFrame + 4], xs[i]));
+    }
+    if (ltb.applies) {
+      if (ltbNaN) out.push(rec(ltb.head, NaN, 0, 0));
+      else out.push(finish(ltbHead(ltb, d[D_C1], c1Source), id, combination, ltbResistance(ltb, d[D_C1]).Mb, d[D_MLT], d[D_XLT]));
+    }
+    const r633 = ratio[i633];
+    if (r633 === -1) out.push(null);
+    else if (Number.isNaN(r633)) out.push(notChecked(id, 'combined', code, '6.3.3', 'member buckling, bending and axial compression', 'a component resistance (class, buckling or LTB) is not checked for this member', combination));
+    else {
+      const f = annexB(ii);
+      out.push(interactionRecord(interactionHead(ii, f), id, combination, r633, xo[i633]));
+    }
+    out.push(Number.isNaN(ratio[iTor]) ? notChecked(id, 'torsion', code, '6.2.7', 'torsion', `torsion present (|T| up to ${(d[D_T] / 1e3).toPrecision(3)} kNm): 6.2.7 not implemented`, combination) : null);
+    return out;
+  }
+
+  return { member: m.id, slots, evaluate, records };
+}
+
+function maxAbs(v: Float64Array): number {
+  let m = 0;
+  for (let i = 0; i < v.length; i++) { const a = Math.abs(v[i]); if (a > m) m = a; }
+  return m;
+}
