@@ -1,0 +1,2 @@
+export * from './results.js';
+export * from './csv.js';

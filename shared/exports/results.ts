@@ -1,0 +1,115 @@
+/**
+ * Result tables as rows (tables.md "Results exports"): displacements, reactions, member
+ * forces, and — when design results exist — the utilisation schedule and the detailed
+ * checks. Headers carry their unit in brackets in the model's unit system; cells hold
+ * numbers converted to that system (formatting happens in the serialisers).
+ */
+import type { AnalysisResult } from '../engine/types.js';
+import { CHECK_FAMILIES, type CheckFamily, type CheckRecord, type MemberUtilisation } from '../design/types.js';
+import type { Model, UnitSystem } from '../model/types.js';
+import { fromSI, unitOf, type Quantity } from '../units/index.js';
+
+export type ResultCell = string | number | null;
+
+export interface ResultTable {
+  /** file / sheet name without extension: `displacements` */
+  name: string;
+  header: string[];
+  rows: ResultCell[][];
+}
+
+/** What the design checks hand over (shared/design: checkModel). */
+export interface DesignResultLike {
+  members: MemberUtilisation[];
+  records: CheckRecord[];
+}
+
+/** `name [unit]` for a quantity in a unit system. */
+export function headerWithUnit(name: string, quantity: Quantity, system: UnitSystem): string {
+  const u = unitOf(quantity, system);
+  return u && u !== '-' ? `${name} [${u}]` : name;
+}
+
+const NODE_DISP: [string, Quantity][] = [['ux', 'displacement'], ['uy', 'displacement'], ['uz', 'displacement'], ['rx', 'rotation'], ['ry', 'rotation'], ['rz', 'rotation']];
+const NODE_REACT: [string, Quantity][] = [['fx', 'force'], ['fy', 'force'], ['fz', 'force'], ['mx', 'moment'], ['my', 'moment'], ['mz', 'moment']];
+
+function nodeTable(name: string, model: Model, analysis: AnalysisResult, cols: [string, Quantity][], values: (l: number) => Float64Array, nodes: number[]): ResultTable {
+  const sys = model.settings.units;
+  const header = ['loading', 'node', ...cols.map(([c, q]) => headerWithUnit(c, q, sys))];
+  const rows: ResultCell[][] = [];
+  analysis.loadings.forEach((loading, l) => {
+    const v = values(l);
+    for (const i of nodes) {
+      rows.push([loading.id, analysis.nodeIds[i], ...cols.map(([, q], k) => fromSI(v[i * 6 + k], q, sys))]);
+    }
+  });
+  return { name, header, rows };
+}
+
+/** Node displacements and rotations for every loading. */
+export function displacementTable(model: Model, analysis: AnalysisResult): ResultTable {
+  const all = analysis.nodeIds.map((_, i) => i);
+  return nodeTable('displacements', model, analysis, NODE_DISP, (l) => analysis.displacements(l), all);
+}
+
+/** Support reactions (supported nodes only) for every loading. */
+export function reactionTable(model: Model, analysis: AnalysisResult): ResultTable {
+  return nodeTable('reactions', model, analysis, NODE_REACT, (l) => analysis.reactions(l), [...analysis.supportedNodes].sort((a, b) => a - b));
+}
+
+const FORCE_COLS: [keyof Omit<import('../engine/types.js').StationForces, 'x'>, Quantity][] = [
+  ['N', 'force'], ['V_major', 'force'], ['V_minor', 'force'], ['T', 'moment'], ['M_major', 'moment'], ['M_minor', 'moment'],
+  ['d_major', 'displacement'], ['d_minor', 'displacement'],
+];
+
+/** Internal forces and local deflections at every station of every member, every loading. */
+export function memberForceTable(model: Model, analysis: AnalysisResult): ResultTable {
+  const sys = model.settings.units;
+  const header = ['loading', 'member', headerWithUnit('x', 'length', sys), ...FORCE_COLS.map(([c, q]) => headerWithUnit(c, q, sys))];
+  const rows: ResultCell[][] = [];
+  analysis.loadings.forEach((loading, l) => {
+    analysis.memberIds.forEach((id, m) => {
+      const f = analysis.memberForces(m, l);
+      for (let s = 0; s < f.x.length; s++) {
+        rows.push([loading.id, id, fromSI(f.x[s], 'length', sys), ...FORCE_COLS.map(([c, q]) => fromSI(f[c][s], q, sys))]);
+      }
+    });
+  });
+  return { name: 'member_forces', header, rows };
+}
+
+/** Families that appear in the schedule, in the contract's order. */
+function familiesIn(members: MemberUtilisation[]): CheckFamily[] {
+  return CHECK_FAMILIES.filter((f) => members.some((m) => f in m.families));
+}
+
+/** The utilisation schedule: one row per member, a ratio column per check family. */
+export function utilisationTable(model: Model, design: DesignResultLike): ResultTable {
+  const sys = model.settings.units;
+  const fams = familiesIn(design.members);
+  const header = ['member', 'group', 'section', 'material', headerWithUnit('length', 'length', sys), 'ratio', 'check', 'clause', 'combination', 'status', ...fams];
+  const rows = design.members.map((m): ResultCell[] => [
+    m.member, m.group, m.section, m.material, fromSI(m.length, 'length', sys), m.ratio, m.check, m.clause, m.combination, m.status,
+    ...fams.map((f) => m.families[f] ?? null),
+  ]);
+  return { name: 'utilisation', header, rows };
+}
+
+/**
+ * Every check record. Demand and capacity hold values of different kinds row by row, so
+ * their unit is given in a `unit` column after the contract's columns.
+ */
+export function checksTable(model: Model, design: DesignResultLike): ResultTable {
+  const sys = model.settings.units;
+  const header = ['member', 'combination', 'check', 'clause', 'demand', 'capacity', 'ratio', 'status', 'note', 'unit'];
+  const rows = design.records.map((r): ResultCell[] => {
+    const unit = r.quantity === 'ratio' || r.quantity === 'text' ? '' : unitOf(r.quantity, sys);
+    return [
+      r.member, r.combination, r.title, r.clause,
+      r.demand === null ? null : fromSI(r.demand, r.quantity, sys),
+      r.capacity === null ? null : fromSI(r.capacity, r.quantity, sys),
+      r.ratio, r.status, r.note ?? '', unit === '-' ? '' : unit,
+    ];
+  });
+  return { name: 'checks', header, rows };
+}
