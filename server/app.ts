@@ -21,6 +21,7 @@ import { usersRouter } from './users/user.router.js';
 import { modelsRouter, projectModelsRouter } from './models/model.router.js';
 import { importsRouter } from './imports/import.router.js';
 import { runsRouter } from './runs/run.router.js';
+import { closeRunPool } from './runs/worker-pool.js';
 import { samplesRouter, templatesRouter } from './samples/sample.router.js';
 
 export interface AppContext {
@@ -46,7 +47,7 @@ export const apiRouters: [string, (ctx: AppContext) => Router][] = [
  * Work to finish when the server stops (SIGINT/SIGTERM), run in order after the HTTP server
  * has closed and before the database closes, e.g. `shutdownHooks.push(() => pool.close())`.
  */
-export const shutdownHooks: (() => Promise<void> | void)[] = [];
+export const shutdownHooks: (() => Promise<void> | void)[] = [closeRunPool];
 
 export const JSON_BODY_LIMIT = '5mb';
 

@@ -87,7 +87,7 @@ describe('GET /api/runs/:id/exports', () => {
   });
 
   it('exports the utilisation schedule as XLSX with the header block and one row per member', async () => {
-    const res = await t.as('viewer').get(`/api/runs/${runId}/exports/utilisation.xlsx`).buffer(true).parse(binary);
+    const res = await t.as('viewer').get(`/api/runs/${runId}/exports/utilisation.xlsx`).buffer(true).parse(binary as never);
     expect(res.status, JSON.stringify(res.body).slice(0, 300)).toBe(200);
     expect(res.headers['content-disposition']).toMatch(/attachment/);
     const wb = new ExcelJS.Workbook();
