@@ -10,7 +10,7 @@ import { ConfigError, loadEnv } from './config/env.js';
 import { createLogger } from './config/logger.js';
 import { resolveJwtSecret } from './config/secret.js';
 import { DATABASE_FILE, openDatabase } from './db/data-source.js';
-import { seedDemoData } from './db/seed.js';
+import { seedDemoData, seedFirstAdmin } from './db/seed.js';
 
 async function main(): Promise<void> {
   let env;
@@ -33,6 +33,11 @@ async function main(): Promise<void> {
   if (isNew && env.SEED_DEMO) {
     await seedDemoData(dataSource);
     logger.info('new database: demo accounts and demo projects seeded (password trestle-demo)');
+  }
+  if (env.ADMIN_EMAIL && env.ADMIN_PASSWORD && (await seedFirstAdmin(dataSource, env.ADMIN_EMAIL, env.ADMIN_PASSWORD))) {
+    logger.info(`no users yet: created admin ${env.ADMIN_EMAIL}`);
+  } else if (isNew && !env.SEED_DEMO && !env.ADMIN_EMAIL) {
+    logger.warn('new database without demo data and no ADMIN_EMAIL/ADMIN_PASSWORD: nobody can sign in yet');
   }
 
   const app = createApp({ config, dataSource, logger });

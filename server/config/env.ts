@@ -11,19 +11,24 @@ const bool = z
 const envSchema = z
   .object({
     NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
-    PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+    PORT: z.coerce.number({ message: 'must be a port number' }).int('must be a whole number').min(0).max(65535).default(3000),
     HOST: z.string().min(1).optional(),
     DATA_DIR: z.string().min(1).default('./data'),
     JWT_SECRET: z.string().min(32, 'must be at least 32 characters').optional(),
-    SESSION_HOURS: z.coerce.number().positive().max(24 * 90).default(12),
+    SESSION_HOURS: z.coerce.number({ message: 'must be a number of hours' }).positive().max(24 * 90).default(12),
     COOKIE_SECURE: bool.optional(),
-    LOGIN_RATE_LIMIT: z.coerce.number().int().positive().default(10),
-    LOGIN_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(15),
+    LOGIN_RATE_LIMIT: z.coerce.number({ message: 'must be a whole number' }).int().positive().default(10),
+    LOGIN_RATE_WINDOW_MINUTES: z.coerce.number({ message: 'must be a number of minutes' }).positive().default(15),
     TRUST_PROXY: bool.default(false),
     SEED_DEMO: bool.default(true),
+    ADMIN_EMAIL: z.email('must be an e-mail address').optional(),
+    ADMIN_PASSWORD: z.string().min(8, 'must be at least 8 characters').max(72).optional(),
     LOG_LEVEL: z.enum(['silent', 'error', 'warn', 'info', 'debug']).default('info'),
   })
   .superRefine((env, ctx) => {
+    if (!!env.ADMIN_EMAIL !== !!env.ADMIN_PASSWORD) {
+      ctx.addIssue({ code: 'custom', path: [env.ADMIN_EMAIL ? 'ADMIN_PASSWORD' : 'ADMIN_EMAIL'], message: 'ADMIN_EMAIL and ADMIN_PASSWORD go together' });
+    }
     if (env.NODE_ENV === 'production' && !env.JWT_SECRET) {
       ctx.addIssue({ code: 'custom', path: ['JWT_SECRET'], message: 'is required when NODE_ENV=production' });
     }

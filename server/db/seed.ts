@@ -78,3 +78,16 @@ export async function seedDemoData(dataSource: DataSource): Promise<void> {
     for (const hook of seedHooks) await hook(seed);
   });
 }
+
+/**
+ * The first admin of a server started without demo data: created only while the users table
+ * is empty. Returns true when it was created.
+ */
+export async function seedFirstAdmin(dataSource: DataSource, email: string, password: string): Promise<boolean> {
+  const repo = dataSource.getRepository(UserEntity);
+  if ((await repo.count()) > 0) return false;
+  await repo.save(
+    repo.create({ email: email.trim().toLowerCase(), name: 'Administrator', role: 'admin', passwordHash: await hashPassword(password), active: true, sessionVersion: 0 }),
+  );
+  return true;
+}

@@ -31,10 +31,15 @@ describe('environment', () => {
       expect.unreachable();
     } catch (err) {
       const message = (err as Error).message;
-      expect(message).toMatch(/PORT:/);
+      expect(message).toMatch(/PORT: must be a port number/);
       expect(message).toMatch(/SEED_DEMO: expected true or false/);
       expect(message).toMatch(/JWT_SECRET: must be at least 32 characters/);
     }
+  });
+
+  it('wants ADMIN_EMAIL and ADMIN_PASSWORD together', () => {
+    expect(() => loadEnv({ ADMIN_EMAIL: 'boss@example.com' })).toThrow(/ADMIN_PASSWORD: ADMIN_EMAIL and ADMIN_PASSWORD go together/);
+    expect(loadEnv({ ADMIN_EMAIL: 'boss@example.com', ADMIN_PASSWORD: 'long-enough' }).ADMIN_EMAIL).toBe('boss@example.com');
   });
 });
 

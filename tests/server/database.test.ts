@@ -4,7 +4,7 @@ import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { BUSY_TIMEOUT_MS, DATABASE_FILE, openDatabase } from '../../server/db/data-source.js';
 import { migrations } from '../../server/db/migrations/index.js';
-import { DEMO_ACCOUNTS, seedDemoData, seedHooks } from '../../server/db/seed.js';
+import { DEMO_ACCOUNTS, seedDemoData, seedFirstAdmin, seedHooks } from '../../server/db/seed.js';
 import { ProjectEntity } from '../../server/projects/project.entity.js';
 import { UserEntity } from '../../server/users/user.entity.js';
 
@@ -63,6 +63,17 @@ describe('demo seed', () => {
     expect(seen).toHaveLength(3);
     expect(await dataSource.getRepository(UserEntity).count()).toBe(0);
     expect(await dataSource.getRepository(ProjectEntity).count()).toBe(0);
+    await dataSource.destroy();
+  });
+});
+
+describe('first admin', () => {
+  it('is created only while there are no users', async () => {
+    const { dataSource } = await openDatabase({ database: ':memory:' });
+    expect(await seedFirstAdmin(dataSource, 'Boss@Example.com', 'long-enough')).toBe(true);
+    expect(await seedFirstAdmin(dataSource, 'other@example.com', 'long-enough')).toBe(false);
+    const users = await dataSource.getRepository(UserEntity).find();
+    expect(users.map((u) => [u.email, u.role])).toEqual([['boss@example.com', 'admin']]);
     await dataSource.destroy();
   });
 });
