@@ -1,0 +1,146 @@
+/**
+ * API speed: on a synthetic 10 × 10 bay, 30-storey frame (10,230 members; demo data of our
+ * own) — upload-to-preview, commit, full run, and a rerun after editing one section, each
+ * end to end through the HTTP API (supertest over the real app, in-memory database), and
+ * the bare analysis + checks in-process for the 1.2× target.
+ */
+import { performance } from 'node:perf_hooks';
+import request from 'supertest';
+import { createApp } from '../server/app.js';
+import { createLogger } from '../server/config/logger.js';
+import { openDatabase } from '../server/db/data-source.js';
+import { DEMO_PASSWORD, seedDemoAccounts } from '../server/db/seed.js';
+import { closeRunPool } from '../server/runs/worker-pool.js';
+
+export interface ApiBenchFigures {
+  members: number;
+  uploadToPreviewMs: number;
+  commitMs: number;
+  fullRunMs: number;
+  editMs: number;
+  rerunMs: number;
+  bareAnalysisAndChecksMs: number | null;
+  rerunOverBare: number | null;
+  runStatus: string;
+  runMessage: string;
+}
+
+/** CSV tables of a bays × bays × storeys frame, Z up. */
+export function frameTables(bays = 10, storeys = 30, bay = 6, storey = 3.5): Record<string, string> {
+  const n = bays + 1;
+  const id = (i: number, j: number, k: number) => `N${i}_${j}_${k}`;
+  const nodes = ['node,x [m],y [m],z [m]'];
+  const supports = ['node,type'];
+  const members = ['member,start,end,section,material,group'];
+  const loads = ['case,member,kind,direction,w1'];
+  const nodeLoads = ['case,node,fx [kN]'];
+  for (let k = 0; k <= storeys; k++)
+    for (let j = 0; j < n; j++)
+      for (let i = 0; i < n; i++) {
+        nodes.push(`${id(i, j, k)},${i * bay},${j * bay},${k * storey}`);
+        if (k === 0) supports.push(`${id(i, j, k)},fixed`);
+        if (k === storeys) nodeLoads.push(`W,${id(i, j, k)},5`);
+      }
+  let m = 0;
+  for (let k = 1; k <= storeys; k++) {
+    for (let j = 0; j < n; j++)
+      for (let i = 0; i < n; i++) members.push(`C${++m},${id(i, j, k - 1)},${id(i, j, k)},HEB300,S355,columns`);
+    for (let j = 0; j < n; j++)
+      for (let i = 0; i < bays; i++) {
+        members.push(`B${++m},${id(i, j, k)},${id(i + 1, j, k)},IPE400,S355,beams`);
+        loads.push(`L,B${m},uniform,global_z,-10`);
+      }
+    for (let j = 0; j < bays; j++)
+      for (let i = 0; i < n; i++) {
+        members.push(`B${++m},${id(i, j, k)},${id(i, j + 1, k)},IPE400,S355,beams`);
+        loads.push(`L,B${m},uniform,global_z,-10`);
+      }
+  }
+  return {
+    'settings.csv': 'key,value\ntitle,Synthetic frame\nunits,metric\ndesign_code,en1993-1-1\n',
+    'nodes.csv': nodes.join('\n'),
+    'supports.csv': supports.join('\n'),
+    'members.csv': members.join('\n'),
+    'cases.csv': 'case,category,self_weight\nD,dead,1\nL,live,0\nW,wind,0\n',
+    'member_loads.csv': loads.join('\n'),
+    'node_loads.csv': nodeLoads.join('\n'),
+    'combinations.csv': 'combination,case,factor\nULS1,D,1.35\nULS1,L,1.5\nULS2,D,1.35\nULS2,L,1.05\nULS2,W,1.5\nULS3,D,1.0\nULS3,W,1.5\n',
+  };
+}
+
+export async function benchApi(bays = 10, storeys = 30): Promise<ApiBenchFigures> {
+  const { dataSource } = await openDatabase({ database: ':memory:' });
+  await dataSource.transaction((m) => seedDemoAccounts(m));
+  const app = createApp({
+    config: {
+      jwtSecret: 'bench-secret-bench-secret-bench-secret-0123', sessionHours: 1, cookieSecure: false, loginRateLimit: 1000,
+      loginRateWindowMs: 60_000, trustProxy: false, distDir: '/nonexistent', dataDir: '/nonexistent', production: false,
+    },
+    dataSource,
+    logger: createLogger('silent'),
+  });
+  const agent = request.agent(app);
+  await agent.post('/api/auth/login').send({ email: 'engineer@example.com', password: DEMO_PASSWORD }).expect(200);
+  const project = await agent.post('/api/projects').send({ name: 'Bench' }).expect(201);
+  const tables = frameTables(bays, storeys);
+  const nMembers = tables['members.csv'].split('\n').length - 1;
+
+  const time = async <T>(f: () => Promise<T>): Promise<[T, number]> => {
+    const t0 = performance.now();
+    const v = await f();
+    return [v, performance.now() - t0];
+  };
+  const settle = async (runId: number) => {
+    for (;;) {
+      const r = await agent.get(`/api/runs/${runId}`);
+      if (r.body.status === 'done' || r.body.status === 'failed') return r.body;
+      await new Promise((res) => setTimeout(res, 20));
+    }
+  };
+
+  const [preview, uploadToPreviewMs] = await time(async () => {
+    let req = agent.post(`/api/projects/${project.body.id}/imports`);
+    for (const [name, text] of Object.entries(tables)) req = req.attach('files', Buffer.from(text), name);
+    return req;
+  });
+  if (!preview.body.canCommit) throw new Error(`bench model does not import: ${JSON.stringify(preview.body.problems?.slice(0, 3) ?? preview.body)}`);
+  const [commit, commitMs] = await time(() => agent.post(`/api/projects/${project.body.id}/imports/${preview.body.id}/commit`).send({}));
+  const modelId = commit.body.model.id;
+  const [first, fullRunMs] = await time(async () => settle((await agent.post(`/api/models/${modelId}/runs`).send({})).body.id));
+  const [, editMs] = await time(() =>
+    agent.patch(`/api/models/${modelId}/members`).send({ baseVersion: 1, edits: [{ member: 'B31', field: 'section', value: 'IPE450' }] }),
+  );
+  const [, rerunMs] = await time(async () => settle((await agent.post(`/api/models/${modelId}/runs`).send({})).body.id));
+
+  let bare: number | null = null;
+  if (first.status === 'done') {
+    const { computeRun } = await import('../server/runs/run-compute.js');
+    const { readCsvFiles } = await import('../shared/reader/index.js');
+    const read = await readCsvFiles(Object.entries(tables).map(([name, text]) => ({ name, text })));
+    if (read.ok) {
+      const json = JSON.stringify(read.model);
+      const t0 = performance.now();
+      computeRun(json, read.model.settings.designCode);
+      bare = performance.now() - t0;
+    }
+  }
+  await closeRunPool();
+  await dataSource.destroy();
+  return {
+    members: nMembers,
+    uploadToPreviewMs,
+    commitMs,
+    fullRunMs,
+    editMs,
+    rerunMs,
+    bareAnalysisAndChecksMs: bare,
+    rerunOverBare: bare ? (editMs + rerunMs) / bare : null,
+    runStatus: first.status,
+    runMessage: first.message,
+  };
+}
+
+if (import.meta.url === `file://${process.argv[1]}`) {
+  const [bays, storeys] = process.argv.slice(2).map(Number);
+  benchApi(bays || 10, storeys || 30).then((f) => console.log(JSON.stringify(f, null, 2)));
+}
