@@ -1,0 +1,132 @@
+/**
+ * The `trestle` batch command:
+ *   trestle analyse <input> --out <dir>   displacements.csv, reactions.csv, member_forces.csv
+ *   trestle check <input> --out <dir>     the same plus utilisation.csv and checks.csv
+ * Exit codes: 0 success; 1 invalid input or usage (each problem printed as
+ * `table row column: message`); 2 unstable model (node and freedom printed); 3 the
+ * analysis or the checks could not run for another reason. Nothing is written unless
+ * every file could be produced.
+ */
+import { mkdir, writeFile } from 'node:fs/promises';
+import { join } from 'node:path';
+import type { AnalysisResult } from '../../shared/engine/types.js';
+import { InstabilityError } from '../../shared/engine/types.js';
+import {
+  checksTable, displacementTable, memberForceTable, reactionTable, toCsv, utilisationTable, type DesignResultLike, type ResultTable,
+} from '../../shared/exports/index.js';
+import type { Model } from '../../shared/model/types.js';
+import { formatProblem } from '../../shared/reader/index.js';
+import { readModelInput } from './input.js';
+
+export interface CliIO {
+  out(line: string): void;
+  err(line: string): void;
+}
+
+export const EXIT = { ok: 0, invalid: 1, unstable: 2, failed: 3 } as const;
+
+const USAGE = [
+  'usage: trestle analyse <input> --out <dir>',
+  '       trestle check <input> --out <dir>',
+  '<input> is an .xlsx workbook or a folder of <table>.csv files',
+];
+
+type Checker = (model: Model, analysis: AnalysisResult) => DesignResultLike;
+
+/** The design checks, when the design module exists. */
+async function loadChecker(): Promise<Checker | string> {
+  try {
+    const mod = (await import('../../shared/design/index.js' as string)) as { checkModel?: Checker };
+    if (typeof mod.checkModel !== 'function') return 'the design checks are not available in this build (shared/design/index.ts exports no checkModel)';
+    return mod.checkModel;
+  } catch (e) {
+    return `the design checks are not available in this build (${(e as Error).message.split('\n')[0]})`;
+  }
+}
+
+function parseArgs(args: string[]): { command: string; input: string; out: string } | string {
+  const [command, ...rest] = args;
+  if (command !== 'analyse' && command !== 'check') return command ? `unknown command "${command}"` : 'no command given';
+  let input: string | undefined;
+  let out: string | undefined;
+  for (let i = 0; i < rest.length; i++) {
+    if (rest[i] === '--out') out = rest[++i];
+    else if (rest[i].startsWith('--out=')) out = rest[i].slice(6);
+    else if (rest[i].startsWith('--')) return `unknown option ${rest[i]}`;
+    else if (input === undefined) input = rest[i];
+    else return `unexpected argument ${rest[i]}`;
+  }
+  if (!input) return 'no input given';
+  if (!out) return 'no --out folder given';
+  return { command, input, out };
+}
+
+export async function runCli(args: string[], io: CliIO): Promise<number> {
+  try {
+    const parsed = parseArgs(args);
+    if (typeof parsed === 'string') {
+      io.err(`trestle: ${parsed}`);
+      USAGE.forEach((l) => io.err(l));
+      return EXIT.invalid;
+    }
+    const { command, input, out } = parsed;
+    let checker: Checker | undefined;
+    if (command === 'check') {
+      const c = await loadChecker();
+      if (typeof c === 'string') {
+        io.err(`trestle check: ${c}; use trestle analyse for the analysis results`);
+        return EXIT.failed;
+      }
+      checker = c;
+    }
+    const read = await readModelInput(input);
+    if (!read.ok) {
+      for (const p of read.problems) io.err(formatProblem(p));
+      const n = read.problems.filter((p) => p.severity === 'error').length;
+      io.err(`${n} problem${n === 1 ? '' : 's'} in ${input}: nothing written`);
+      return EXIT.invalid;
+    }
+    for (const w of read.warnings) io.err(formatProblem(w));
+    const model = read.model;
+
+    let analysis: AnalysisResult;
+    try {
+      const { analyse } = await import('../../shared/engine/index.js');
+      analysis = analyse(model);
+    } catch (e) {
+      if (e instanceof InstabilityError || (e as Error)?.name === 'InstabilityError') {
+        const ie = e as InstabilityError;
+        io.err(`unstable model: ${ie.message}`);
+        io.err(`node ${ie.node} freedom ${ie.freedom}`);
+        io.err('nothing written');
+        return EXIT.unstable;
+      }
+      io.err(`the analysis failed: ${(e as Error)?.message ?? String(e)}; nothing written`);
+      return EXIT.failed;
+    }
+
+    const tables: ResultTable[] = [displacementTable(model, analysis), reactionTable(model, analysis), memberForceTable(model, analysis)];
+    if (checker) {
+      let design: DesignResultLike;
+      try {
+        design = checker(model, analysis);
+      } catch (e) {
+        io.err(`the design checks failed: ${(e as Error)?.message ?? String(e)}; nothing written`);
+        return EXIT.failed;
+      }
+      tables.push(utilisationTable(model, design), checksTable(model, design));
+      const fails = design.members.filter((m) => m.status === 'fail').length;
+      const notChecked = design.members.filter((m) => m.status === 'not checked').length;
+      io.out(`${design.members.length} members checked to ${model.settings.designCode}: ${fails} fail, ${notChecked} not checked`);
+    }
+    const texts = tables.map((t) => ({ file: `${t.name}.csv`, text: toCsv(t) }));
+    await mkdir(out, { recursive: true });
+    for (const t of texts) await writeFile(join(out, t.file), t.text, 'utf8');
+    io.out(`${model.settings.title}: ${model.nodes.length} nodes, ${model.members.length} members, ${analysis.loadings.length} loadings`);
+    io.out(`wrote ${texts.map((t) => t.file).join(', ')} to ${out}`);
+    return EXIT.ok;
+  } catch (e) {
+    io.err(`trestle: ${(e as Error)?.message ?? String(e)}`);
+    return EXIT.failed;
+  }
+}
