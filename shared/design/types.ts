@@ -74,3 +74,16 @@ export interface MemberUtilisation {
   warnings: string[];
   vehiclePosition?: number;
 }
+
+/** The design checks of a whole model (checkModel). */
+export interface DesignResult {
+  code: DesignCode;
+  /** one per member, in model order */
+  members: MemberUtilisation[];
+  /** for each member and check, the record of its governing combination */
+  records: CheckRecord[];
+  /** members by status */
+  counts: { pass: number; fail: number; notChecked: number };
+  /** member-combination evaluations and time spent (ms) */
+  diagnostics: { evaluations: number; milliseconds: number };
+}

@@ -1,0 +1,320 @@
+/**
+ * Design checks of a whole model: every member, every strength combination (and service
+ * combination for deflection), under the model's design code.
+ *
+ * checkModel keeps, for each member and check, the governing combination and builds the
+ * full record only for it; checkMember gives all records of one member for one loading.
+ * Strength loadings: the combinations with limit state `strength`; when the analysis has no
+ * combinations at all, every load case (factor 1.0). Service loadings: combinations with
+ * limit state `service`.
+ */
+import type { DesignCode, Material, Member, Model, Section } from '../model/types.js';
+import type { AnalysisResult, StationForces } from '../engine/types.js';
+import { catalogueSection } from '../sections/index.js';
+import { builtInMaterial } from '../materials/index.js';
+import type { CheckFamily, CheckRecord, CheckStatus, DesignResult, MemberUtilisation } from './types.js';
+import { designGeometry, type DesignGeometry } from './geometry.js';
+import type { MemberPlan, MemberSetup } from './plan.js';
+import { aiscContext } from './aisc360/context.js';
+import { aiscPlan } from './aisc360/member.js';
+import { enPlan } from './en1993/member.js';
+import { notChecked } from './record.js';
+import { cantileverTip, chordDeflection, deflectionRecord } from './deflection.js';
+import { slendernessRecord } from './slenderness.js';
+
+export type { DesignResult } from './types.js';
+export { generateCombinations } from './combinations.js';
+
+export interface DesignOptions {
+  /** loading indices to check for strength (default: strength combinations, else every case) */
+  strengthLoadings?: number[];
+  /** loading indices to check for deflection (default: service combinations) */
+  serviceLoadings?: number[];
+}
+
+/** Everything about a member the checks need, prepared once. */
+interface Prepared {
+  member: Member;
+  setup: MemberSetup;
+  /** null when the member cannot be checked at all (reason) */
+  plan: MemberPlan | null;
+  reason: string;
+  geometry: DesignGeometry | null;
+  sectionId: string;
+  /** cantilever: node indices (tip, root) and unit axis */
+  tip: number;
+  root: number;
+  axis: [number, number, number];
+  deflectionLimit: number;
+}
+
+interface Context {
+  code: DesignCode;
+  prepared: Prepared[];
+  strength: number[];
+  service: number[];
+}
+
+function resolveSection(model: Model, id: string, cache: Map<string, Section | undefined>): Section | undefined {
+  if (cache.has(id)) return cache.get(id);
+  const s = model.sections.find((q) => q.id === id) ?? catalogueSection(id);
+  cache.set(id, s);
+  return s;
+}
+
+function resolveMaterial(model: Model, id: string, cache: Map<string, Material | undefined>): Material | undefined {
+  if (cache.has(id)) return cache.get(id);
+  const m = model.materials.find((q) => q.id === id) ?? builtInMaterial(id);
+  cache.set(id, m);
+  return m;
+}
+
+function prepare(model: Model, analysis: AnalysisResult, only?: number): Context {
+  const code = model.settings.designCode;
+  const nodeIndex = new Map<string, number>();
+  analysis.nodeIds.forEach((id, i) => nodeIndex.set(id, i));
+  const degree = new Int32Array(analysis.nodeIds.length);
+  for (const m of model.members) {
+    const a = nodeIndex.get(m.start), b = nodeIndex.get(m.end);
+    if (a !== undefined) degree[a]++;
+    if (b !== undefined) degree[b]++;
+  }
+  const supported = new Set<number>();
+  for (const s of model.supports) {
+    const i = nodeIndex.get(s.node);
+    if (i !== undefined && (s.restrained.some(Boolean) || s.springs.some((k) => k > 0))) supported.add(i);
+  }
+  const nodes = new Map(model.nodes.map((n) => [n.id, n]));
+  const sections = new Map<string, Section | undefined>();
+  const materials = new Map<string, Material | undefined>();
+  const plans = new Map<string, MemberPlan>();
+  const prepared: Prepared[] = [];
+  model.members.forEach((member, mi) => {
+    if (only !== undefined && mi !== only) { prepared.push(null as unknown as Prepared); return; }
+    const L = analysis.memberLength(mi);
+    const a = nodeIndex.get(member.start) ?? -1, b = nodeIndex.get(member.end) ?? -1;
+    const freeA = a >= 0 && degree[a] === 1 && !supported.has(a);
+    const freeB = b >= 0 && degree[b] === 1 && !supported.has(b);
+    const cantilever = freeA !== freeB;
+    const na = nodes.get(member.start), nb = nodes.get(member.end);
+    const axis: [number, number, number] = na && nb && L > 0 ? [(nb.x - na.x) / L, (nb.y - na.y) / L, (nb.z - na.z) / L] : [1, 0, 0];
+    const setup: MemberSetup = {
+      id: member.id, length: L, truss: member.type === 'truss',
+      LcMajor: member.kMajor * (member.lMajor ?? L), LcMinor: member.kMinor * (member.lMinor ?? L),
+      Lb: member.lb ?? L, cb: member.cb, cantilever,
+    };
+    const p: Prepared = {
+      member, setup, plan: null, reason: '', geometry: null, sectionId: member.section,
+      tip: freeA ? a : b, root: freeA ? b : a, axis,
+      deflectionLimit: member.deflectionLimit ?? model.settings.deflectionLimit,
+    };
+    prepared.push(p);
+    if (code === 'none') { p.reason = 'no design code selected'; return; }
+    const section = resolveSection(model, member.section, sections);
+    const material = resolveMaterial(model, member.material, materials);
+    if (!section) { p.reason = `section ${member.section} not found`; return; }
+    p.geometry = designGeometry(section);
+    if (!material) { p.reason = `material ${member.material} not found`; return; }
+    if (material.fy === undefined || !(material.fy > 0)) { p.reason = `material ${material.id} has no fy`; return; }
+    if (member.sectionEnd !== undefined && member.sectionEnd !== member.section) { p.reason = 'tapered member: design checks of tapered members not implemented'; return; }
+    // members with the same section, material, lengths and end conditions share a plan
+    const key = `${member.section}|${member.material}|${setup.length}|${setup.truss}|${setup.LcMajor}|${setup.LcMinor}|${setup.Lb}|${setup.cb}|${cantilever}`;
+    const shared = plans.get(key);
+    if (shared) { p.plan = { ...shared, member: member.id, records: (sf, c) => shared.records(sf, c).map((r) => (r ? { ...r, member: member.id } : r)) }; return; }
+    const g = p.geometry;
+    let plan: MemberPlan;
+    if (code === 'en1993-1-1') {
+      plan = enPlan(g, {
+        E: material.E, G: material.G, fy: material.fy, fu: material.fu,
+        gammaM0: model.settings.gammaM0, gammaM1: model.settings.gammaM1, gammaM2: model.settings.gammaM2,
+        hotFinished: /10210/.test(section.source ?? ''),
+      }, setup);
+    } else {
+      plan = aiscPlan(g, aiscContext(code === 'aisc360-asd' ? 'asd' : 'lrfd', material.E, material.G, material.fy, material.fu), setup);
+    }
+    plans.set(key, plan);
+    p.plan = plan;
+  });
+  const combos = analysis.loadings.map((l, i) => ({ l, i })).filter(({ l }) => l.kind === 'combination');
+  const strength = combos.length
+    ? combos.filter(({ l }) => l.limitState !== 'service').map(({ i }) => i)
+    : analysis.loadings.map((l, i) => ({ l, i })).filter(({ l }) => l.kind === 'case').map(({ i }) => i);
+  const service = combos.filter(({ l }) => l.limitState === 'service').map(({ i }) => i);
+  return { code, prepared, strength, service };
+}
+
+/** Largest slenderness K·L/r of a member over both axes (0 without geometry). */
+function slendernessOf(p: Prepared): number {
+  const g = p.geometry;
+  if (!g || !(g.rmaj > 0) || !(g.rmin > 0)) return 0;
+  return Math.max(p.setup.LcMajor / g.rmaj, p.setup.LcMinor / g.rmin);
+}
+
+function hasCompression(sf: StationForces): boolean {
+  for (let i = 0; i < sf.N.length; i++) if (sf.N[i] < 0) return true;
+  return false;
+}
+
+const MAX_SLOTS = 32;
+
+export function checkModel(model: Model, analysis: AnalysisResult, options: DesignOptions = {}): DesignResult {
+  const t0 = performance.now();
+  const ctx = prepare(model, analysis);
+  const strength = options.strengthLoadings ?? ctx.strength;
+  const service = options.serviceLoadings ?? ctx.service;
+  const ids = analysis.loadings.map((l) => l.id);
+  const members: MemberUtilisation[] = [];
+  const records: CheckRecord[] = [];
+  const counts = { pass: 0, fail: 0, notChecked: 0 };
+  const ratio = new Float64Array(MAX_SLOTS);
+  const xo = new Float64Array(MAX_SLOTS);
+  const gov = new Float64Array(MAX_SLOTS);
+  const govL = new Int32Array(MAX_SLOTS);
+  const nanL = new Int32Array(MAX_SLOTS);
+  const defl = new Float64Array(2);
+  let evaluations = 0;
+
+  ctx.prepared.forEach((p, mi) => {
+    const memberRecords: CheckRecord[] = [];
+    const warnings: string[] = [];
+    const sectionMaterial = { section: p.member.section, material: p.member.material };
+    if (!p.plan) {
+      memberRecords.push(notChecked(p.member.id, 'combined', ctx.code, '', 'design checks', p.reason));
+    } else {
+      const plan = p.plan;
+      const n = plan.slots.length;
+      gov.fill(-1, 0, n);
+      govL.fill(-1, 0, n);
+      nanL.fill(-1, 0, n);
+      let compression = false;
+      let compressionLoading = -1;
+      for (const li of strength) {
+        const sf = analysis.memberForces(mi, li);
+        plan.evaluate(sf, ratio, xo);
+        evaluations++;
+        for (let s = 0; s < n; s++) {
+          const r = ratio[s];
+          if (r !== r) { if (nanL[s] < 0) nanL[s] = li; }
+          else if (r > gov[s] || govL[s] < 0) { if (r >= 0 || govL[s] < 0) { gov[s] = r; govL[s] = li; } }
+        }
+        if (!compression && hasCompression(sf)) { compression = true; compressionLoading = li; }
+      }
+      // records of the governing loadings, each loading evaluated once
+      const wanted = new Map<number, number[]>();
+      for (let s = 0; s < n; s++) {
+        const li = nanL[s] >= 0 ? nanL[s] : gov[s] >= 0 ? govL[s] : -1;
+        if (li < 0) continue;
+        const list = wanted.get(li);
+        if (list) list.push(s); else wanted.set(li, [s]);
+      }
+      for (const [li, slots] of wanted) {
+        const recs = plan.records(analysis.memberForces(mi, li), ids[li]);
+        for (const s of slots) { const r = recs[s]; if (r) memberRecords.push(r); }
+      }
+      // slenderness (warning only) and bracing warning
+      const sl = slendernessOf(p);
+      if (sl > 0 && strength.length) {
+        const rec = slendernessRecord(p.member.id, ctx.code, sl, compression, compression ? ids[compressionLoading] : '');
+        memberRecords.push(rec);
+        if (rec.status === 'fail') warnings.push(rec.note ?? '');
+      }
+      if (compression && p.member.lMajor === undefined && p.member.lMinor === undefined && p.member.lb === undefined) {
+        warnings.push('member in compression with no bracing defined (l_major, l_minor, lb not given): member length used for buckling');
+      }
+      // deflection
+      if (service.length && p.setup.length > 0) {
+        let worst = -1, worstL = -1, worstX = 0;
+        for (const li of service) {
+          let delta: number, x: number;
+          if (p.setup.cantilever) {
+            delta = cantileverTip(analysis.displacements(li), p.tip, p.root, p.axis[0], p.axis[1], p.axis[2]);
+            x = p.tip === p.root ? 0 : p.setup.length;
+          } else {
+            chordDeflection(analysis.memberForces(mi, li), defl);
+            delta = defl[0]; x = defl[1];
+          }
+          if (delta > worst) { worst = delta; worstL = li; worstX = x; }
+        }
+        if (worstL >= 0) memberRecords.push(deflectionRecord(p.member.id, ctx.code, ids[worstL], worst, worstX, p.setup.length, p.deflectionLimit, p.setup.cantilever));
+      }
+    }
+    const u = utilisation(p, memberRecords, warnings, sectionMaterial);
+    members.push(u);
+    if (u.status === 'pass') counts.pass++; else if (u.status === 'fail') counts.fail++; else counts.notChecked++;
+    for (const r of memberRecords) records.push(r);
+  });
+  return { code: ctx.code, members, records, counts, diagnostics: { evaluations, milliseconds: performance.now() - t0 } };
+}
+
+/** The member's schedule row from its governing records. */
+function utilisation(p: Prepared, recs: CheckRecord[], warnings: string[], sm: { section: string; material: string }): MemberUtilisation {
+  let best: CheckRecord | null = null;
+  let anyNotChecked = false;
+  const families: Partial<Record<CheckFamily, number | null>> = {};
+  const familyStatus: Partial<Record<CheckFamily, CheckStatus>> = {};
+  for (const r of recs) {
+    const f = r.family;
+    if (r.status === 'not checked') {
+      familyStatus[f] = familyStatus[f] === 'fail' ? 'fail' : 'not checked';
+      if (!(f in families)) families[f] = null;
+    } else {
+      const prev = families[f];
+      if (prev === undefined || prev === null || (r.ratio ?? 0) > prev) families[f] = r.ratio;
+      if (r.status === 'fail') familyStatus[f] = 'fail';
+      else if (familyStatus[f] === undefined) familyStatus[f] = 'pass';
+    }
+    if (f === 'slenderness') continue;
+    if (r.status === 'not checked') { anyNotChecked = true; continue; }
+    if (!best || (r.ratio ?? 0) > (best.ratio ?? 0)) best = r;
+  }
+  const ratio = best ? best.ratio : null;
+  let status: CheckStatus;
+  if (ratio !== null && ratio > 1) status = 'fail';
+  else if (anyNotChecked || ratio === null) status = 'not checked';
+  else status = 'pass';
+  const firstNc = recs.find((r) => r.status === 'not checked');
+  const shown = status === 'not checked' && firstNc && !best ? firstNc : best;
+  return {
+    member: p.member.id,
+    group: p.member.group ?? '',
+    section: sm.section,
+    material: sm.material,
+    length: p.setup.length,
+    ratio,
+    check: shown ? shown.title : '',
+    clause: shown ? shown.clause : '',
+    combination: shown ? shown.combination : '',
+    status,
+    families,
+    familyStatus,
+    warnings: status === 'not checked' && firstNc?.note ? [...warnings, `not checked: ${firstNc.note}`] : warnings,
+  };
+}
+
+/**
+ * All records of one member for one loading: strength checks (and the slenderness
+ * warning) for a strength loading or a case; the deflection check for a service loading.
+ */
+export function checkMember(model: Model, analysis: AnalysisResult, memberIndex: number, loadingIndex: number): CheckRecord[] {
+  const member = model.members[memberIndex];
+  const loading = analysis.loadings[loadingIndex];
+  if (!member) throw new Error(`checkMember: member index ${memberIndex} does not exist`);
+  if (!loading) throw new Error(`checkMember: loading index ${loadingIndex} does not exist`);
+  const ctx = prepare(model, analysis, memberIndex);
+  const p = ctx.prepared[memberIndex];
+  if (!p.plan) return [notChecked(member.id, 'combined', ctx.code, '', 'design checks', p.reason, loading.id)];
+  if (loading.limitState === 'service') {
+    const d = new Float64Array(2);
+    if (p.setup.cantilever) {
+      const delta = cantileverTip(analysis.displacements(loadingIndex), p.tip, p.root, p.axis[0], p.axis[1], p.axis[2]);
+      return [deflectionRecord(member.id, ctx.code, loading.id, delta, p.setup.length, p.setup.length, p.deflectionLimit, true)];
+    }
+    chordDeflection(analysis.memberForces(memberIndex, loadingIndex), d);
+    return [deflectionRecord(member.id, ctx.code, loading.id, d[0], d[1], p.setup.length, p.deflectionLimit, false)];
+  }
+  const sf = analysis.memberForces(memberIndex, loadingIndex);
+  const out = p.plan.records(sf, loading.id).filter((r): r is CheckRecord => r !== null);
+  const sl = slendernessOf(p);
+  if (sl > 0) out.push(slendernessRecord(member.id, ctx.code, sl, hasCompression(sf), loading.id));
+  return out;
+}
