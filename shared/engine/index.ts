@@ -5,17 +5,14 @@
  */
 import type { Model } from '../model/types.js';
 import { type FactorOptions, type Factorisation, SingularMatrixError, type SymmetricCsc } from '../solver/types.js';
-import { addElement, addSprings, buildPattern, numberEquations } from './assembly.js';
 import { vecToGlobal12, vecToLocal12 } from './axes.js';
-import { buildMesh, elementReleases, FREE, type Mesh, NO_STIFFNESS } from './discretise.js';
-import { localStiffness, toGlobalStiffness } from './element.js';
+import { FREE, NO_STIFFNESS } from './discretise.js';
 import { appliedTotals, reactionTotals } from './equilibrium.js';
-import { fixedEndForces } from './fixedEnd.js';
 import { instabilityAt } from './instability.js';
-import { clipLoadSet, type LoadSet } from './loadSet.js';
-import { buildLoadSets } from './memberLoads.js';
+import type { LoadSet } from './loadSet.js';
 import { caseStations, memberStations, ROWS } from './recovery.js';
 import { factorise as defaultFactorise } from './solverBridge.js';
+import { buildSystem, elementLocal } from './system.js';
 import type { AnalysisResult, EquilibriumCheck, Loading, StationForces } from './types.js';
 
 export { InstabilityError } from './types.js';
@@ -33,15 +30,6 @@ export interface AnalyseOptions {
 
 const now = () => performance.now();
 
-/** Local (condensed) stiffness of element e. */
-function elementLocal(mesh: Mesh, e: number, kl: Float64Array): Float64Array {
-  const p = mesh.elProps;
-  const m = mesh.members[mesh.elMember[e]];
-  return localStiffness(
-    { EA: p[e * 5], EIy: p[e * 5 + 1], EIz: p[e * 5 + 2], GJ: p[e * 5 + 3] },
-    mesh.elL[e], m.truss, elementReleases(mesh.elRel[e]), kl,
-  );
-}
 
 export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisResult {
   const taperSegments = options.taperSegments ?? 16;
@@ -49,137 +37,11 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
   const factorise = options.factorise ?? defaultFactorise;
   const timings: Record<string, number> = {};
   let t = now();
-
-  const mesh = buildMesh(model, { taperSegments });
-  const nodeIndex = new Map<string, number>(model.nodes.map((n, i) => [n.id, i]));
-  const caseIndex = new Map<string, number>();
-  model.cases.forEach((c, i) => {
-    if (caseIndex.has(c.id)) throw new Error(`case ${c.id}: duplicate id`);
-    caseIndex.set(c.id, i);
-  });
-  const nCases = model.cases.length;
-  const loadSets = buildLoadSets(model, mesh.members, caseIndex);
+  const sys = buildSystem(model, taperSegments, timings);
+  const { mesh, nCases, loadSets, kgAll, status, eq, nEq, eqDof, pat, F, presc, fefOf, nodeIndex, caseIndex } = sys;
   const nNodes = mesh.nNodes, nDofAll = nNodes * 6, nEl = mesh.nElements;
-  timings.model = now() - t;
+  const kl = new Float64Array(144), fg = new Float64Array(12), ue = new Float64Array(12);
   t = now();
-
-  // element matrices in global axes
-  const kgAll = new Float64Array(nEl * 144);
-  const kl = new Float64Array(144), tmp = new Float64Array(144);
-  for (let e = 0; e < nEl; e++) {
-    elementLocal(mesh, e, kl);
-    toGlobalStiffness(kl, mesh.members[mesh.elMember[e]].R, kgAll.subarray(e * 144, e * 144 + 144), tmp);
-  }
-  // freedoms without any stiffness
-  const diag = Float64Array.from(mesh.springs);
-  for (let e = 0; e < nEl; e++) {
-    const a = mesh.elStart[e] * 6, b = mesh.elEnd[e] * 6, o = e * 144;
-    for (let k = 0; k < 6; k++) {
-      diag[a + k] += kgAll[o + k * 13];
-      diag[b + k] += kgAll[o + (6 + k) * 13];
-    }
-  }
-  const status = mesh.status;
-  for (let g = 0; g < nDofAll; g++) {
-    if (status[g] !== FREE || diag[g] !== 0) continue;
-    if (g % 6 >= 3) status[g] = NO_STIFFNESS;
-    else throw instabilityAt(mesh.nodeNames[Math.floor(g / 6)], g % 6);
-  }
-  const { eq, nEq, eqDof } = numberEquations(status);
-  const pat = buildPattern(nNodes, mesh.elStart, mesh.elEnd, eq, nEq);
-  for (let e = 0; e < nEl; e++) addElement(pat, eq, e, mesh.elStart[e], mesh.elEnd[e], kgAll, e * 144);
-  addSprings(pat, eq, mesh.springs);
-  timings.assembly = now() - t;
-  t = now();
-
-  // fixed-end forces (local) per loaded element and case
-  const fefCache = new Map<number, Float64Array>();
-  const fefOf = (e: number, c: number): Float64Array | undefined => {
-    const key = e * nCases + c;
-    const hit = fefCache.get(key);
-    if (hit) return hit;
-    const mi = mesh.elMember[e];
-    const ls = loadSets[mi * nCases + c];
-    if (!ls) return undefined;
-    const m = mesh.members[mi];
-    const x0 = mesh.elX0[e], L = mesh.elL[e];
-    const part = m.elementCount > 1 ? clipLoadSet(ls, x0, x0 + L, e === m.firstElement + m.elementCount - 1) : ls;
-    const p = mesh.elProps;
-    const f = fixedEndForces(
-      part, L, { EA: p[e * 5], EIy: p[e * 5 + 1], EIz: p[e * 5 + 2], GJ: p[e * 5 + 3] }, p[e * 5 + 4],
-      m.truss, elementReleases(mesh.elRel[e]), new Float64Array(12),
-    );
-    fefCache.set(key, f);
-    return f;
-  };
-
-  // load block, column-major nEq × nCases
-  const F = new Float64Array(nEq * nCases);
-  for (const nl of model.nodeLoads) {
-    const where = `node load${nl.row !== undefined ? ` (row ${nl.row})` : ''} at node ${nl.node}`;
-    const n = nodeIndex.get(nl.node);
-    if (n === undefined) throw new Error(`${where}: the node does not exist`);
-    const c = caseIndex.get(nl.case);
-    if (c === undefined) throw new Error(`${where}: case ${nl.case} does not exist`);
-    for (let k = 0; k < 6; k++) {
-      const v = nl.values[k];
-      if (v === 0) continue;
-      const g = n * 6 + k;
-      if (eq[g] >= 0) F[c * nEq + eq[g]] += v;
-      else if (status[g] === NO_STIFFNESS) throw instabilityAt(mesh.nodeNames[n], k);
-    }
-  }
-  const fg = new Float64Array(12);
-  for (let e = 0; e < nEl; e++) {
-    const mi = mesh.elMember[e];
-    for (let c = 0; c < nCases; c++) {
-      if (!loadSets[mi * nCases + c]) continue;
-      const f = fefOf(e, c)!;
-      vecToGlobal12(mesh.members[mi].R, f, fg);
-      const a = mesh.elStart[e] * 6, b = mesh.elEnd[e] * 6;
-      for (let k = 0; k < 6; k++) {
-        if (eq[a + k] >= 0) F[c * nEq + eq[a + k]] -= fg[k];
-        if (eq[b + k] >= 0) F[c * nEq + eq[b + k]] -= fg[6 + k];
-      }
-    }
-  }
-  // prescribed displacements (settlements) per case
-  const presc: (Float64Array | undefined)[] = new Array(nCases);
-  for (const st of model.settlements) {
-    const where = `settlement${st.row !== undefined ? ` (row ${st.row})` : ''} at node ${st.node}`;
-    const n = nodeIndex.get(st.node);
-    if (n === undefined) throw new Error(`${where}: the node does not exist`);
-    const c = caseIndex.get(st.case);
-    if (c === undefined) throw new Error(`${where}: case ${st.case} does not exist`);
-    for (let k = 0; k < 6; k++) {
-      const v = st.values[k];
-      if (v === null || v === 0) continue;
-      if (eq[n * 6 + k] >= 0 || status[n * 6 + k] === NO_STIFFNESS) {
-        throw new Error(`${where}: freedom ${['ux', 'uy', 'uz', 'rx', 'ry', 'rz'][k]} is not restrained, so it cannot be prescribed`);
-      }
-      (presc[c] ??= new Float64Array(nDofAll))[n * 6 + k] = v;
-    }
-  }
-  const ue = new Float64Array(12);
-  for (let c = 0; c < nCases; c++) {
-    const u = presc[c];
-    if (!u) continue;
-    for (let e = 0; e < nEl; e++) {
-      const a = mesh.elStart[e] * 6, b = mesh.elEnd[e] * 6;
-      let any = false;
-      for (let k = 0; k < 6; k++) { ue[k] = u[a + k]; ue[6 + k] = u[b + k]; any ||= ue[k] !== 0 || ue[6 + k] !== 0; }
-      if (!any) continue;
-      const o = e * 144;
-      for (let i = 0; i < 12; i++) {
-        const gi = i < 6 ? a + i : b + i - 6;
-        if (eq[gi] < 0) continue;
-        let s = 0;
-        for (let j = 0; j < 12; j++) s += kgAll[o + i * 12 + j] * ue[j];
-        F[c * nEq + eq[gi]] -= s;
-      }
-    }
-  }
-  timings.loads = now() - t;
 
   // factorise once, solve all cases as one block
   let X: Float64Array = new Float64Array(0);
@@ -217,7 +79,6 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
   const Rall = new Float64Array(nDofAll * nCases);
   const reactive = new Uint8Array(nNodes);
   for (let g = 0; g < nDofAll; g++) if ((status[g] !== FREE && status[g] !== NO_STIFFNESS) || mesh.springs[g] !== 0) reactive[Math.floor(g / 6)] = 1;
-  const fl = new Float64Array(12);
   for (let e = 0; e < nEl; e++) {
     const ni = mesh.elStart[e], nj = mesh.elEnd[e];
     if (!reactive[ni] && !reactive[nj]) continue;
@@ -238,7 +99,6 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
       }
     }
   }
-  void fl;
   for (const nl of model.nodeLoads) {
     const n = nodeIndex.get(nl.node)!, c = caseIndex.get(nl.case)!;
     for (let k = 0; k < 6; k++) {
