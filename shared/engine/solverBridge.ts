@@ -1,2 +1,2 @@
-/** The sparse solver used by the engine (shared/solver once it lands; dense until then). */
-export { factoriseDense as factorise } from './denseSolver.js';
+/** The sparse solver used by the engine by default (shared/solver). */
+export { factorise } from '../solver/index.js';
