@@ -1,5 +1,5 @@
 /**
- * Browser-test harness: builds the client when `dist/` is stale (always under CI), starts
+ * Browser-test harness: builds the client when `dist/` was not built from the current sources, starts
  * the real server on a free port with a fresh DATA_DIR (so the demo accounts are seeded),
  * and drives Debian's Chromium through playwright-core.
  *
@@ -11,7 +11,8 @@
  *   });
  */
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, rmSync, statSync } from 'node:fs';
+import { createHash } from 'node:crypto';
+import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { createRequire } from 'node:module';
 import { tmpdir } from 'node:os';
@@ -37,33 +38,49 @@ export function chromiumAvailable(suite: string): boolean {
   return false;
 }
 
-/** Latest modification time (ms) of any file under the given paths. */
-export function newestMtime(paths: string[]): number {
-  let newest = 0;
+/** Every client source file under the given paths, sorted (node_modules skipped). */
+function sourceFiles(paths: string[]): string[] {
+  const out: string[] = [];
   const visit = (p: string): void => {
     if (!existsSync(p)) return;
-    const st = statSync(p);
-    if (st.isDirectory()) {
+    if (statSync(p).isDirectory()) {
       for (const name of readdirSync(p)) if (name !== 'node_modules') visit(path.join(p, name));
-    } else if (st.mtimeMs > newest) newest = st.mtimeMs;
+    } else out.push(p);
   };
   for (const p of paths) visit(p);
-  return newest;
+  return out.sort();
 }
 
-/** True when dist/ is missing or older than any client source. */
+/** A fingerprint of the client's sources (paths and contents), so a build is reused only for the same sources. */
+export function clientSourceHash(root = ROOT): string {
+  const hash = createHash('sha256');
+  for (const file of sourceFiles(CLIENT_SOURCES.map((p) => path.join(root, p)))) {
+    hash.update(path.relative(root, file)).update('\0').update(readFileSync(file)).update('\0');
+  }
+  return hash.digest('hex');
+}
+
+const STAMP = '.source-hash';
+
+/** True when dist/ is missing or was built from other sources than the current ones. */
 export function clientIsStale(root = ROOT): boolean {
-  const built = path.join(root, 'dist', 'index.html');
-  if (!existsSync(built)) return true;
-  return newestMtime(CLIENT_SOURCES.map((p) => path.join(root, p))) > statSync(built).mtimeMs;
+  const stamp = path.join(root, 'dist', STAMP);
+  if (!existsSync(path.join(root, 'dist', 'index.html')) || !existsSync(stamp)) return true;
+  return readFileSync(stamp, 'utf8').trim() !== clientSourceHash(root);
 }
 
-/** Runs `vite build` when the build is stale, or always when CI is set. */
+/**
+ * Runs `vite build` unless dist/ was already built from exactly these sources (checked by
+ * content, not file times, so CI builds once per run and a local run only after a change).
+ * E2E_REBUILD=1 forces a build.
+ */
 export function ensureClientBuilt(): void {
-  if (!process.env.CI && !clientIsStale()) return;
+  if (process.env.E2E_REBUILD !== '1' && !clientIsStale()) return;
+  const hash = clientSourceHash();
   const vite = path.join(path.dirname(require.resolve('vite/package.json')), 'bin', 'vite.js');
   const result = spawnSync(process.execPath, [vite, 'build', '--logLevel', 'warn'], { cwd: ROOT, encoding: 'utf8' });
   if (result.status !== 0) throw new Error(`vite build failed:\n${result.stdout}\n${result.stderr}`);
+  writeFileSync(path.join(ROOT, 'dist', STAMP), hash + '\n');
 }
 
 async function freePort(): Promise<number> {
