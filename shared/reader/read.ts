@@ -177,6 +177,8 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
       problems.error('sections', s.row, missing[0], `custom section ${s.id} is used by ${m.type} member ${m.id} (members row ${r.row}, ${col}) and needs ${missing.join(', ')}`);
     }
   };
+  let checkable = 0;
+  const uncheckable: { member: string; row: number; section: string; shape: string }[] = [];
   for (const r of parsed.members?.rows ?? []) {
     const v = r.v;
     const id = v.member as string | undefined;
@@ -236,9 +238,20 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
       if (!mat) problems.error('members', r.row, lab('members', 'material'), `unknown material ${m.material}: not in the materials table nor a built-in material`);
       else memberMaterial.set(id, mat);
     }
-    if (settings.designCode !== 'none' && sec && !(CODE_SHAPES[settings.designCode] ?? []).includes(sec.shape)) {
-      problems.error('members', r.row, lab('members', 'section'), `design code ${settings.designCode} cannot check member ${id}: section ${sec.id} is ${sec.shape === 'custom' ? 'custom (no shape to classify)' : `a ${sec.shape} shape`}; give its shape and dimensions, use a catalogue section, or set design_code none`);
+    if (settings.designCode !== 'none' && sec) {
+      if ((CODE_SHAPES[settings.designCode] ?? []).includes(sec.shape)) checkable++;
+      else uncheckable.push({ member: id, row: r.row, section: sec.id, shape: sec.shape });
     }
+  }
+  // a design code the model's shapes cannot use: an error when no member can be checked,
+  // a warning per member otherwise (its checks come out `not checked`)
+  for (const u of uncheckable) {
+    const what = u.shape === 'custom' ? 'custom (no shape to classify)' : `a ${u.shape} shape`;
+    if (checkable === 0) {
+      problems.error('members', u.row, lab('members', 'section'), `design code ${settings.designCode} cannot check member ${u.member}: section ${u.section} is ${what} and no member of the model has a shape the code can check; give shapes and dimensions, use catalogue sections, or set design_code none`);
+      break;
+    }
+    problems.warning('members', u.row, lab('members', 'section'), `member ${u.member}: section ${u.section} is ${what}, so design code ${settings.designCode} reports its checks as not checked`);
   }
   // materials without fy under a design code
   if (settings.designCode !== 'none') {

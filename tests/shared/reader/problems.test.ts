@@ -112,9 +112,20 @@ describe('reader problems name table, row and column', () => {
     expect(at(list, 'materials', 2, 'fy').message).toContain('en1993-1-1');
   });
 
-  it('refuses a design code for a member whose section has no shape', () => {
-    const p = at(errors({ settings: 'key,value\ndesign_code,aisc360-lrfd\n' }), 'members', 2, 'section');
-    expect(p.message).toContain('custom');
+  it('refuses a design code that none of the model\'s shapes can use, naming the first member row', () => {
+    const list = errors({ settings: 'key,value\ndesign_code,aisc360-lrfd\n' });
+    expect(list).toHaveLength(1);
+    expect(at(list, 'members', 2, 'section').message).toContain('custom');
+  });
+
+  it('warns about a custom section among checkable ones under a design code', () => {
+    const r = read({
+      settings: 'key,value\ndesign_code,en1993-1-1\n',
+      sections: 'section,shape,A,I_major,I_minor,J\nC1,custom,5000,8e7,2e7,3e5\n',
+      members: 'member,start,end,section,material\nM1,N1,N2,IPE300,STEEL\nM2,N2,N3,C1,STEEL\nM3,N3,N4,IPE300,STEEL\n',
+    });
+    expect(r.ok).toBe(true);
+    if (r.ok) expect(at(r.warnings, 'members', 3, 'section').message).toContain('not checked');
   });
 
   it('refuses a combination sharing its id with a case', () => {
