@@ -45,7 +45,9 @@ const SESSION_PATHS = ['/api/auth/login', '/api/auth/me'];
 /** Sends one request to the API and returns the parsed JSON body (undefined for 204). */
 export async function request<T>(method: HttpMethod, path: string, body?: unknown): Promise<T> {
   const init: RequestInit = { method, credentials: 'same-origin', headers: { Accept: 'application/json' } };
-  if (body !== undefined) {
+  if (typeof FormData !== 'undefined' && body instanceof FormData) {
+    init.body = body; // multipart: the browser sets the Content-Type with its boundary
+  } else if (body !== undefined) {
     init.headers = { ...init.headers, 'Content-Type': 'application/json' };
     init.body = JSON.stringify(body);
   }

@@ -1,0 +1,30 @@
+/** Model endpoints: one function per route (shared/schemas/models.ts). */
+import type {
+  EditableMembers, MemberEditsInput, ModelDetail, ModelSummary, ModelVersionSummary,
+} from '../../shared/schemas/models.js';
+import { http } from './http.js';
+
+/** GET /api/projects/:projectId/models. */
+export function listModels(projectId: number): Promise<ModelSummary[]> {
+  return http.get<ModelSummary[]>(`/api/projects/${projectId}/models`);
+}
+
+/** GET /api/models/:id. */
+export function getModel(id: number): Promise<ModelDetail> {
+  return http.get<ModelDetail>(`/api/models/${id}`);
+}
+
+/** GET /api/models/:id/versions. */
+export function listVersions(id: number): Promise<ModelVersionSummary[]> {
+  return http.get<ModelVersionSummary[]>(`/api/models/${id}/versions`);
+}
+
+/** GET /api/models/:id/members (values in the model's unit system). */
+export function getEditableMembers(id: number): Promise<EditableMembers> {
+  return http.get<EditableMembers>(`/api/models/${id}/members`);
+}
+
+/** PATCH /api/models/:id/members: one new version; 409 when baseVersion is stale. */
+export function saveMemberEdits(id: number, input: MemberEditsInput): Promise<ModelSummary> {
+  return http.patch<ModelSummary>(`/api/models/${id}/members`, input);
+}

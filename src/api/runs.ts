@@ -1,0 +1,42 @@
+/** Run endpoints: one function per route (shared/schemas/runs.ts). Numbers are SI. */
+import type {
+  MemberDetail, Run, RunComparison, RunGeometry, RunMembers, RunSummary, StartRunInput,
+} from '../../shared/schemas/runs.js';
+import { http } from './http.js';
+
+const loadingQuery = (loading?: string | null) => (loading ? `?loading=${encodeURIComponent(loading)}` : '');
+
+/** POST /api/models/:id/runs → the queued run. */
+export function startRun(modelId: number, input: StartRunInput = {}): Promise<Run> {
+  return http.post<Run>(`/api/models/${modelId}/runs`, input);
+}
+
+/** GET /api/models/:id/runs (newest first). */
+export function listRuns(modelId: number): Promise<RunSummary[]> {
+  return http.get<RunSummary[]>(`/api/models/${modelId}/runs`);
+}
+
+/** GET /api/runs/:id. */
+export function getRun(id: number): Promise<Run> {
+  return http.get<Run>(`/api/runs/${id}`);
+}
+
+/** GET /api/runs/:id/members. */
+export function getRunMembers(id: number): Promise<RunMembers> {
+  return http.get<RunMembers>(`/api/runs/${id}/members`);
+}
+
+/** GET /api/runs/:id/members/:member[?loading=]. */
+export function getMemberDetail(id: number, member: string, loading?: string | null): Promise<MemberDetail> {
+  return http.get<MemberDetail>(`/api/runs/${id}/members/${encodeURIComponent(member)}${loadingQuery(loading)}`);
+}
+
+/** GET /api/runs/:id/model[?loading=]. */
+export function getRunGeometry(id: number, loading?: string | null): Promise<RunGeometry> {
+  return http.get<RunGeometry>(`/api/runs/${id}/model${loadingQuery(loading)}`);
+}
+
+/** GET /api/runs/compare?a=&b=. */
+export function compareRuns(a: number, b: number): Promise<RunComparison> {
+  return http.get<RunComparison>(`/api/runs/compare?a=${a}&b=${b}`);
+}
