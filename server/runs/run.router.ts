@@ -7,6 +7,7 @@ import { badRequest, notFound } from '../errors/app-error.js';
 import { exportRun } from '../exports/export.service.js';
 import { requireRole } from '../middleware/auth.js';
 import { parseId } from '../middleware/params.js';
+import { runPool } from './worker-pool.js';
 import { compareRuns, getMemberDetail, getRun, getRunGeometry, getRunMembers, recoverInterruptedRuns } from './run.service.js';
 
 export const RUN_READERS = rolesAtLeast('viewer');
@@ -17,6 +18,7 @@ const text = (v: unknown) => (typeof v === 'string' ? v : undefined);
 export function runsRouter({ dataSource, logger }: AppContext): Router {
   const router = Router();
   void recoverInterruptedRuns(dataSource, logger);
+  if (process.env.NODE_ENV !== 'test') void runPool().warm();
 
   router.get('/compare', requireRole(...RUN_READERS), async (req, res) => {
     const a = text(req.query.a);

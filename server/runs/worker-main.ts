@@ -18,3 +18,5 @@ port.on('message', ({ id, task }: WorkerRequest) => {
     port.postMessage({ id, type: 'error', message } satisfies WorkerReply);
   }
 });
+
+port.postMessage({ id: 0, type: 'ready' } satisfies WorkerReply);

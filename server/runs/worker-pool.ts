@@ -27,6 +27,9 @@ interface Slot {
   busy: Pending | null;
   /** runs whose analysis this worker holds, newest last */
   runs: number[];
+  /** settled when the worker has loaded its modules */
+  ready?: Promise<void>;
+  onReady?: () => void;
 }
 
 export interface TaskHooks {
@@ -44,11 +47,18 @@ export class WorkerPool {
     for (let i = 0; i < size; i++) this.slots.push({ worker: null, busy: null, runs: [] });
   }
 
+  /** Start every worker now (module loading and TypeScript transpiling happen before the first run). */
+  warm(): Promise<void> {
+    for (const slot of this.slots) if (!slot.worker && !this.closed) this.spawn(slot);
+    return Promise.all(this.slots.map((s) => s.ready)).then(() => undefined);
+  }
+
   private spawn(slot: Slot): Worker {
     const worker = new Worker(new URL('./worker.mjs', import.meta.url));
     worker.unref();
     slot.worker = worker;
     slot.runs = [];
+    slot.ready = new Promise((resolve) => (slot.onReady = resolve));
     worker.on('message', (reply: WorkerReply) => this.onReply(slot, reply));
     worker.on('error', (err) => this.onCrash(slot, worker, err));
     worker.on('exit', (code) => {
@@ -93,6 +103,10 @@ export class WorkerPool {
   }
 
   private onReply(slot: Slot, reply: WorkerReply): void {
+    if (reply.type === 'ready') {
+      slot.onReady?.();
+      return;
+    }
     const pending = slot.busy;
     if (!pending || pending.id !== reply.id) return;
     if (reply.type === 'progress') {
@@ -108,6 +122,7 @@ export class WorkerPool {
   private onCrash(slot: Slot, worker: Worker, err: Error): void {
     if (slot.worker !== worker) return; // already handled (error then exit)
     const pending = this.finish(slot);
+    slot.onReady?.();
     slot.worker = null;
     slot.runs = [];
     void worker.terminate();

@@ -54,6 +54,7 @@ export type TaskResult<T extends WorkerTask> = T extends RunTask
 export type WorkerRequest = { id: number; task: WorkerTask };
 
 export type WorkerReply =
+  | { id: 0; type: 'ready' }
   | { id: number; type: 'progress'; phase: RunPhase }
   | { id: number; type: 'done'; result: unknown }
   | { id: number; type: 'error'; message: string };
