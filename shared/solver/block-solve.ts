@@ -1,7 +1,8 @@
 /**
  * Forward and back substitution with a supernodal Cholesky factor for a block of
  * right-hand sides at once. The work array is row-major (the nrhs values of one freedom
- * are adjacent) so every inner loop runs over the load cases.
+ * are adjacent); the products with the rows below each diagonal block are accumulated in
+ * registers two factor rows (or columns) by four load cases at a time.
  */
 import type { SymbolicFactor } from './symbolic.js';
 
@@ -12,6 +13,7 @@ export function blockSolve(sym: SymbolicFactor, Lx: Float64Array, B: Float64Arra
     const bq = q * n;
     for (let k = 0; k < n; k++) X[k * nrhs + q] = B[bq + perm[k]];
   }
+  const q4 = nrhs - (nrhs % 4);
 
   // L Y = B
   for (let s = 0; s < nsuper; s++) {
@@ -20,25 +22,54 @@ export function blockSolve(sym: SymbolicFactor, Lx: Float64Array, B: Float64Arra
     const r0 = superRowPtr[s];
     const nr = superRowPtr[s + 1] - r0;
     const os = superValPtr[s];
+    const xf = f * nrhs;
     for (let i = 0; i < nc; i++) {
       const rowI = os + i * nc;
-      const xi = (f + i) * nrhs;
+      const xi = xf + i * nrhs;
       for (let k = 0; k < i; k++) {
         const l = Lx[rowI + k];
-        const xk = (f + k) * nrhs;
+        if (l === 0) continue;
+        const xk = xf + k * nrhs;
         for (let q = 0; q < nrhs; q++) X[xi + q] -= l * X[xk + q];
       }
       const inv = 1 / Lx[rowI + i];
       for (let q = 0; q < nrhs; q++) X[xi + q] *= inv;
     }
-    for (let r = nc; r < nr; r++) {
-      const rowR = os + r * nc;
-      const xr = superRows[r0 + r] * nrhs;
-      for (let k = 0; k < nc; k++) {
-        const l = Lx[rowR + k];
-        if (l === 0) continue;
-        const xk = (f + k) * nrhs;
-        for (let q = 0; q < nrhs; q++) X[xr + q] -= l * X[xk + q];
+    let r = nc;
+    for (; r + 1 < nr; r += 2) {
+      const a0 = os + r * nc;
+      const a1 = a0 + nc;
+      const y0 = superRows[r0 + r] * nrhs;
+      const y1 = superRows[r0 + r + 1] * nrhs;
+      for (let q = 0; q < q4; q += 4) {
+        let s00 = 0, s01 = 0, s02 = 0, s03 = 0, s10 = 0, s11 = 0, s12 = 0, s13 = 0;
+        for (let k = 0, xk = xf + q; k < nc; k++, xk += nrhs) {
+          const l0 = Lx[a0 + k];
+          const l1 = Lx[a1 + k];
+          const x0 = X[xk], x1 = X[xk + 1], x2 = X[xk + 2], x3 = X[xk + 3];
+          s00 += l0 * x0; s01 += l0 * x1; s02 += l0 * x2; s03 += l0 * x3;
+          s10 += l1 * x0; s11 += l1 * x1; s12 += l1 * x2; s13 += l1 * x3;
+        }
+        X[y0 + q] -= s00; X[y0 + q + 1] -= s01; X[y0 + q + 2] -= s02; X[y0 + q + 3] -= s03;
+        X[y1 + q] -= s10; X[y1 + q + 1] -= s11; X[y1 + q + 2] -= s12; X[y1 + q + 3] -= s13;
+      }
+      for (let q = q4; q < nrhs; q++) {
+        let s0 = 0, s1 = 0;
+        for (let k = 0, xk = xf + q; k < nc; k++, xk += nrhs) {
+          s0 += Lx[a0 + k] * X[xk];
+          s1 += Lx[a1 + k] * X[xk];
+        }
+        X[y0 + q] -= s0;
+        X[y1 + q] -= s1;
+      }
+    }
+    if (r < nr) {
+      const a0 = os + r * nc;
+      const y0 = superRows[r0 + r] * nrhs;
+      for (let q = 0; q < nrhs; q++) {
+        let s0 = 0;
+        for (let k = 0, xk = xf + q; k < nc; k++, xk += nrhs) s0 += Lx[a0 + k] * X[xk];
+        X[y0 + q] -= s0;
       }
     }
   }
@@ -50,24 +81,49 @@ export function blockSolve(sym: SymbolicFactor, Lx: Float64Array, B: Float64Arra
     const r0 = superRowPtr[s];
     const nr = superRowPtr[s + 1] - r0;
     const os = superValPtr[s];
-    for (let r = nc; r < nr; r++) {
-      const rowR = os + r * nc;
-      const xr = superRows[r0 + r] * nrhs;
-      for (let k = 0; k < nc; k++) {
-        const l = Lx[rowR + k];
-        if (l === 0) continue;
-        const xk = (f + k) * nrhs;
-        for (let q = 0; q < nrhs; q++) X[xk + q] -= l * X[xr + q];
+    const xf = f * nrhs;
+    // X1 −= L21ᵀ · Y, reading L21 by rows: two rows at a time, four load cases in registers
+    let r = nc;
+    for (; r + 1 < nr; r += 2) {
+      const a0 = os + r * nc;
+      const a1 = a0 + nc;
+      const y0 = superRows[r0 + r] * nrhs;
+      const y1 = superRows[r0 + r + 1] * nrhs;
+      for (let q = 0; q < q4; q += 4) {
+        const u0 = X[y0 + q], u1 = X[y0 + q + 1], u2 = X[y0 + q + 2], u3 = X[y0 + q + 3];
+        const v0 = X[y1 + q], v1 = X[y1 + q + 1], v2 = X[y1 + q + 2], v3 = X[y1 + q + 3];
+        for (let k = 0, xk = xf + q; k < nc; k++, xk += nrhs) {
+          const l0 = Lx[a0 + k];
+          const l1 = Lx[a1 + k];
+          X[xk] -= l0 * u0 + l1 * v0;
+          X[xk + 1] -= l0 * u1 + l1 * v1;
+          X[xk + 2] -= l0 * u2 + l1 * v2;
+          X[xk + 3] -= l0 * u3 + l1 * v3;
+        }
+      }
+      for (let q = q4; q < nrhs; q++) {
+        const u = X[y0 + q];
+        const v = X[y1 + q];
+        for (let k = 0, xk = xf + q; k < nc; k++, xk += nrhs) X[xk] -= Lx[a0 + k] * u + Lx[a1 + k] * v;
+      }
+    }
+    if (r < nr) {
+      const a0 = os + r * nc;
+      const y0 = superRows[r0 + r] * nrhs;
+      for (let q = 0; q < nrhs; q++) {
+        const u = X[y0 + q];
+        for (let k = 0, xk = xf + q; k < nc; k++, xk += nrhs) X[xk] -= Lx[a0 + k] * u;
       }
     }
     for (let i = nc - 1; i >= 0; i--) {
       const rowI = os + i * nc;
-      const xi = (f + i) * nrhs;
+      const xi = xf + i * nrhs;
       const inv = 1 / Lx[rowI + i];
       for (let q = 0; q < nrhs; q++) X[xi + q] *= inv;
       for (let k = 0; k < i; k++) {
         const l = Lx[rowI + k];
-        const xk = (f + k) * nrhs;
+        if (l === 0) continue;
+        const xk = xf + k * nrhs;
         for (let q = 0; q < nrhs; q++) X[xk + q] -= l * X[xi + q];
       }
     }

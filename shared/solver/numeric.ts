@@ -3,9 +3,18 @@
  * row-major block (its rows × its columns); updates from descendant supernodes are computed
  * as dense products and scattered through a row map. Pivots are checked against the
  * original diagonal so that mechanisms are reported instead of producing garbage.
+ *
+ * The dense kernels are dot products over rows held contiguously, blocked two rows by two
+ * columns so that each loaded value is used twice.
  */
 import type { SymbolicFactor } from './symbolic.js';
 import { SingularMatrixError } from './types.js';
+
+/** column block width of the dense factorisation inside a supernode */
+const NB = 48;
+
+/** reciprocals of the diagonal of the current column block */
+const inv = new Float64Array(NB);
 
 export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTolerance: number): Float64Array {
   const { n, perm, cPtr, cRow, cVal, nsuper, superFirst, superRowPtr, superRows, superValPtr, colToSuper } = sym;
@@ -67,7 +76,7 @@ export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTo
 
 /**
  * Subtracts L_d[p1:nrd, :] · L_d[p1:p2, :]ᵀ (lower part) from the target block.
- * Rows and columns of the product are placed through `map` and the target's first column.
+ * Row r of the product lands in target row map[rows[r]], column c in target column rows[c] − f.
  */
 function updateFrom(
   Lx: Float64Array,
@@ -83,34 +92,77 @@ function updateFrom(
   f: number,
   map: Int32Array,
 ): void {
-  for (let r = p1; r < nrd; r++) {
-    const rowR = od + r * w;
-    const tbase = os + map[rows[r0d + r]] * nc - f;
-    const cEnd = r < p2 ? r + 1 : p2;
+  let r = p1;
+  for (; r + 1 < nrd; r += 2) {
+    const a0 = od + r * w;
+    const a1 = a0 + w;
+    const t0 = os + map[rows[r0d + r]] * nc - f;
+    const t1 = os + map[rows[r0d + r + 1]] * nc - f;
+    const cEnd0 = r < p2 ? r + 1 : p2;
+    const cEnd1 = r + 1 < p2 ? r + 2 : p2;
     let c = p1;
-    for (; c + 1 < cEnd; c += 2) {
-      const rowC = od + c * w;
-      const rowC1 = rowC + w;
-      let s0 = 0;
-      let s1 = 0;
+    for (; c + 1 < cEnd0; c += 2) {
+      const b0 = od + c * w;
+      const b1 = b0 + w;
+      let s00 = 0;
+      let s01 = 0;
+      let s10 = 0;
+      let s11 = 0;
       for (let k = 0; k < w; k++) {
-        const a = Lx[rowR + k];
-        s0 += a * Lx[rowC + k];
-        s1 += a * Lx[rowC1 + k];
+        const x0 = Lx[a0 + k];
+        const x1 = Lx[a1 + k];
+        const y0 = Lx[b0 + k];
+        const y1 = Lx[b1 + k];
+        s00 += x0 * y0;
+        s01 += x0 * y1;
+        s10 += x1 * y0;
+        s11 += x1 * y1;
       }
-      Lx[tbase + rows[r0d + c]] -= s0;
-      Lx[tbase + rows[r0d + c + 1]] -= s1;
+      const c0 = rows[r0d + c];
+      const c1 = rows[r0d + c + 1];
+      Lx[t0 + c0] -= s00;
+      Lx[t0 + c1] -= s01;
+      Lx[t1 + c0] -= s10;
+      Lx[t1 + c1] -= s11;
     }
-    if (c < cEnd) {
-      const rowC = od + c * w;
-      let s0 = 0;
-      for (let k = 0; k < w; k++) s0 += Lx[rowR + k] * Lx[rowC + k];
-      Lx[tbase + rows[r0d + c]] -= s0;
+    if (c < cEnd0) {
+      const b0 = od + c * w;
+      let s00 = 0;
+      let s10 = 0;
+      for (let k = 0; k < w; k++) {
+        const y0 = Lx[b0 + k];
+        s00 += Lx[a0 + k] * y0;
+        s10 += Lx[a1 + k] * y0;
+      }
+      const c0 = rows[r0d + c];
+      Lx[t0 + c0] -= s00;
+      Lx[t1 + c0] -= s10;
+      c++;
+    }
+    for (; c < cEnd1; c++) {
+      const b0 = od + c * w;
+      let s10 = 0;
+      for (let k = 0; k < w; k++) s10 += Lx[a1 + k] * Lx[b0 + k];
+      Lx[t1 + rows[r0d + c]] -= s10;
+    }
+  }
+  if (r < nrd) {
+    const a0 = od + r * w;
+    const t0 = os + map[rows[r0d + r]] * nc - f;
+    const cEnd0 = r < p2 ? r + 1 : p2;
+    for (let c = p1; c < cEnd0; c++) {
+      const b0 = od + c * w;
+      let s00 = 0;
+      for (let k = 0; k < w; k++) s00 += Lx[a0 + k] * Lx[b0 + k];
+      Lx[t0 + rows[r0d + c]] -= s00;
     }
   }
 }
 
-/** Dense Cholesky of the diagonal block and triangular solve for the rows below it. */
+/**
+ * Dense Cholesky of a supernode's nr × nc row-major block (diagonal block on top, rows below
+ * solved against it), left-looking over column blocks of width NB.
+ */
 function factorBlock(
   Lx: Float64Array,
   os: number,
@@ -121,30 +173,151 @@ function factorBlock(
   perm: Int32Array,
   tol: number,
 ): void {
-  for (let i = 0; i < nc; i++) {
-    const rowI = os + i * nc;
-    for (let j = 0; j < i; j++) {
-      const rowJ = os + j * nc;
-      let s = Lx[rowI + j];
-      for (let k = 0; k < j; k++) s -= Lx[rowI + k] * Lx[rowJ + k];
-      Lx[rowI + j] = s / Lx[rowJ + j];
+  for (let j0 = 0; j0 < nc; j0 += NB) {
+    const j1 = Math.min(nc, j0 + NB);
+    if (j0 > 0) blockUpdate(Lx, os, nc, nr, j0, j1);
+    // diagonal block columns j0..j1-1
+    for (let i = j0; i < j1; i++) {
+      const rowI = os + i * nc;
+      for (let j = j0; j < i; j++) {
+        const rowJ = os + j * nc;
+        let s = Lx[rowI + j];
+        for (let k = j0; k < j; k++) s -= Lx[rowI + k] * Lx[rowJ + k];
+        Lx[rowI + j] = s / Lx[rowJ + j];
+      }
+      let s = Lx[rowI + i];
+      for (let k = j0; k < i; k++) s -= Lx[rowI + k] * Lx[rowI + k];
+      const dj = origDiag[f + i];
+      const thr = tol * Math.abs(dj);
+      if (!(s > thr)) {
+        throw new SingularMatrixError(perm[f + i], s < -thr ? 'negative' : 'zero', s, dj);
+      }
+      Lx[rowI + i] = Math.sqrt(s);
     }
-    let s = Lx[rowI + i];
-    for (let k = 0; k < i; k++) s -= Lx[rowI + k] * Lx[rowI + k];
-    const dj = origDiag[f + i];
-    const thr = tol * Math.abs(dj);
-    if (!(s > thr)) {
-      throw new SingularMatrixError(perm[f + i], s < -thr ? 'negative' : 'zero', s, dj);
-    }
-    Lx[rowI + i] = Math.sqrt(s);
+    // rows below the diagonal block, columns j0..j1-1
+    for (let j = j0; j < j1; j++) inv[j - j0] = 1 / Lx[os + j * nc + j];
+    trsmRows(Lx, os, nc, nr, j0, j1, inv);
   }
-  for (let r = nc; r < nr; r++) {
-    const rowR = os + r * nc;
-    for (let j = 0; j < nc; j++) {
-      const rowJ = os + j * nc;
-      let s = Lx[rowR + j];
-      for (let k = 0; k < j; k++) s -= Lx[rowR + k] * Lx[rowJ + k];
-      Lx[rowR + j] = s / Lx[rowJ + j];
+}
+
+/**
+ * Solves rows j1..nr-1 of columns j0..j1-1 against the factored diagonal block
+ * (L[r, j] = (L[r, j] − Σ_{j0≤k<j} L[r, k]·L[j, k]) / L[j, j]), two rows by two columns at a time.
+ */
+function trsmRows(Lx: Float64Array, os: number, nc: number, nr: number, j0: number, j1: number, inv: Float64Array): void {
+  let r = j1;
+  for (; r + 1 < nr; r += 2) {
+    const a0 = os + r * nc;
+    const a1 = a0 + nc;
+    let j = j0;
+    for (; j + 1 < j1; j += 2) {
+      const b0 = os + j * nc;
+      const b1 = b0 + nc;
+      let s00 = Lx[a0 + j];
+      let s01 = Lx[a0 + j + 1];
+      let s10 = Lx[a1 + j];
+      let s11 = Lx[a1 + j + 1];
+      for (let k = j0; k < j; k++) {
+        const x0 = Lx[a0 + k];
+        const x1 = Lx[a1 + k];
+        const y0 = Lx[b0 + k];
+        const y1 = Lx[b1 + k];
+        s00 -= x0 * y0;
+        s01 -= x0 * y1;
+        s10 -= x1 * y0;
+        s11 -= x1 * y1;
+      }
+      const l00 = s00 * inv[j - j0];
+      const l10 = s10 * inv[j - j0];
+      const c = Lx[b1 + j];
+      Lx[a0 + j] = l00;
+      Lx[a1 + j] = l10;
+      Lx[a0 + j + 1] = (s01 - l00 * c) * inv[j + 1 - j0];
+      Lx[a1 + j + 1] = (s11 - l10 * c) * inv[j + 1 - j0];
+    }
+    if (j < j1) {
+      const b0 = os + j * nc;
+      let s00 = Lx[a0 + j];
+      let s10 = Lx[a1 + j];
+      for (let k = j0; k < j; k++) {
+        const y0 = Lx[b0 + k];
+        s00 -= Lx[a0 + k] * y0;
+        s10 -= Lx[a1 + k] * y0;
+      }
+      Lx[a0 + j] = s00 * inv[j - j0];
+      Lx[a1 + j] = s10 * inv[j - j0];
+    }
+  }
+  if (r < nr) {
+    const a0 = os + r * nc;
+    for (let j = j0; j < j1; j++) {
+      const b0 = os + j * nc;
+      let s = Lx[a0 + j];
+      for (let k = j0; k < j; k++) s -= Lx[a0 + k] * Lx[b0 + k];
+      Lx[a0 + j] = s * inv[j - j0];
+    }
+  }
+}
+
+/** L[r, c] −= L[r, 0:j0] · L[c, 0:j0] for rows r ≥ j0 and columns j0 ≤ c < j1, c ≤ r. */
+function blockUpdate(Lx: Float64Array, os: number, nc: number, nr: number, j0: number, j1: number): void {
+  let r = j0;
+  for (; r + 1 < nr; r += 2) {
+    const a0 = os + r * nc;
+    const a1 = a0 + nc;
+    const cEnd0 = r < j1 ? r + 1 : j1;
+    const cEnd1 = r + 1 < j1 ? r + 2 : j1;
+    let c = j0;
+    for (; c + 1 < cEnd0; c += 2) {
+      const b0 = os + c * nc;
+      const b1 = b0 + nc;
+      let s00 = 0;
+      let s01 = 0;
+      let s10 = 0;
+      let s11 = 0;
+      for (let k = 0; k < j0; k++) {
+        const x0 = Lx[a0 + k];
+        const x1 = Lx[a1 + k];
+        const y0 = Lx[b0 + k];
+        const y1 = Lx[b1 + k];
+        s00 += x0 * y0;
+        s01 += x0 * y1;
+        s10 += x1 * y0;
+        s11 += x1 * y1;
+      }
+      Lx[a0 + c] -= s00;
+      Lx[a0 + c + 1] -= s01;
+      Lx[a1 + c] -= s10;
+      Lx[a1 + c + 1] -= s11;
+    }
+    if (c < cEnd0) {
+      const b0 = os + c * nc;
+      let s00 = 0;
+      let s10 = 0;
+      for (let k = 0; k < j0; k++) {
+        const y0 = Lx[b0 + k];
+        s00 += Lx[a0 + k] * y0;
+        s10 += Lx[a1 + k] * y0;
+      }
+      Lx[a0 + c] -= s00;
+      Lx[a1 + c] -= s10;
+      c++;
+    }
+    for (; c < cEnd1; c++) {
+      const b0 = os + c * nc;
+      let s10 = 0;
+      for (let k = 0; k < j0; k++) s10 += Lx[a1 + k] * Lx[b0 + k];
+      Lx[a1 + c] -= s10;
+    }
+  }
+  if (r < nr) {
+    const a0 = os + r * nc;
+    const cEnd0 = r < j1 ? r + 1 : j1;
+    for (let c = j0; c < cEnd0; c++) {
+      const b0 = os + c * nc;
+      let s00 = 0;
+      for (let k = 0; k < j0; k++) s00 += Lx[a0 + k] * Lx[b0 + k];
+      Lx[a0 + c] -= s00;
     }
   }
 }
