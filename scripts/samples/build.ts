@@ -1,0 +1,53 @@
+/**
+ * Writes every demo model of models.ts as samples/<name>/<name>.xlsx (a sheet per table)
+ * and samples/<name>/csv/<table>.csv from the same tables, so the two never drift.
+ * Run: npx tsx scripts/samples/build.ts
+ */
+import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import ExcelJS from 'exceljs';
+import { SAMPLES, type SampleModel, type Value } from './models.js';
+
+const ROOT = resolve(import.meta.dirname, '..', '..', 'samples');
+/** fixed so that a rebuild without changes gives the same files */
+const STAMP = new Date('2026-01-01T00:00:00Z');
+
+function csvField(v: Value): string {
+  if (v === null) return '';
+  const s = typeof v === 'number' ? String(v) : v;
+  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}
+
+export function tableCsv(rows: Value[][]): string {
+  return rows.map((r) => r.map(csvField).join(',')).join('\n') + '\n';
+}
+
+export async function workbookOf(sample: SampleModel): Promise<Buffer> {
+  const wb = new ExcelJS.Workbook();
+  wb.creator = 'Trestle samples';
+  wb.created = STAMP;
+  wb.modified = STAMP;
+  for (const [name, rows] of Object.entries(sample.tables)) {
+    const ws = wb.addWorksheet(name);
+    for (const r of rows) ws.addRow(r.map((v) => (v === null ? null : v)));
+    ws.getRow(1).font = { bold: true };
+    ws.columns.forEach((c, i) => {
+      c.width = Math.max(10, ...rows.map((r) => String(r[i] ?? '').length + 2));
+    });
+  }
+  return Buffer.from(await wb.xlsx.writeBuffer());
+}
+
+async function main(): Promise<void> {
+  for (const make of SAMPLES) {
+    const sample = make();
+    const dir = join(ROOT, sample.name);
+    rmSync(join(dir, 'csv'), { recursive: true, force: true });
+    mkdirSync(join(dir, 'csv'), { recursive: true });
+    for (const [name, rows] of Object.entries(sample.tables)) writeFileSync(join(dir, 'csv', `${name}.csv`), tableCsv(rows));
+    writeFileSync(join(dir, `${sample.name}.xlsx`), await workbookOf(sample));
+    console.log(`${sample.name}: ${Object.keys(sample.tables).length} tables`);
+  }
+}
+
+await main();
