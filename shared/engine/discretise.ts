@@ -7,6 +7,7 @@
 import type { Material, Model, Release, Section } from '../model/types.js';
 import { localAxes } from './axes.js';
 import type { EndReleases } from './element.js';
+import { GAUSS3_T, GAUSS3_W } from './gauss.js';
 import { type PropsAt, propsAlong } from './taper.js';
 
 export const FREE = 0, SUPPORT = 1, PLANE = 2, NO_STIFFNESS = 3;
@@ -126,10 +127,15 @@ export function buildMesh(model: Model, opts: MeshOptions): Mesh {
       // equivalent uniform properties of the piece: harmonic means over 3 Gauss points
       // (exact flexibility of the piece under constant force / moment)
       let fA = 0, fIy = 0, fIz = 0, fJ = 0, dep = 0;
-      const gt = [0.5 - Math.sqrt(0.15), 0.5, 0.5 + Math.sqrt(0.15)], gw = [5 / 18, 8 / 18, 5 / 18];
-      for (let g = 0; g < 3; g++) {
-        const q = props(t0 + (t1 - t0) * gt[g]);
-        fA += gw[g] / q.A; fIy += gw[g] / q.Iy; fIz += gw[g] / q.Iz; fJ += gw[g] / q.J; dep += gw[g] * q.depth;
+      if (tapered) {
+        for (let g = 0; g < 3; g++) {
+          const q = props(t0 + (t1 - t0) * GAUSS3_T[g]);
+          const w = GAUSS3_W[g];
+          fA += w / q.A; fIy += w / q.Iy; fIz += w / q.Iz; fJ += w / q.J; dep += w * q.depth;
+        }
+      } else {
+        const q = props(0);
+        fA = 1 / q.A; fIy = 1 / q.Iy; fIz = 1 / q.Iz; fJ = 1 / q.J; dep = q.depth;
       }
       elStart.push(prev); elEnd.push(next); elMember.push(mi);
       elX0.push(t0 * L); elL.push((t1 - t0) * L);

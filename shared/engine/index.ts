@@ -5,11 +5,11 @@
  */
 import type { Model } from '../model/types.js';
 import { type FactorOptions, type Factorisation, SingularMatrixError, type SymmetricCsc } from '../solver/types.js';
-import { vecToGlobal12, vecToLocal12 } from './axes.js';
-import { FREE, NO_STIFFNESS } from './discretise.js';
+import { vecToLocal12 } from './axes.js';
 import { appliedTotals, reactionTotals } from './equilibrium.js';
 import { instabilityAt } from './instability.js';
 import type { LoadSet } from './loadSet.js';
+import { computeReactions } from './reactions.js';
 import { caseStations, memberStations, ROWS } from './recovery.js';
 import { factorise as defaultFactorise } from './solverBridge.js';
 import { buildSystem, elementLocal } from './system.js';
@@ -38,9 +38,9 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
   const timings: Record<string, number> = {};
   let t = now();
   const sys = buildSystem(model, taperSegments, timings);
-  const { mesh, nCases, loadSets, kgAll, status, eq, nEq, eqDof, pat, F, presc, fefOf, nodeIndex, caseIndex } = sys;
-  const nNodes = mesh.nNodes, nDofAll = nNodes * 6, nEl = mesh.nElements;
-  const kl = new Float64Array(144), fg = new Float64Array(12), ue = new Float64Array(12);
+  const { mesh, nCases, loadSets, eq, nEq, eqDof, pat, F, presc, fefOf, nodeIndex, caseIndex } = sys;
+  const nNodes = mesh.nNodes, nDofAll = nNodes * 6;
+  const kl = new Float64Array(144), ue = new Float64Array(12);
   t = now();
 
   // factorise once, solve all cases as one block
@@ -76,40 +76,7 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
   }
 
   // reactions at restrained freedoms and springs
-  const Rall = new Float64Array(nDofAll * nCases);
-  const reactive = new Uint8Array(nNodes);
-  for (let g = 0; g < nDofAll; g++) if ((status[g] !== FREE && status[g] !== NO_STIFFNESS) || mesh.springs[g] !== 0) reactive[Math.floor(g / 6)] = 1;
-  for (let e = 0; e < nEl; e++) {
-    const ni = mesh.elStart[e], nj = mesh.elEnd[e];
-    if (!reactive[ni] && !reactive[nj]) continue;
-    const R = mesh.members[mesh.elMember[e]].R;
-    const o = e * 144;
-    for (let c = 0; c < nCases; c++) {
-      const uo = c * nDofAll;
-      for (let k = 0; k < 6; k++) { ue[k] = U[uo + ni * 6 + k]; ue[6 + k] = U[uo + nj * 6 + k]; }
-      const fef = fefOf(e, c);
-      if (fef) vecToGlobal12(R, fef, fg);
-      else fg.fill(0);
-      for (let i = 0; i < 12; i++) {
-        const g = i < 6 ? ni * 6 + i : nj * 6 + i - 6;
-        if (!reactive[Math.floor(g / 6)] || status[g] === FREE || status[g] === NO_STIFFNESS) continue;
-        let s = fg[i];
-        for (let j = 0; j < 12; j++) s += kgAll[o + i * 12 + j] * ue[j];
-        Rall[uo + g] += s;
-      }
-    }
-  }
-  for (const nl of model.nodeLoads) {
-    const n = nodeIndex.get(nl.node)!, c = caseIndex.get(nl.case)!;
-    for (let k = 0; k < 6; k++) {
-      const g = n * 6 + k;
-      if (status[g] !== FREE && status[g] !== NO_STIFFNESS) Rall[c * nDofAll + g] -= nl.values[k];
-    }
-  }
-  for (let g = 0; g < nDofAll; g++) {
-    const k = mesh.springs[g];
-    if (k !== 0 && eq[g] >= 0) for (let c = 0; c < nCases; c++) Rall[c * nDofAll + g] = -k * U[c * nDofAll + g];
-  }
+  const Rall = computeReactions(model, sys, U);
 
   // loadings: cases, then combinations
   const loadings: Loading[] = model.cases.map((c, i) => ({ id: c.id, kind: 'case', limitState: null, terms: [{ caseIndex: i, factor: 1 }] }));
@@ -205,7 +172,8 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
       const ld = checkLoading(l);
       memberCases(mi);
       const nSt = cacheX.length;
-      const rows = Array.from({ length: ROWS }, () => new Float64Array(nSt));
+      const buf = new Float64Array(ROWS * nSt);
+      const rows = Array.from({ length: ROWS }, (_, r) => buf.subarray(r * nSt, (r + 1) * nSt));
       for (const { caseIndex: c, factor } of ld.terms) {
         const o = c * ROWS * nSt;
         for (let r = 0; r < ROWS; r++) {

@@ -39,9 +39,13 @@ export function memberStations(L: number, sets: (LoadSet | undefined)[]): Float6
  * (local, forces the start node applies to the member).
  */
 export function caseStations(m: MemberInfo, lsIn: LoadSet | undefined, f1: ArrayLike<number>, xs: Float64Array, out: Float64Array, outOff: number): void {
-  const ls = lsIn ?? EMPTY;
   const nSt = xs.length;
   const L = m.L;
+  if (!lsIn && !m.tapered) {
+    unloadedStations(m, f1, xs, out, outOff);
+    return;
+  }
+  const ls = lsIn ?? EMPTY;
   const s = new Float64Array(6);
   for (let i = 0; i < nSt; i++) {
     internalForces(ls, f1, xs[i], xs[i] <= 0, s);
@@ -79,5 +83,29 @@ export function caseStations(m: MemberInfo, lsIn: LoadSet | undefined, f1: Array
     while (k + 1 < nP && Math.abs(P[k + 1] - x) <= Math.abs(P[k] - x)) k++;
     out[outOff + 6 * nSt + i] = i === 0 || i === nSt - 1 ? 0 : x * Amaj[k] - Bmaj[k] - x * cMaj;
     out[outOff + 7 * nSt + i] = i === 0 || i === nSt - 1 ? 0 : x * Amin[k] - Bmin[k] - x * cMin;
+  }
+}
+
+/**
+ * A prismatic member without span loads: constant N, V, T; linear M; and with the linear
+ * curvature κ(x) = κ0 + (κL − κ0)x/L the chord deflection
+ *   d(x) = κ0 x²/2 + (κL − κ0) x³/(6L) − x L (2κ0 + κL)/6.
+ */
+function unloadedStations(m: MemberInfo, f1: ArrayLike<number>, xs: Float64Array, out: Float64Array, o: number): void {
+  const nSt = xs.length, L = m.L;
+  const p = m.props(0), E = m.material.E;
+  const k0maj = f1[4] / (E * p.Iy), kLmaj = (f1[4] + L * f1[2]) / (E * p.Iy);
+  const k0min = -f1[5] / (E * p.Iz), kLmin = (-f1[5] + L * f1[1]) / (E * p.Iz);
+  for (let i = 0; i < nSt; i++) {
+    const x = xs[i];
+    out[o + i] = -f1[0];
+    out[o + nSt + i] = f1[2];
+    out[o + 2 * nSt + i] = f1[1];
+    out[o + 3 * nSt + i] = -f1[3];
+    out[o + 4 * nSt + i] = f1[4] + x * f1[2];
+    out[o + 5 * nSt + i] = -f1[5] + x * f1[1];
+    const end = i === 0 || i === nSt - 1;
+    out[o + 6 * nSt + i] = end ? 0 : (k0maj * x * x) / 2 + ((kLmaj - k0maj) * x * x * x) / (6 * L) - (x * L * (2 * k0maj + kLmaj)) / 6;
+    out[o + 7 * nSt + i] = end ? 0 : (k0min * x * x) / 2 + ((kLmin - k0min) * x * x * x) / (6 * L) - (x * L * (2 * k0min + kLmin)) / 6;
   }
 }

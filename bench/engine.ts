@@ -1,0 +1,233 @@
+/**
+ * Engine benchmark on synthetic models (demo data of our own): 3D building frames of
+ * nx × ny bays × storeys (columns, beams, a braced bay on two faces) and a long plane truss,
+ * 20 load cases and 30 combinations. Prints per phase: read/validate (readTables on generated
+ * rows), assembly, loads, ordering, factorisation, 20-case block solve, recovery of every
+ * member for every loading, nnz of K and of the factor, peak memory.
+ *
+ * Hooks for other benches: buildFrameModel(nx, ny, storeys), buildTrussModel(panels),
+ * modelTables(model), benchEngine(...).
+ */
+import { performance } from 'node:perf_hooks';
+import { analyse } from '../shared/engine/index.js';
+import type { Combination, LoadCase, Member, MemberLoad, Model, NodeLoad, Section, Support } from '../shared/model/types.js';
+import type { RawTable } from '../shared/reader/index.js';
+
+const BAY = 6, STOREY = 3.5;
+const E = 210e9, NU = 0.3;
+
+function baseModel(vertical: 'Z', planeNormal: 'Y' | null): Model {
+  return {
+    settings: {
+      title: 'bench', units: 'metric', verticalAxis: vertical, designCode: 'none', combinationRule: 'table',
+      deflectionLimit: 360, gammaM0: 1, gammaM1: 1, gammaM2: 1.25,
+    },
+    inferred: { verticalAxisInferred: false, planeFrame: planeNormal ? { plane: 'XZ', normal: planeNormal } : null, defaulted: [] },
+    nodes: [], supports: [], materials: [{ id: 'steel', E, nu: NU, G: E / (2 * (1 + NU)), density: 7850, alpha: 12e-6, fy: 355e6, fu: 510e6 }],
+    sections: [], members: [], cases: [], nodeLoads: [], memberLoads: [], settlements: [], combinations: [],
+    vehicles: [], lanes: [], movingLoads: [],
+  };
+}
+
+function customSection(id: string, A: number, Iy: number, Iz: number, J: number, depth: number): Section {
+  return {
+    id, shape: 'custom', dims: {},
+    props: { A, I_major: Iy, I_minor: Iz, J, Cw: 0, S_major: Iy / (depth / 2), S_minor: Iz / 0.1, Z_major: 1.12 * Iy / (depth / 2), Z_minor: 1.5 * Iz / 0.1, Av_major: A / 2, Av_minor: A / 2, depth },
+    given: ['A', 'I_major', 'I_minor', 'J', 'depth'],
+  };
+}
+
+const FIXED: Support['restrained'] = [true, true, true, true, true, true];
+const NO_SPRINGS: Support['springs'] = [0, 0, 0, 0, 0, 0];
+
+function member(id: string, start: string, end: string, section: string, type: Member['type'] = 'frame', group?: string): Member {
+  return { id, start, end, section, material: 'steel', type, roll: 0, releaseStart: 'fixed', releaseEnd: 'fixed', kMajor: 1, kMinor: 1, group };
+}
+
+function cases20(): LoadCase[] {
+  const out: LoadCase[] = [
+    { id: 'D', category: 'dead', title: 'self weight and finishes', selfWeight: 1 },
+    { id: 'L', category: 'live', title: 'imposed', selfWeight: 0 },
+  ];
+  for (let i = 2; i < 20; i++) out.push({ id: `W${i}`, category: i % 3 === 0 ? 'snow' : 'wind', title: `case ${i}`, selfWeight: 0 });
+  return out;
+}
+
+function combinations30(cases: LoadCase[]): Combination[] {
+  const out: Combination[] = [];
+  for (let i = 0; i < 30; i++) {
+    const other = cases[2 + (i % 18)].id;
+    out.push({
+      id: `C${i + 1}`, limitState: i % 5 === 4 ? 'service' : 'strength',
+      terms: [{ case: 'D', factor: 1.2 }, { case: 'L', factor: i % 2 ? 1.6 : 0.5 }, { case: other, factor: i % 2 ? 0.5 : 1.0 }],
+    });
+  }
+  return out;
+}
+
+/** A 3D building frame: nx × ny bays of 6 m, storeys of 3.5 m, Z up, fixed bases. */
+export function buildFrameModel(nx: number, ny: number, storeys: number): Model {
+  const m = baseModel('Z', null);
+  m.sections.push(customSection('COL', 1.5e-2, 2.5e-4, 8e-5, 2e-6, 0.35), customSection('BEAM', 8e-3, 1.6e-4, 6e-6, 4e-7, 0.45), customSection('BR', 3e-3, 1e-6, 1e-6, 1e-7, 0.1));
+  const id = (i: number, j: number, k: number) => `N${i}_${j}_${k}`;
+  for (let k = 0; k <= storeys; k++)
+    for (let j = 0; j <= ny; j++)
+      for (let i = 0; i <= nx; i++) {
+        m.nodes.push({ id: id(i, j, k), x: i * BAY, y: j * BAY, z: k * STOREY });
+        if (k === 0) m.supports.push({ node: id(i, j, k), restrained: FIXED, springs: NO_SPRINGS });
+      }
+  const beams: string[] = [];
+  for (let k = 1; k <= storeys; k++) {
+    for (let j = 0; j <= ny; j++)
+      for (let i = 0; i <= nx; i++) {
+        m.members.push(member(`C${i}_${j}_${k}`, id(i, j, k - 1), id(i, j, k), 'COL', 'frame', 'columns'));
+        if (i < nx) { const b = `BX${i}_${j}_${k}`; m.members.push(member(b, id(i, j, k), id(i + 1, j, k), 'BEAM', 'frame', 'beams')); beams.push(b); }
+        if (j < ny) { const b = `BY${i}_${j}_${k}`; m.members.push(member(b, id(i, j, k), id(i, j + 1, k), 'BEAM', 'frame', 'beams')); beams.push(b); }
+      }
+    // braces: first bay of the two X faces, alternating direction
+    for (const j of [0, ny]) {
+      const [a, b] = k % 2 ? [0, 1] : [1, 0];
+      m.members.push(member(`X${j}_${k}`, id(a, j, k - 1), id(b, j, k), 'BR', 'truss', 'braces'));
+    }
+  }
+  m.cases = cases20();
+  addLoads(m, beams, (k) => m.nodes.filter((n) => n.x === 0 && n.z === k * STOREY).map((n) => n.id), storeys);
+  m.combinations = combinations30(m.cases);
+  return m;
+}
+
+function addLoads(m: Model, beams: string[], edgeNodes: (level: number) => string[], levels: number): void {
+  const ml: MemberLoad[] = m.memberLoads, nl: NodeLoad[] = m.nodeLoads;
+  for (const b of beams) {
+    ml.push({ case: 'D', member: b, kind: 'uniform', direction: 'global_z', a: 0, b: BAY, w1: -6e3, w2: -6e3 });
+    ml.push({ case: 'L', member: b, kind: 'uniform', direction: 'global_z', a: 0, b: BAY, w1: -9e3, w2: -9e3 });
+  }
+  for (let c = 2; c < 20; c++) {
+    const id = m.cases[c].id;
+    if (c % 3 === 0) {
+      // point loads on every 7th beam at a case-dependent position
+      for (let i = c % 7; i < beams.length; i += 7) {
+        ml.push({ case: id, member: beams[i], kind: 'point', direction: 'global_z', a: 0.5 + (c % 5), b: 0.5 + (c % 5), w1: -12e3, w2: -12e3 });
+      }
+    } else {
+      for (let k = 1; k <= levels; k++) {
+        for (const n of edgeNodes(k)) nl.push({ case: id, node: n, values: c % 2 ? [4e3 * (c / 10), 0, 0, 0, 0, 0] : [0, 3e3 * (c / 10), 0, 0, 0, 0] });
+      }
+    }
+  }
+}
+
+/** A long plane Pratt truss in the XZ plane: 3 m panels, 4 m deep, 4·panels + 1 members. */
+export function buildTrussModel(panels: number): Model {
+  const m = baseModel('Z', 'Y');
+  m.sections.push(customSection('CH', 6e-3, 5e-5, 5e-5, 1e-6, 0.2), customSection('WEB', 3e-3, 1e-5, 1e-5, 1e-7, 0.15));
+  for (let i = 0; i <= panels; i++) {
+    m.nodes.push({ id: `B${i}`, x: 3 * i, y: 0, z: 0 }, { id: `T${i}`, x: 3 * i, y: 0, z: 4 });
+  }
+  m.supports.push({ node: 'B0', restrained: [true, true, true, false, false, false], springs: NO_SPRINGS });
+  m.supports.push({ node: `B${panels}`, restrained: [false, true, true, false, false, false], springs: NO_SPRINGS });
+  // intermediate supports every 50 panels keep the deflections of a very long truss sensible
+  for (let i = 50; i < panels; i += 50) m.supports.push({ node: `B${i}`, restrained: [false, true, true, false, false, false], springs: NO_SPRINGS });
+  for (let i = 0; i < panels; i++) {
+    m.members.push(member(`BC${i}`, `B${i}`, `B${i + 1}`, 'CH', 'truss'), member(`TC${i}`, `T${i}`, `T${i + 1}`, 'CH', 'truss'));
+    m.members.push(i < panels / 2 ? member(`D${i}`, `T${i}`, `B${i + 1}`, 'WEB', 'truss') : member(`D${i}`, `B${i}`, `T${i + 1}`, 'WEB', 'truss'));
+  }
+  for (let i = 0; i <= panels; i++) m.members.push(member(`V${i}`, `B${i}`, `T${i}`, 'WEB', 'truss'));
+  m.cases = cases20();
+  for (let c = 0; c < 20; c++) {
+    for (let i = c % 3; i <= panels; i += 3) m.nodeLoads.push({ case: m.cases[c].id, node: `T${i}`, values: [c % 4 ? 0 : 2e3, 0, -(10e3 + 500 * c), 0, 0, 0] });
+  }
+  m.combinations = combinations30(m.cases);
+  return m;
+}
+
+/** The model written back as raw tables (SI units in the headers), for timing the reader. */
+export function modelTables(m: Model): RawTable[] {
+  const t = (name: string, header: string[], rows: (string | number)[][]): RawTable => ({ name, rows: [header, ...rows], source: 'csv' });
+  const b = (v: boolean) => (v ? 1 : 0);
+  return [
+    t('settings', ['key', 'value'], [['units', 'metric'], ['vertical_axis', m.settings.verticalAxis]]),
+    t('materials', ['material', 'E [Pa]', 'nu', 'fy [Pa]', 'fu [Pa]', 'density [kg/m3]', 'alpha [1/C]'],
+      m.materials.map((x) => [x.id, x.E, x.nu, x.fy ?? '', x.fu ?? '', x.density, x.alpha])),
+    t('sections', ['section', 'shape', 'A [m2]', 'I_major [m4]', 'I_minor [m4]', 'J [m4]', 'depth [m]'],
+      m.sections.map((s) => [s.id, s.shape, s.props.A, s.props.I_major, s.props.I_minor, s.props.J, s.props.depth])),
+    t('nodes', ['node', 'x [m]', 'y [m]', 'z [m]'], m.nodes.map((n) => [n.id, n.x, n.y, n.z])),
+    t('supports', ['node', 'ux', 'uy', 'uz', 'rx', 'ry', 'rz'], m.supports.map((s) => [s.node, ...s.restrained.map(b)])),
+    t('members', ['member', 'start', 'end', 'section', 'material', 'type', 'group'],
+      m.members.map((x) => [x.id, x.start, x.end, x.section, x.material, x.type, x.group ?? ''])),
+    t('cases', ['case', 'category', 'title', 'self_weight'], m.cases.map((c) => [c.id, c.category, c.title, c.selfWeight])),
+    t('node_loads', ['case', 'node', 'fx [N]', 'fy [N]', 'fz [N]', 'mx [Nm]', 'my [Nm]', 'mz [Nm]'], m.nodeLoads.map((l) => [l.case, l.node, ...l.values])),
+    // w1/w2 take the system's unit (kN/m, kN for metric)
+    t('member_loads', ['case', 'member', 'kind', 'direction', 'a [m]', 'b [m]', 'w1', 'w2'],
+      m.memberLoads.map((l) => [l.case, l.member, l.kind, l.direction, l.a, l.b, l.w1 / 1e3, l.w2 / 1e3])),
+    t('combinations', ['combination', 'case', 'factor', 'limit_state'],
+      m.combinations.flatMap((c) => c.terms.map((tm) => [c.id, tm.case, tm.factor, c.limitState]))),
+  ];
+}
+
+export interface EngineBenchRow {
+  name: string;
+  members: number;
+  freedoms: number;
+  cases: number;
+  loadings: number;
+  buildMs: number;
+  readMs: number | null;
+  timings: Record<string, number>;
+  /** assembly + ordering + factorisation + solve */
+  coreMs: number;
+  recoveryAllMs: number;
+  nnzK: number;
+  nnzFactor: number;
+  peakRssMb: number;
+  maxResidual: number;
+}
+
+type ReadTables = (tables: RawTable[]) => { ok: boolean };
+
+/** Analyse one synthetic model and time every phase. `read` = the reader, when available. */
+export function benchEngine(name: string, build: () => Model, read: ReadTables | null, recover = true): EngineBenchRow {
+  let t = performance.now();
+  const model = build();
+  const buildMs = performance.now() - t;
+  let readMs: number | null = null;
+  if (read) {
+    const tables = modelTables(model);
+    t = performance.now();
+    const res = read(tables);
+    readMs = performance.now() - t;
+    if (!res.ok) throw new Error(`${name}: the generated tables did not read: ${JSON.stringify((res as { problems?: unknown[] }).problems?.slice(0, 3))}`);
+  }
+  const r = analyse(model);
+  const tm = r.diagnostics.timings;
+  let recoveryAllMs = 0;
+  if (recover) {
+    t = performance.now();
+    let sink = 0;
+    for (let mi = 0; mi < r.memberIds.length; mi++) {
+      for (let l = 0; l < r.loadings.length; l++) sink += r.memberForces(mi, l).M_major[0];
+    }
+    recoveryAllMs = performance.now() - t;
+    if (!Number.isFinite(sink)) throw new Error('non-finite member forces');
+  }
+  return {
+    name, members: model.members.length, freedoms: r.diagnostics.freedoms, cases: r.diagnostics.cases, loadings: r.loadings.length,
+    buildMs, readMs, timings: tm,
+    coreMs: (tm.assembly ?? 0) + (tm.loads ?? 0) + (tm.ordering ?? 0) + (tm.factorisation ?? 0) + (tm.solve ?? 0),
+    recoveryAllMs, nnzK: r.diagnostics.nnzK, nnzFactor: r.diagnostics.nnzFactor,
+    peakRssMb: process.resourceUsage().maxRSS / 1024,
+    maxResidual: Math.max(...r.diagnostics.equilibrium.map((e) => e.residual)),
+  };
+}
+
+export function printEngineRow(r: EngineBenchRow): void {
+  const f = (v: number | null | undefined) => (v === null || v === undefined ? '   -' : v.toFixed(0).padStart(6));
+  const tm = r.timings;
+  console.log(
+    `${r.name.padEnd(26)} members ${String(r.members).padStart(6)}  freedoms ${String(r.freedoms).padStart(7)}  ` +
+    `build ${f(r.buildMs)}  read ${f(r.readMs)}  model ${f(tm.model)}  assembly ${f(tm.assembly)}  loads ${f(tm.loads)}  ` +
+    `ordering ${f(tm.ordering)}  factor ${f(tm.factorisation)}  solve(${r.cases}) ${f(tm.solve)}  reactions/eq ${f(tm.recovery)}  ` +
+    `core ${f(r.coreMs)} ms  recovery(all members × ${r.loadings}) ${f(r.recoveryAllMs)} ms  nnzK ${r.nnzK}  nnzL ${r.nnzFactor}  ` +
+    `peak RSS ${r.peakRssMb.toFixed(0)} MB  max equilibrium residual ${r.maxResidual.toExponential(1)}`,
+  );
+}

@@ -1,0 +1,49 @@
+/**
+ * Support reactions: at a restrained freedom, the sum of the end forces (global) of the
+ * elements meeting there minus the node load applied there; at a spring, −k·u.
+ */
+import type { Model } from '../model/types.js';
+import { vecToGlobal12 } from './axes.js';
+import { PLANE, SUPPORT } from './discretise.js';
+import type { LinearSystem } from './system.js';
+
+/** Reactions of every case, nNodes × 6 per case, case after case. */
+export function computeReactions(model: Model, sys: LinearSystem, U: Float64Array): Float64Array {
+  const { mesh, status, kgAll, nCases, loadSets, fefOf, eq } = sys;
+  const nDofAll = mesh.nNodes * 6;
+  const R = new Float64Array(nDofAll * nCases);
+  const restrained = (g: number) => status[g] === SUPPORT || status[g] === PLANE;
+  const rows = new Int32Array(12);
+  const ue = new Float64Array(12), fg = new Float64Array(12);
+  for (let e = 0; e < mesh.nElements; e++) {
+    const ni = mesh.elStart[e], nj = mesh.elEnd[e];
+    let nr = 0;
+    for (let i = 0; i < 12; i++) if (restrained(i < 6 ? ni * 6 + i : nj * 6 + i - 6)) rows[nr++] = i;
+    if (nr === 0) continue;
+    const mi = mesh.elMember[e];
+    const Rm = mesh.members[mi].R;
+    const o = e * 144;
+    for (let c = 0; c < nCases; c++) {
+      const uo = c * nDofAll;
+      for (let k = 0; k < 6; k++) { ue[k] = U[uo + ni * 6 + k]; ue[6 + k] = U[uo + nj * 6 + k]; }
+      const fef = loadSets[mi * nCases + c] ? fefOf(e, c) : undefined;
+      if (fef) vecToGlobal12(Rm, fef, fg);
+      for (let r = 0; r < nr; r++) {
+        const i = rows[r];
+        let s = fef ? fg[i] : 0;
+        const ko = o + i * 12;
+        for (let j = 0; j < 12; j++) s += kgAll[ko + j] * ue[j];
+        R[uo + (i < 6 ? ni * 6 + i : nj * 6 + i - 6)] += s;
+      }
+    }
+  }
+  for (const nl of model.nodeLoads) {
+    const n = sys.nodeIndex.get(nl.node)!, c = sys.caseIndex.get(nl.case)!;
+    for (let k = 0; k < 6; k++) if (restrained(n * 6 + k)) R[c * nDofAll + n * 6 + k] -= nl.values[k];
+  }
+  for (let g = 0; g < nDofAll; g++) {
+    const k = mesh.springs[g];
+    if (k !== 0 && eq[g] >= 0) for (let c = 0; c < nCases; c++) R[c * nDofAll + g] = -k * U[c * nDofAll + g];
+  }
+  return R;
+}
