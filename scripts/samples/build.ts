@@ -6,21 +6,13 @@
 import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import ExcelJS from 'exceljs';
-import { SAMPLES, type SampleModel, type Value } from './models.js';
+import { tableCsv } from './csv.js';
+import { SAMPLES, type SampleModel } from './models.js';
 
 const ROOT = resolve(import.meta.dirname, '..', '..', 'samples');
 /** fixed so that a rebuild without changes gives the same files */
 const STAMP = new Date('2026-01-01T00:00:00Z');
 
-function csvField(v: Value): string {
-  if (v === null) return '';
-  const s = typeof v === 'number' ? String(v) : v;
-  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-}
-
-export function tableCsv(rows: Value[][]): string {
-  return rows.map((r) => r.map(csvField).join(',')).join('\n') + '\n';
-}
 
 export async function workbookOf(sample: SampleModel): Promise<Buffer> {
   const wb = new ExcelJS.Workbook();
