@@ -76,7 +76,7 @@ export function condense(k: Float64Array, r: number): void {
 }
 
 /** Global element stiffness kg = Tᵀ kl T, T = diag(R, R, R, R). */
-export function toGlobalStiffness(kl: Float64Array, R: ArrayLike<number>, kg: Float64Array, tmp: Float64Array): Float64Array {
+export function toGlobalStiffness(kl: Float64Array, R: ArrayLike<number>, kg: Float64Array, tmp: Float64Array, off = 0): Float64Array {
   // tmp = kl · T  (each 3×3 block times R)
   for (let i = 0; i < 12; i++) {
     for (let bj = 0; bj < 12; bj += 3) {
@@ -90,10 +90,24 @@ export function toGlobalStiffness(kl: Float64Array, R: ArrayLike<number>, kg: Fl
   for (let bi = 0; bi < 12; bi += 3) {
     for (let j = 0; j < 12; j++) {
       const a = tmp[bi * 12 + j], b = tmp[(bi + 1) * 12 + j], c = tmp[(bi + 2) * 12 + j];
-      kg[bi * 12 + j] = R[0] * a + R[3] * b + R[6] * c;
-      kg[(bi + 1) * 12 + j] = R[1] * a + R[4] * b + R[7] * c;
-      kg[(bi + 2) * 12 + j] = R[2] * a + R[5] * b + R[8] * c;
+      kg[off + bi * 12 + j] = R[0] * a + R[3] * b + R[6] * c;
+      kg[off + (bi + 1) * 12 + j] = R[1] * a + R[4] * b + R[7] * c;
+      kg[off + (bi + 2) * 12 + j] = R[2] * a + R[5] * b + R[8] * c;
     }
   }
   return kg;
+}
+
+/** Global truss stiffness directly: k·[c cᵀ, −c cᵀ; −c cᵀ, c cᵀ] on the translations, c = local x. */
+export function trussGlobalStiffness(k: number, R: ArrayLike<number>, kg: Float64Array, off: number): void {
+  kg.fill(0, off, off + 144);
+  for (let i = 0; i < 3; i++) {
+    for (let j = 0; j < 3; j++) {
+      const v = k * R[i] * R[j];
+      kg[off + i * 12 + j] = v;
+      kg[off + (6 + i) * 12 + 6 + j] = v;
+      kg[off + i * 12 + 6 + j] = -v;
+      kg[off + (6 + i) * 12 + j] = -v;
+    }
+  }
 }

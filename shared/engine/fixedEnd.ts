@@ -47,6 +47,34 @@ export function bendingConstants(
 export function fixedEndForces(
   ls: LoadSet, L: number, p: ElementStiffness, depth: number, truss: boolean, rel: EndReleases, out12: Float64Array,
 ): Float64Array {
+  let IN = 0, IT = 0, I0maj = 0, I1maj = 0, I0min = 0, I1min = 0, MLmaj = 0, MLmin = 0;
+  const d = ls.dist;
+  if (d.length === 8 && ls.point.length === 0 && ls.moment.length === 0 && d[0] === 0 && d[1] === L
+    && d[2] === d[5] && d[3] === d[6] && d[4] === d[7]) {
+    // one uniform load over the whole element (self weight, floor loads): M_L = q x²/2,
+    // N_L = −qx·x, so ∫M_L = qL³/6, ∫x·M_L = qL⁴/8, M_L(L) = qL²/2, ∫N_L = −qx·L²/2
+    IN = (-d[2] * L * L) / 2;
+    I0maj = (d[4] * L * L * L) / 6; I1maj = (d[4] * L * L * L * L) / 8; MLmaj = (d[4] * L * L) / 2;
+    I0min = (d[3] * L * L * L) / 6; I1min = (d[3] * L * L * L * L) / 8; MLmin = (d[3] * L * L) / 2;
+  } else {
+    const r = integrateLoadDiagrams(ls, L);
+    IN = r[0]; IT = r[1]; I0maj = r[2]; I1maj = r[3]; I0min = r[4]; I1min = r[5]; MLmaj = r[6]; MLmin = r[7];
+  }
+  const f1 = new Float64Array(6);
+  f1[0] = IN / L + p.EA * ls.eps;
+  if (!truss) f1[3] = IT / L;
+  const kT = ls.grad !== 0 ? -ls.grad / depth : 0;
+  const maj = bendingConstants(truss || rel.startMajor, truss || rel.endMajor, L, I0maj, I1maj, MLmaj, truss ? 0 : p.EIy * kT);
+  const min = bendingConstants(truss || rel.startMinor, truss || rel.endMinor, L, I0min, I1min, MLmin, 0);
+  f1[4] = maj[0];
+  f1[2] = maj[1];
+  f1[5] = -min[0];
+  f1[1] = min[1];
+  return endForcesFromStart(ls, f1, L, out12);
+}
+
+/** ∫N_L, ∫T_L, ∫M_L,maj, ∫x·M_L,maj, ∫M_L,min, ∫x·M_L,min over [0, L], then M_L,maj(L), M_L,min(L). */
+function integrateLoadDiagrams(ls: LoadSet, L: number): number[] {
   const pts = uniqueSorted(loadBreakpoints(ls, L, [0, L]), L * 1e-12);
   let IN = 0, IT = 0, I0maj = 0, I1maj = 0, I0min = 0, I1min = 0;
   const s = new Float64Array(6);
@@ -64,16 +92,5 @@ export function fixedEndForces(
     }
   }
   internalForces(ls, ZERO6, L, true, s);
-  const MLmaj = s[4], MLmin = s[5];
-  const f1 = new Float64Array(6);
-  f1[0] = IN / L + p.EA * ls.eps;
-  if (!truss) f1[3] = IT / L;
-  const kT = ls.grad !== 0 ? -ls.grad / depth : 0;
-  const maj = bendingConstants(truss || rel.startMajor, truss || rel.endMajor, L, I0maj, I1maj, MLmaj, truss ? 0 : p.EIy * kT);
-  const min = bendingConstants(truss || rel.startMinor, truss || rel.endMinor, L, I0min, I1min, MLmin, 0);
-  f1[4] = maj[0];
-  f1[2] = maj[1];
-  f1[5] = -min[0];
-  f1[1] = min[1];
-  return endForcesFromStart(ls, f1, L, out12);
+  return [IN, IT, I0maj, I1maj, I0min, I1min, s[4], s[5]];
 }

@@ -7,7 +7,7 @@ import type { Model } from '../model/types.js';
 import { addElement, addSprings, buildPattern, numberEquations, type Pattern } from './assembly.js';
 import { vecToGlobal12 } from './axes.js';
 import { buildMesh, elementReleases, FREE, type Mesh, NO_STIFFNESS } from './discretise.js';
-import { localStiffness, toGlobalStiffness } from './element.js';
+import { localStiffness, toGlobalStiffness, trussGlobalStiffness } from './element.js';
 import { fixedEndForces } from './fixedEnd.js';
 import { instabilityAt } from './instability.js';
 import { clipLoadSet, type LoadSet } from './loadSet.js';
@@ -66,8 +66,13 @@ export function buildSystem(model: Model, taperSegments: number, timings: Record
   const kgAll = new Float64Array(nEl * 144);
   const kl = new Float64Array(144), tmp = new Float64Array(144);
   for (let e = 0; e < nEl; e++) {
-    elementLocal(mesh, e, kl);
-    toGlobalStiffness(kl, mesh.members[mesh.elMember[e]].R, kgAll.subarray(e * 144, e * 144 + 144), tmp);
+    const m = mesh.members[mesh.elMember[e]];
+    if (m.truss) {
+      trussGlobalStiffness(mesh.elProps[e * 5] / mesh.elL[e], m.R, kgAll, e * 144);
+    } else {
+      elementLocal(mesh, e, kl);
+      toGlobalStiffness(kl, m.R, kgAll, tmp, e * 144);
+    }
   }
   // freedoms without any stiffness
   const diag = Float64Array.from(mesh.springs);
