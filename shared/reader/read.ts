@@ -483,7 +483,13 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
     lanes,
     movingLoads,
   };
-  const list: Problem[] = problems.list;
+  // report in table order (settings first), then by row, keeping the order found within a row
+  const order = ['', 'settings', ...KNOWN_TABLES.filter((t) => t !== 'settings')];
+  const rank = (t: string) => (order.includes(t) ? order.indexOf(t) : order.length);
+  const list: Problem[] = problems.list
+    .map((p, i) => ({ p, i }))
+    .sort((a, b) => rank(a.p.table) - rank(b.p.table) || (a.p.row ?? 0) - (b.p.row ?? 0) || a.i - b.i)
+    .map((x) => x.p);
   if (problems.hasErrors) return { ok: false, problems: list, counts };
   return { ok: true, model, warnings: list, counts };
 }

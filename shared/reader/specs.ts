@@ -140,4 +140,8 @@ export const COMBINATIONS_WIDE: TableSpec = {
   keepExtra: true,
 };
 
-export const KNOWN_TABLES = [...Object.keys(TABLES), 'combinations'];
+/** Every table of the contract, in the order problems are reported and templates list them. */
+export const KNOWN_TABLES = [
+  'settings', 'nodes', 'supports', 'materials', 'sections', 'members', 'cases', 'node_loads', 'member_loads', 'settlements',
+  'combinations', 'vehicles', 'lanes', 'moving_loads',
+];
