@@ -88,6 +88,7 @@ function prepare(model: Model, analysis: AnalysisResult, only?: number): Context
   const sections = new Map<string, Section | undefined>();
   const materials = new Map<string, Material | undefined>();
   const plans = new Map<string, MemberPlan>();
+  const geometries = new Map<string, DesignGeometry>();
   const prepared: Prepared[] = [];
   model.members.forEach((member, mi) => {
     if (only !== undefined && mi !== only) { prepared.push(null as unknown as Prepared); return; }
@@ -113,14 +114,16 @@ function prepare(model: Model, analysis: AnalysisResult, only?: number): Context
     const section = resolveSection(model, member.section, sections);
     const material = resolveMaterial(model, member.material, materials);
     if (!section) { p.reason = `section ${member.section} not found`; return; }
-    p.geometry = designGeometry(section);
+    let g0 = geometries.get(section.id);
+    if (!g0) { g0 = designGeometry(section); geometries.set(section.id, g0); }
+    p.geometry = g0;
     if (!material) { p.reason = `material ${member.material} not found`; return; }
     if (material.fy === undefined || !(material.fy > 0)) { p.reason = `material ${material.id} has no fy`; return; }
     if (member.sectionEnd !== undefined && member.sectionEnd !== member.section) { p.reason = 'tapered member: design checks of tapered members not implemented'; return; }
     // members with the same section, material, lengths and end conditions share a plan
     const key = `${member.section}|${member.material}|${setup.length}|${setup.truss}|${setup.LcMajor}|${setup.LcMinor}|${setup.Lb}|${setup.cb}|${cantilever}`;
     const shared = plans.get(key);
-    if (shared) { p.plan = { ...shared, member: member.id, records: (sf, c) => shared.records(sf, c).map((r) => (r ? { ...r, member: member.id } : r)) }; return; }
+    if (shared) { p.plan = shared; return; }
     const g = p.geometry;
     let plan: MemberPlan;
     if (code === 'en1993-1-1') {
@@ -172,9 +175,12 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
   const govL = new Int32Array(MAX_SLOTS);
   const nanL = new Int32Array(MAX_SLOTS);
   const defl = new Float64Array(2);
+  const pick = new Int32Array(MAX_SLOTS);
+  const want = new Uint8Array(MAX_SLOTS);
   let evaluations = 0;
 
-  ctx.prepared.forEach((p, mi) => {
+  for (let mi = 0; mi < ctx.prepared.length; mi++) {
+    const p = ctx.prepared[mi];
     const memberRecords: CheckRecord[] = [];
     const warnings: string[] = [];
     const sectionMaterial = { section: p.member.section, material: p.member.material };
@@ -188,7 +194,8 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
       nanL.fill(-1, 0, n);
       let compression = false;
       let compressionLoading = -1;
-      for (const li of strength) {
+      for (let k = 0; k < strength.length; k++) {
+        const li = strength[k];
         const sf = analysis.memberForces(mi, li);
         plan.evaluate(sf, ratio, xo);
         evaluations++;
@@ -199,17 +206,19 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
         }
         if (!compression && hasCompression(sf)) { compression = true; compressionLoading = li; }
       }
-      // records of the governing loadings, each loading evaluated once
-      const wanted = new Map<number, number[]>();
+      // records of the governing loadings: each loading evaluated once, only its slots built
+      for (let s = 0; s < n; s++) pick[s] = nanL[s] >= 0 ? nanL[s] : gov[s] >= 0 ? govL[s] : -1;
       for (let s = 0; s < n; s++) {
-        const li = nanL[s] >= 0 ? nanL[s] : gov[s] >= 0 ? govL[s] : -1;
+        const li = pick[s];
         if (li < 0) continue;
-        const list = wanted.get(li);
-        if (list) list.push(s); else wanted.set(li, [s]);
-      }
-      for (const [li, slots] of wanted) {
-        const recs = plan.records(analysis.memberForces(mi, li), ids[li]);
-        for (const s of slots) { const r = recs[s]; if (r) memberRecords.push(r); }
+        for (let t = 0; t < n; t++) want[t] = pick[t] === li ? 1 : 0;
+        const recs = plan.records(analysis.memberForces(mi, li), ids[li], want, p.member.id);
+        for (let t = 0; t < n; t++) {
+          if (pick[t] !== li) continue;
+          pick[t] = -1;
+          const r = recs[t];
+          if (r) memberRecords.push(r);
+        }
       }
       // slenderness (warning only) and bracing warning
       const sl = slendernessOf(p);
@@ -242,7 +251,7 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
     members.push(u);
     if (u.status === 'pass') counts.pass++; else if (u.status === 'fail') counts.fail++; else counts.notChecked++;
     for (const r of memberRecords) records.push(r);
-  });
+  }
   return { code: ctx.code, members, records, counts, diagnostics: { evaluations, milliseconds: performance.now() - t0 } };
 }
 
@@ -313,7 +322,7 @@ export function checkMember(model: Model, analysis: AnalysisResult, memberIndex:
     return [deflectionRecord(member.id, ctx.code, loading.id, d[0], d[1], p.setup.length, p.deflectionLimit, false)];
   }
   const sf = analysis.memberForces(memberIndex, loadingIndex);
-  const out = p.plan.records(sf, loading.id).filter((r): r is CheckRecord => r !== null);
+  const out = p.plan.records(sf, loading.id, undefined, member.id).filter((r): r is CheckRecord => r !== null);
   const sl = slendernessOf(p);
   if (sl > 0) out.push(slendernessRecord(member.id, ctx.code, sl, hasCompression(sf), loading.id));
   return out;

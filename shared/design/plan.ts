@@ -19,8 +19,12 @@ export interface MemberPlan {
   member: string;
   slots: Slot[];
   evaluate(sf: StationForces, ratio: Float64Array, x: Float64Array): void;
-  /** records aligned with slots (null where not applicable) */
-  records(sf: StationForces, combination: string): (CheckRecord | null)[];
+  /**
+   * Records aligned with slots (null where not applicable, or not wanted when `want` is
+   * given: only slots with want[s] non-zero are built). `member` overrides the member id
+   * (plans are shared by members with identical data).
+   */
+  records(sf: StationForces, combination: string, want?: ArrayLike<number>, member?: string): (CheckRecord | null)[];
 }
 
 /** What the orchestration knows about a member before any code-specific work (SI). */

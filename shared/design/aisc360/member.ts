@@ -132,24 +132,40 @@ export function aiscPlan(g: DesignGeometry, cx: AiscContext, m: MemberSetup): Me
   const ratio = new Float64Array(slots.length);
   const xo = new Float64Array(slots.length);
 
-  function records(sf: StationForces, combination: string): (CheckRecord | null)[] {
+  // record heads that depend only on Cb: computed once per plan (and Cb value)
+  const minorAt = fMin ? flexureAt(fMin, 1, '') : null;
+  const majorAt = new Map<number, Capacity>();
+  function majorHead(cb: number): Capacity {
+    let c = majorAt.get(cb);
+    if (!c) {
+      c = flexureAt(fMaj!, cb, cbSource);
+      if (majorAt.size > 64) majorAt.clear();
+      majorAt.set(cb, c);
+    }
+    return c;
+  }
+
+  function capRecord(id: string, combination: string, c: Capacity, demand: number, x: number): CheckRecord {
+    return Number.isNaN(c.capacity) ? notChecked(id, c.head.family, cx.code, c.head.clause, c.head.title, c.head.note ?? '', combination) : finish(c.head, id, combination, c.capacity, demand, x);
+  }
+
+  function records(sf: StationForces, combination: string, want?: ArrayLike<number>, member?: string): (CheckRecord | null)[] {
     evaluate(sf, ratio, xo);
-    const id = m.id;
-    const out: (CheckRecord | null)[] = [];
-    const capRecord = (c: Capacity, demand: number, x: number): CheckRecord =>
-      Number.isNaN(c.capacity) ? notChecked(id, c.head.family, cx.code, c.head.clause, c.head.title, c.head.note ?? '', combination) : finish(c.head, id, combination, c.capacity, demand, x);
-    out.push(capRecord(axialCaps[0], d[D_NT], d[D_NT + 1]), capRecord(axialCaps[1], d[D_NT], d[D_NT + 1]), capRecord(axialCaps[2], d[D_NC], d[D_NC + 1]));
-    if (e4) out.push(capRecord(e4, d[D_NC], d[D_NC + 1]));
+    const id = member ?? m.id;
+    const out: (CheckRecord | null)[] = new Array(slots.length).fill(null);
+    if (!want || want[0] !== 0) out[0] = capRecord(id, combination, axialCaps[0], d[D_NT], d[D_NT + 1]);
+    if (!want || want[1] !== 0) out[1] = capRecord(id, combination, axialCaps[1], d[D_NT], d[D_NT + 1]);
+    if (!want || want[2] !== 0) out[2] = capRecord(id, combination, axialCaps[2], d[D_NC], d[D_NC + 1]);
+    if (e4 && (!want || want[iE4] !== 0)) out[iE4] = capRecord(id, combination, e4, d[D_NC], d[D_NC + 1]);
     if (!frame) return out;
-    const at = flexureAt(fMaj!, d[D_CB], cbSource);
-    out.push(capRecord(at, d[D_MMAJ], d[D_XMAJ]));
-    out.push(capRecord(flexureAt(fMin!, 1, ''), d[D_MMIN], d[D_MMIN + 1]));
-    out.push(capRecord(vMaj!, d[D_VMAJ], d[D_VMAJ + 1]));
-    out.push(capRecord(vMin!, d[D_VMIN], d[D_VMIN + 1]));
+    if (!want || want[iMaj] !== 0) out[iMaj] = capRecord(id, combination, majorHead(d[D_CB]), d[D_MMAJ], d[D_XMAJ]);
+    if (!want || want[iMaj + 1] !== 0) out[iMaj + 1] = capRecord(id, combination, minorAt!, d[D_MMIN], d[D_MMIN + 1]);
+    if (!want || want[iMaj + 2] !== 0) out[iMaj + 2] = capRecord(id, combination, vMaj!, d[D_VMAJ], d[D_VMAJ + 1]);
+    if (!want || want[iMaj + 3] !== 0) out[iMaj + 3] = capRecord(id, combination, vMin!, d[D_VMIN], d[D_VMIN + 1]);
     // H1
     const rH = ratio[iMaj + 4];
-    if (Number.isNaN(rH)) {
-      out.push(notChecked(id, 'combined', cx.code, 'H1', 'axial force and flexure', 'a component strength (axial or flexural) is not checked for this member', combination));
+    if (!(!want || want[iMaj + 4] !== 0)) { /* not wanted */ } else if (Number.isNaN(rH)) {
+      out[iMaj + 4] = notChecked(id, 'combined', cx.code, 'H1', 'axial force and flexure', 'a component strength (axial or flexural) is not checked for this member', combination);
     } else {
       const i = d[D_H1I];
       const N = sf.N[i];
@@ -158,12 +174,12 @@ export function aiscPlan(g: DesignGeometry, cx: AiscContext, m: MemberSetup): Me
       let sIdx = nSeg === 1 ? 0 : Math.floor(sf.x[i] / m.Lb);
       if (sIdx >= nSeg) sIdx = nSeg - 1;
       const head: RecordHead = h1Head(cx.code, Math.abs(N), N >= 0 ? PcT : PcC, Mx, segCap[sIdx], My, McyDesign, N >= 0);
-      out.push(interactionRecord(head, id, combination, rH, sf.x[i]));
+      out[iMaj + 4] = interactionRecord(head, id, combination, rH, sf.x[i]);
     }
     // torsion
-    out.push(Number.isNaN(ratio[iMaj + 5])
-      ? notChecked(id, 'torsion', cx.code, 'H3', 'torsion', `torsion present (|T| up to ${(d[D_T] / 1e3).toPrecision(3)} kNm): H3 not implemented`, combination)
-      : null);
+    if ((!want || want[iMaj + 5] !== 0) && Number.isNaN(ratio[iMaj + 5])) {
+      out[iMaj + 5] = notChecked(id, 'torsion', cx.code, 'H3', 'torsion', `torsion present (|T| up to ${(d[D_T] / 1e3).toPrecision(3)} kNm): H3 not implemented`, combination);
+    }
     return out;
   }
 

@@ -61,7 +61,7 @@ export interface InteractionFactors {
   r62: number;
 }
 
-export function annexB(p: InteractionInput): InteractionFactors {
+export function annexB(p: InteractionInput, out: InteractionFactors = { kyy: 0, kyz: 0, kzy: 0, kzz: 0, r61: 0, r62: 0 }): InteractionFactors {
   const ny = p.NEd / ((p.chiY * p.NRk) / p.gammaM1);
   const nz = p.NEd / ((p.chiZ * p.NRk) / p.gammaM1);
   let kyy: number, kzz: number, kyz: number, kzy: number;
@@ -80,7 +80,10 @@ export function annexB(p: InteractionInput): InteractionFactors {
   }
   const my = p.MyEd / ((p.chiLT * p.MyRk) / p.gammaM1);
   const mz = p.MzEd / (p.MzRk / p.gammaM1);
-  return { kyy, kyz, kzy, kzz, r61: ny + kyy * my + kyz * mz, r62: nz + kzy * my + kzz * mz };
+  out.kyy = kyy; out.kyz = kyz; out.kzy = kzy; out.kzz = kzz;
+  out.r61 = ny + kyy * my + kyz * mz;
+  out.r62 = nz + kzy * my + kzz * mz;
+  return out;
 }
 
 export function interactionHead(p: InteractionInput, f: InteractionFactors): RecordHead {

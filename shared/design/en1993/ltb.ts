@@ -100,6 +100,14 @@ export function ltbPlan(g: DesignGeometry, c: EnContext, bend: EnBending, Lcr: n
   };
 }
 
+/** Mb,Rd for a given C1 (numbers only; χLT written to chiOut[0] when given). */
+export function ltbMb(p: LtbPlan, C1: number, chiOut?: Float64Array): number {
+  const lam = Math.sqrt(p.MRk / (p.Mcr1 * C1));
+  const x = chiLT(lam, p.alpha, p.lambda0, p.beta);
+  if (chiOut) chiOut[0] = x;
+  return (x * p.MRk) / p.gammaM1;
+}
+
 /** Mb,Rd for a given C1. */
 export function ltbResistance(p: LtbPlan, C1: number): { Mb: number; lam: number; chi: number; Mcr: number } {
   const Mcr = p.Mcr1 * C1;

@@ -4,8 +4,8 @@
  * 6.2.9 are evaluated at every station; 6.3.2 per unbraced segment (segments of length Lb
  * from the start node, each with Lcr = Lb) with C1 from the segment's moment diagram, or
  * the member's given cb used as C1; 6.3.3 with the member's largest forces.
- * Cross-section class for 6.2.9 and 6.3.3: the worst of the compression and bending
- * classes (conservative).
+ * Cross-section class for 6.2.9 at stations in compression and for 6.3.3: the worst of the
+ * compression and bending classes (conservative); stations in tension use the bending class.
  */
 import type { StationForces } from '../../engine/types.js';
 import type { DesignGeometry } from '../geometry.js';
@@ -18,11 +18,11 @@ import { enClass } from './classification.js';
 import { tensionGross, tensionNet } from './tension.js';
 import { compressionResistance } from './compression.js';
 import { flexuralBuckling } from './buckling.js';
-import { bendingResistance, momentWithShear } from './bending.js';
+import { bendingResistance, momentWithShear, type EnBending } from './bending.js';
 import { shearResistance } from './shear.js';
 import { axialBendingHead, axialBendingPlan, axialBendingRatio } from './axial-bending.js';
-import { c1Linear, ltbHead, ltbPlan, ltbResistance } from './ltb.js';
-import { annexB, cmB3, interactionHead, type InteractionInput } from './interaction.js';
+import { c1Linear, ltbHead, ltbMb, ltbPlan, ltbResistance } from './ltb.js';
+import { annexB, cmB3, interactionHead, type InteractionFactors, type InteractionInput } from './interaction.js';
 
 const D_NT = 0, D_NC = 2, D_T = 4, D_C1 = 6, D_MLT = 7, D_XLT = 8, D_CHILT = 9, D_IMAJ = 10, D_IMIN = 11, D_I629 = 12, D_MY = 13, D_XMY = 14, D_MZ = 15, D_XMZ = 16;
 const D_SIZE = 17;
@@ -58,12 +58,17 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
   const bMin = bendingResistance(g, cx, 'minor');
   const vMaj = shearResistance(g, cx, 'major');
   const vMin = shearResistance(g, cx, 'minor');
-  const clsComb = g.hasDims ? Math.max(enClass(g, cx.fy, 'compression'), enClass(g, cx.fy, 'major'), g.shape === 'tee' ? 1 : enClass(g, cx.fy, 'minor')) : 4;
-  const combScope = !g.hasDims || g.shape === 'angle' || g.shape === 'tee' || clsComb === 4 || Number.isNaN(bMaj.Mc) || Number.isNaN(bMin.Mc);
+  // 6.2.9: stations in tension (or without axial force) use the bending class, stations in
+  // compression the worse of the compression and bending classes (conservative)
+  const clsBend = g.hasDims ? Math.max(enClass(g, cx.fy, 'major'), g.shape === 'tee' ? 1 : enClass(g, cx.fy, 'minor')) : 4;
+  const clsComb = g.hasDims ? Math.max(clsBend, enClass(g, cx.fy, 'compression')) : 4;
+  const combScope = !g.hasDims || g.shape === 'angle' || g.shape === 'tee' || clsBend === 4 || Number.isNaN(bMaj.Mc) || Number.isNaN(bMin.Mc);
+  const compScope = combScope || clsComb === 4;
   const Wy = clsComb <= 2 ? g.Zmaj : g.Smaj;
   const Wz = clsComb <= 2 ? g.Zmin : g.Smin;
   const NRd = (g.A * cx.fy) / cx.gammaM0;
-  const ab = axialBendingPlan(g, clsComb, NRd, (Wy * cx.fy) / cx.gammaM0, (Wz * cx.fy) / cx.gammaM0);
+  const abT = axialBendingPlan(g, clsBend, NRd, ((clsBend <= 2 ? g.Zmaj : g.Smaj) * cx.fy) / cx.gammaM0, ((clsBend <= 2 ? g.Zmin : g.Smin) * cx.fy) / cx.gammaM0);
+  const abC = axialBendingPlan(g, clsComb, NRd, (Wy * cx.fy) / cx.gammaM0, (Wz * cx.fy) / cx.gammaM0);
   const ltb = ltbPlan(g, cx, bMaj, m.Lb, m.cantilever);
   if (frame) {
     slots.push({ family: 'bending_major', key: '6.2.5 major' }, { family: 'bending_minor', key: '6.2.5 minor' },
@@ -85,11 +90,9 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
     lambdaY: fb.lambdaY, lambdaZ: fb.lambdaZ, Cmy: 1, Cmz: 1, CmLT: 1, gammaM1: cx.gammaM1, plastic: clsComb <= 2,
     iSection: g.shape === 'i', susceptible: g.shape === 'i' || g.shape === 'channel',
   };
-  const r633NaN = combScope || Number.isNaN(fb.capacity) || ltbNaN;
-
-  function ratioOf(cap: number, demand: number): number {
-    return Number.isNaN(cap) ? NaN : demand === 0 ? 0 : demand / cap;
-  }
+  const fac: InteractionFactors = { kyy: 0, kyz: 0, kzy: 0, kzz: 0, r61: 0, r62: 0 };
+  const chiBuf = new Float64Array(1);
+  const r633NaN = compScope || Number.isNaN(fb.capacity) || ltbNaN;
 
   function evaluate(sf: StationForces, ratio: Float64Array, xo: Float64Array): void {
     const xs = sf.x;
@@ -107,7 +110,7 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
     if (tfb) { ratio[4] = NaN; xo[4] = xc; }
     if (!frame) return;
     // bending with shear, and 6.2.9, station by station
-    let rMaj = 0, iMaj = 0, rMin = 0, iMin = 0, r629 = 0, i629 = 0;
+    let rMaj = 0, iMaj = 0, rMin = 0, iMin = 0, r629 = 0, i629 = 0, nan629 = combScope;
     const VplMaj = vMaj.capacity, VplMin = vMin.capacity;
     for (let i = 0; i < n; i++) {
       const My = sf.M_major[i] < 0 ? -sf.M_major[i] : sf.M_major[i];
@@ -122,10 +125,13 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
         const r = Mz / (VplMin === VplMin ? momentWithShear(bMin, V, VplMin) : bMin.Mc);
         if (r > rMin) { rMin = r; iMin = i; }
       }
-      if (!combScope) {
-        const N = sf.N[i] < 0 ? -sf.N[i] : sf.N[i];
-        const r = axialBendingRatio(ab, N, My, Mz);
-        if (r > r629) { r629 = r; i629 = i; }
+      if (!nan629) {
+        const Ni = sf.N[i];
+        if (Ni < 0 && compScope) nan629 = true;
+        else {
+          const r = axialBendingRatio(Ni < 0 ? abC : abT, Ni < 0 ? -Ni : Ni, My, Mz);
+          if (r > r629) { r629 = r; i629 = i; }
+        }
       }
     }
     d[D_IMAJ] = iMaj; d[D_IMIN] = iMin; d[D_I629] = i629;
@@ -135,7 +141,7 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
     ratio[iFrame + 2] = ratioOf(vMaj.capacity, d[D_T]); xo[iFrame + 2] = d[D_T + 1];
     absMax(sf.V_minor, xs, d, D_T);
     ratio[iFrame + 3] = ratioOf(vMin.capacity, d[D_T]); xo[iFrame + 3] = d[D_T + 1];
-    ratio[iFrame + 4] = combScope ? NaN : r629; xo[iFrame + 4] = xs[i629];
+    ratio[iFrame + 4] = nan629 ? NaN : r629; xo[iFrame + 4] = xs[i629];
     // lateral-torsional buckling by segment
     let chiMin = 1;
     if (ltb.applies) {
@@ -147,9 +153,9 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
           const b = nSeg === 1 ? L : Math.min(L, a + m.Lb);
           segmentMoments(xs, sf.M_major, a, b, seg);
           const c1 = m.cb !== undefined ? m.cb : c1FromSegment(seg);
-          const res = ltbResistance(ltb, c1);
-          if (res.chi < chiMin) chiMin = res.chi;
-          const r = seg[SEG_MMAX] === 0 ? 0 : seg[SEG_MMAX] / res.Mb;
+          const Mb = ltbMb(ltb, c1, chiBuf);
+          if (chiBuf[0] < chiMin) chiMin = chiBuf[0];
+          const r = seg[SEG_MMAX] === 0 ? 0 : seg[SEG_MMAX] / Mb;
           if (s === 0 || r > rL) { rL = r; xL = seg[SEG_XMAX]; c1Gov = c1; mGov = seg[SEG_MMAX]; }
         }
       }
@@ -168,7 +174,7 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
       segmentMoments(xs, sf.M_minor, 0, m.length, seg);
       ii.Cmz = cmB3(seg[SEG_M0], seg[SEG_M1], seg[SEG_MS], isLinearSegment(seg));
       ii.NEd = ncm; ii.MyEd = d[D_MY]; ii.MzEd = d[D_MZ]; ii.chiLT = ltb.applies ? chiMin : 1;
-      const f = annexB(ii);
+      const f = annexB(ii, fac);
       ratio[i633] = f.r61 > f.r62 ? f.r61 : f.r62; xo[i633] = d[D_MY] > 0 ? d[D_XMY] : xc;
     }
     absMax(sf.T, xs, d, D_T);
@@ -178,49 +184,71 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
   const ratio = new Float64Array(slots.length);
   const xo = new Float64Array(slots.length);
 
-  function records(sf: StationForces, combination: string): (CheckRecord | null)[] {
+  // LTB record heads depend only on C1: computed once per plan (and C1 value)
+  const ltbAt = new Map<number, { head: RecordHead; Mb: number }>();
+  function ltbAtC1(c1: number): { head: RecordHead; Mb: number } {
+    let h = ltbAt.get(c1);
+    if (!h) {
+      h = { head: ltbHead(ltb, c1, c1Source), Mb: ltbResistance(ltb, c1).Mb };
+      if (ltbAt.size > 64) ltbAt.clear();
+      ltbAt.set(c1, h);
+    }
+    return h;
+  }
+
+  function rec(id: string, combination: string, head: RecordHead, capacity: number, demand: number, x: number): CheckRecord {
+    return Number.isNaN(capacity) ? notChecked(id, head.family, code, head.clause, head.title, head.note ?? '', combination) : finish(head, id, combination, capacity, demand, x);
+  }
+
+  function bendRecord(id: string, combination: string, sf: StationForces, b: EnBending, v: Resistance, i: number, M: Float64Array, V: Float64Array): CheckRecord {
+    const Vi = Math.abs(V[i]);
+    const cap = Number.isNaN(b.Mc) ? NaN : Number.isNaN(v.capacity) ? b.Mc : momentWithShear(b, Vi, v.capacity);
+    const head = cap < b.Mc ? { ...b.head, clause: '6.2.8', note: `VEd = ${(Vi / 1e3).toPrecision(4)} kN > 0.5·Vpl,Rd: moment resistance reduced` } : b.head;
+    return rec(id, combination, head, cap, Math.abs(M[i]), sf.x[i]);
+  }
+
+  function records(sf: StationForces, combination: string, want?: ArrayLike<number>, member?: string): (CheckRecord | null)[] {
     evaluate(sf, ratio, xo);
-    const id = m.id;
-    const rec = (head: RecordHead, capacity: number, demand: number, x: number): CheckRecord =>
-      Number.isNaN(capacity) ? notChecked(id, head.family, code, head.clause, head.title, head.note ?? '', combination) : finish(head, id, combination, capacity, demand, x);
-    const out: (CheckRecord | null)[] = [
-      rec(tg.head, tg.capacity, d[D_NT], d[D_NT + 1]), rec(tn.head, tn.capacity, d[D_NT], d[D_NT + 1]),
-      rec(nc.head, nc.capacity, d[D_NC], d[D_NC + 1]), rec(fb.head, fb.capacity, d[D_NC], d[D_NC + 1]),
-    ];
-    if (tfb) out.push(rec(tfb.head, NaN, 0, 0));
+    const id = member ?? m.id;
+    const out: (CheckRecord | null)[] = new Array(slots.length).fill(null);
+    if (!want || want[0]) out[0] = rec(id, combination, tg.head, tg.capacity, d[D_NT], d[D_NT + 1]);
+    if (!want || want[1]) out[1] = rec(id, combination, tn.head, tn.capacity, d[D_NT], d[D_NT + 1]);
+    if (!want || want[2]) out[2] = rec(id, combination, nc.head, nc.capacity, d[D_NC], d[D_NC + 1]);
+    if (!want || want[3]) out[3] = rec(id, combination, fb.head, fb.capacity, d[D_NC], d[D_NC + 1]);
+    if (tfb && (!want || want[4])) out[4] = rec(id, combination, tfb.head, NaN, 0, 0);
     if (!frame) return out;
     const xs = sf.x;
-    for (const [b, v, k, M, V] of [[bMaj, vMaj, D_IMAJ, sf.M_major, sf.V_major], [bMin, vMin, D_IMIN, sf.M_minor, sf.V_minor]] as const) {
-      const i = d[k];
-      const Vi = Math.abs(V[i]);
-      const cap = Number.isNaN(b.Mc) ? NaN : Number.isNaN(v.capacity) ? b.Mc : momentWithShear(b, Vi, v.capacity);
-      const reduced = cap < b.Mc;
-      const head = reduced ? { ...b.head, clause: '6.2.8', note: `VEd = ${(Vi / 1e3).toPrecision(4)} kN > 0.5·Vpl,Rd: moment resistance reduced` } : b.head;
-      out.push(rec(head, cap, Math.abs(M[i]), xs[i]));
+    if (!want || want[iFrame]) out[iFrame] = bendRecord(id, combination, sf, bMaj, vMaj, d[D_IMAJ], sf.M_major, sf.V_major);
+    if (!want || want[iFrame + 1]) out[iFrame + 1] = bendRecord(id, combination, sf, bMin, vMin, d[D_IMIN], sf.M_minor, sf.V_minor);
+    if (!want || want[iFrame + 2]) out[iFrame + 2] = rec(id, combination, vMaj.head, vMaj.capacity, maxAbs(sf.V_major), xo[iFrame + 2]);
+    if (!want || want[iFrame + 3]) out[iFrame + 3] = rec(id, combination, vMin.head, vMin.capacity, maxAbs(sf.V_minor), xo[iFrame + 3]);
+    if (!want || want[iFrame + 4]) {
+      if (Number.isNaN(ratio[iFrame + 4])) {
+        out[iFrame + 4] = notChecked(id, 'combined', code, '6.2.9', 'bending and axial force, cross-section', clsComb === 4 || clsBend === 4 ? 'class 4 cross-section: not implemented' : `${g.shape} section: a component resistance is not checked`, combination);
+      } else {
+        const i = d[D_I629];
+        const Ni = sf.N[i];
+        out[iFrame + 4] = interactionRecord(axialBendingHead(Ni < 0 ? abC : abT, Math.abs(Ni), Math.abs(sf.M_major[i]), Math.abs(sf.M_minor[i])), id, combination, ratio[iFrame + 4], xs[i]);
+      }
     }
-    out.push(rec(vMaj.head, vMaj.capacity, Math.abs(maxAbs(sf.V_major)), xo[iFrame + 2]));
-    out.push(rec(vMin.head, vMin.capacity, Math.abs(maxAbs(sf.V_minor)), xo[iFrame + 3]));
-    if (combScope) out.push(notChecked(id, 'combined', code, '6.2.9', 'bending and axial force, cross-section', clsComb === 4 ? 'class 4 cross-section: not implemented' : `${g.shape} section: a component resistance is not checked`, combination));
-    else {
-      const i = d[D_I629];
-      out.push(interactionRecord(axialBendingHead(ab, Math.abs(sf.N[i]), Math.abs(sf.M_major[i]), Math.abs(sf.M_minor[i])), id, combination, ratio[iFrame + 4], xs[i]));
-    }
-    if (ltb.applies) {
-      if (ltbNaN) out.push(rec(ltb.head, NaN, 0, 0));
-      else out.push(finish(ltbHead(ltb, d[D_C1], c1Source), id, combination, ltbResistance(ltb, d[D_C1]).Mb, d[D_MLT], d[D_XLT]));
+    if (ltb.applies && (!want || want[iLtb])) {
+      if (ltbNaN) out[iLtb] = rec(id, combination, ltb.head, NaN, 0, 0);
+      else { const h = ltbAtC1(d[D_C1]); out[iLtb] = finish(h.head, id, combination, h.Mb, d[D_MLT], d[D_XLT]); }
     }
     const r633 = ratio[i633];
-    if (r633 === -1) out.push(null);
-    else if (Number.isNaN(r633)) out.push(notChecked(id, 'combined', code, '6.3.3', 'member buckling, bending and axial compression', 'a component resistance (class, buckling or LTB) is not checked for this member', combination));
-    else {
-      const f = annexB(ii);
-      out.push(interactionRecord(interactionHead(ii, f), id, combination, r633, xo[i633]));
+    if ((!want || want[i633]) && r633 !== -1) {
+      if (Number.isNaN(r633)) out[i633] = notChecked(id, 'combined', code, '6.3.3', 'member buckling, bending and axial compression', 'a component resistance (class, buckling or LTB) is not checked for this member', combination);
+      else out[i633] = interactionRecord(interactionHead(ii, annexB(ii)), id, combination, r633, xo[i633]);
     }
-    out.push(Number.isNaN(ratio[iTor]) ? notChecked(id, 'torsion', code, '6.2.7', 'torsion', `torsion present (|T| up to ${(d[D_T] / 1e3).toPrecision(3)} kNm): 6.2.7 not implemented`, combination) : null);
+    if ((!want || want[iTor]) && Number.isNaN(ratio[iTor])) out[iTor] = notChecked(id, 'torsion', code, '6.2.7', 'torsion', `torsion present (|T| up to ${(d[D_T] / 1e3).toPrecision(3)} kNm): 6.2.7 not implemented`, combination);
     return out;
   }
 
   return { member: m.id, slots, evaluate, records };
+}
+
+function ratioOf(cap: number, demand: number): number {
+  return cap !== cap ? NaN : demand === 0 ? 0 : demand / cap;
 }
 
 function maxAbs(v: Float64Array): number {
