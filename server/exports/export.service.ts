@@ -6,8 +6,8 @@ import { findModel } from '../models/model.service.js';
 import { findProject } from '../projects/project.service.js';
 import { doneRun, loadingsOf, membersOf, nodeResultsOf, recordsOf, runModel } from '../runs/run.service.js';
 import { runPool } from '../runs/worker-pool.js';
-import { toCsv, type ExportTable } from './table.js';
-import { checksTable, displacementsTable, forcesTable, reactionsTable, utilisationTable } from './tables.js';
+import { toCsv, type ResultTable } from '../../shared/exports/index.js';
+import { checksExport, displacementsExport, reactionsExport, storedNodeResults, utilisationExport } from './tables.js';
 import { toXlsx } from './xlsx.js';
 
 /** Member-force exports larger than this must name one loading. */
@@ -26,7 +26,6 @@ function safeName(text: string): string {
 export async function exportRun(ds: DataSource, runId: number, kind: ExportKind, format: ExportFormat, loading?: string): Promise<ExportFile> {
   const { run, result } = await doneRun(ds, runId);
   const { model, json } = await runModel(ds, run);
-  const units = model.settings.units;
   const loadings = loadingsOf(result);
   let only: number[] | undefined;
   if (loading) {
@@ -34,19 +33,23 @@ export async function exportRun(ds: DataSource, runId: number, kind: ExportKind,
     if (i < 0) throw badRequest(`loading: "${loading}" is neither a load case nor a combination of this run`);
     only = [i];
   }
-  let table: ExportTable;
+  const nodes = () => {
+    const { displacements, reactions } = nodeResultsOf(result);
+    return storedNodeResults(model, loadings, displacements, reactions, only);
+  };
+  let table: ResultTable;
   switch (kind) {
     case 'utilisation':
-      table = utilisationTable(membersOf(result), units);
+      table = utilisationExport(model, membersOf(result));
       break;
     case 'checks':
-      table = checksTable(recordsOf(result), units);
+      table = checksExport(model, recordsOf(result));
       break;
     case 'displacements':
-      table = displacementsTable(model, loadings, nodeResultsOf(result).displacements, units, only);
+      table = displacementsExport(model, nodes());
       break;
     case 'reactions':
-      table = reactionsTable(model, loadings, nodeResultsOf(result).reactions, units, only);
+      table = reactionsExport(model, nodes());
       break;
     case 'forces': {
       const chosen = only ?? loadings.map((_, i) => i);
@@ -54,8 +57,7 @@ export async function exportRun(ds: DataSource, runId: number, kind: ExportKind,
       if (estimate > MAX_FORCE_ROWS) {
         throw new AppError(413, 'payload_too_large', `Member forces for every loading would be about ${estimate.toLocaleString('en')} rows; choose one loading (?loading=<case or combination>)`);
       }
-      const forces = await runPool().run({ kind: 'forces', runId: run.id, modelJson: json, designCode: run.designCode, loadings: chosen });
-      table = forcesTable(model, loadings, chosen, forces.counts, forces.data, units);
+      table = await runPool().run({ kind: 'forces', runId: run.id, modelJson: json, designCode: run.designCode, loadings: chosen });
       break;
     }
   }
@@ -70,7 +72,7 @@ export async function exportRun(ds: DataSource, runId: number, kind: ExportKind,
     run: run.id,
     date: (run.finishedAt ?? run.createdAt).toISOString().slice(0, 16).replace('T', ' ') + ' UTC',
     code: run.designCode,
-    units,
+    units: model.settings.units,
     counts: { pass: run.passCount ?? 0, fail: run.failCount ?? 0, notChecked: run.notCheckedCount ?? 0 },
     reviewStatus: run.reviewStatus,
   });

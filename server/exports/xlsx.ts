@@ -5,8 +5,8 @@
  */
 import ExcelJS from 'exceljs';
 import { ratioBand, type RatioBand } from '../../shared/results/member-rows.js';
-import type { CheckStatus } from '../../shared/design/types.js';
-import { neutralise, type ExportTable } from './table.js';
+import { CHECK_FAMILIES, type CheckStatus } from '../../shared/design/types.js';
+import { neutraliseText, type ResultTable } from '../../shared/exports/index.js';
 
 export const CAUTION =
   'Results are for checking by a competent engineer. The design checks implement the cited clauses with the ' +
@@ -33,11 +33,27 @@ export interface HeaderBlock {
   reviewStatus: string;
 }
 
-export async function toXlsx(table: ExportTable, header: HeaderBlock): Promise<Buffer> {
+const TITLES: Record<string, string> = {
+  utilisation: 'Utilisation schedule', checks: 'Detailed checks', displacements: 'Displacements', reactions: 'Reactions',
+  member_forces: 'Member forces',
+};
+const RATIO_COLUMNS = new Set<string>(['ratio', ...CHECK_FAMILIES]);
+const neutralise = neutraliseText;
+
+export async function toXlsx(table: ResultTable, header: HeaderBlock): Promise<Buffer> {
+  const title = TITLES[table.name] ?? table.name;
+  const columns = table.header.map((h) => ({
+    header: h,
+    ratio: h === 'ratio',
+    numFmt: RATIO_COLUMNS.has(h) ? '0.000' : /^r[xyz] \[/.test(h) ? '0.000E+00' : h.includes('[') || h === 'demand' || h === 'capacity' ? '0.000###' : undefined,
+    width: Math.max(10, Math.min(40, h.length + 4)),
+  }));
+  const statusCol = table.header.indexOf('status');
+  const statuses = statusCol >= 0 ? table.rows.map((r) => String(r[statusCol])) : undefined;
   const wb = new ExcelJS.Workbook();
   wb.creator = 'Trestle';
   wb.created = new Date();
-  const ws = wb.addWorksheet(table.title.slice(0, 31));
+  const ws = wb.addWorksheet(title.slice(0, 31));
   const block: [string, string | number][] = [
     ['Project', neutralise(header.project)],
     ['Model', neutralise(header.model)],
@@ -51,7 +67,7 @@ export async function toXlsx(table: ExportTable, header: HeaderBlock): Promise<B
     ['Members not checked', header.counts.notChecked],
     ['Review status', header.reviewStatus],
   ];
-  ws.addRow([table.title]).font = { bold: true, size: 14 };
+  ws.addRow([title]).font = { bold: true, size: 14 };
   for (const [k, v] of block) {
     const row = ws.addRow([k, v]);
     row.getCell(1).font = { bold: true };
@@ -59,32 +75,32 @@ export async function toXlsx(table: ExportTable, header: HeaderBlock): Promise<B
   }
   const caution = ws.addRow([CAUTION]);
   caution.getCell(1).font = { italic: true, color: { argb: 'FF7A3B00' } };
-  ws.mergeCells(caution.number, 1, caution.number, Math.max(6, table.columns.length));
+  ws.mergeCells(caution.number, 1, caution.number, Math.max(6, columns.length));
   caution.getCell(1).alignment = { wrapText: true, vertical: 'top' };
   caution.height = 48;
   ws.addRow([]);
 
-  const headerRow = ws.addRow(table.columns.map((c) => c.header));
+  const headerRow = ws.addRow(columns.map((c) => c.header));
   headerRow.font = { bold: true };
   headerRow.eachCell((cell) => {
     cell.fill = { type: 'pattern', pattern: 'solid', fgColor: { argb: 'FFD9DEE8' } };
     cell.border = { bottom: { style: 'thin' } };
   });
   const first = headerRow.number;
-  table.columns.forEach((c, i) => {
+  columns.forEach((c, i) => {
     const col = ws.getColumn(i + 1);
-    col.width = Math.max(c.width ?? 12, i === 0 ? 16 : 0);
+    col.width = Math.max(c.width, i === 0 ? 16 : 0);
     if (c.numFmt) col.numFmt = c.numFmt;
   });
-  const ratioCol = table.columns.findIndex((c) => c.ratio);
+  const ratioCol = columns.findIndex((c) => c.ratio);
   table.rows.forEach((cells, r) => {
     const row = ws.addRow(cells.map((v) => (typeof v === 'string' ? neutralise(v) : v)));
-    if (ratioCol >= 0 && table.statuses) {
-      const band = ratioBand(typeof cells[ratioCol] === 'number' ? (cells[ratioCol] as number) : null, table.statuses[r] as CheckStatus);
+    if (ratioCol >= 0 && statuses) {
+      const band = ratioBand(typeof cells[ratioCol] === 'number' ? (cells[ratioCol] as number) : null, statuses[r] as CheckStatus);
       row.getCell(ratioCol + 1).fill = { type: 'pattern', pattern: 'solid', fgColor: { argb: BAND_FILLS[band] } };
     }
   });
   ws.views = [{ state: 'frozen', xSplit: 0, ySplit: first }];
-  ws.autoFilter = { from: { row: first, column: 1 }, to: { row: first + table.rows.length, column: table.columns.length } };
+  ws.autoFilter = { from: { row: first, column: 1 }, to: { row: first + table.rows.length, column: columns.length } };
   return Buffer.from(await wb.xlsx.writeBuffer());
 }

@@ -2,6 +2,7 @@
 import type { DesignCode } from '../../shared/model/types.js';
 import type { CheckRecord } from '../../shared/design/types.js';
 import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
+import type { ResultTable } from '../../shared/exports/results.js';
 import type { RunOutput } from './run-compute.js';
 
 interface TaskBase {
@@ -37,13 +38,8 @@ export interface MemberTaskResult {
   loadingRecords: CheckRecord[];
 }
 
-/** Member forces of every member for the requested loadings, flattened. */
-export interface ForcesTaskResult {
-  /** per block (loading × member, loading-major): number of stations */
-  counts: Int32Array;
-  /** per station: x, N, V_major, V_minor, T, M_major, M_minor, d_major, d_minor */
-  data: Float64Array;
-}
+/** The member-forces export table (shared/exports/results.ts) for the requested loadings. */
+export type ForcesTaskResult = ResultTable;
 
 export type TaskResult<T extends WorkerTask> = T extends RunTask
   ? RunOutput

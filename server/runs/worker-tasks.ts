@@ -1,7 +1,8 @@
 /** What a worker does for each task; kept apart from the thread plumbing so tests can call it. */
 import type { AnalysisResult, StationForces } from '../../shared/engine/types.js';
 import { checkMember } from '../../shared/design/index.js';
-import { FORCE_KEYS } from '../../shared/engine/types.js';
+import { memberForceTable } from '../../shared/exports/results.js';
+import type { Model } from '../../shared/model/types.js';
 import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
 import { analyseOnly, computeRun, type Analysed } from './run-compute.js';
 import type { ForcesTaskResult, MemberTaskResult, WorkerTask } from './worker-protocol.js';
@@ -41,28 +42,12 @@ export function stationsJson(s: StationForces): Stations {
   };
 }
 
-function memberForces(analysis: AnalysisResult, loadings: number[]): ForcesTaskResult {
-  const nMembers = analysis.memberIds.length;
-  const counts = new Int32Array(loadings.length * nMembers);
-  const blocks: StationForces[] = [];
-  let total = 0;
-  loadings.forEach((l, li) => {
-    for (let m = 0; m < nMembers; m++) {
-      const s = analysis.memberForces(m, l);
-      counts[li * nMembers + m] = s.x.length;
-      total += s.x.length;
-      blocks.push(s);
-    }
-  });
-  const data = new Float64Array(total * 9);
-  let k = 0;
-  for (const s of blocks) {
-    for (let i = 0; i < s.x.length; i++) {
-      data[k++] = s.x[i];
-      for (const key of FORCE_KEYS) data[k++] = s[key][i];
-    }
-  }
-  return { counts, data };
+/** The member-forces table for some loadings, through a view of the analysis limited to them. */
+function memberForces(model: Model, analysis: AnalysisResult, loadings: number[]): ForcesTaskResult {
+  const view = Object.create(analysis) as AnalysisResult;
+  Object.defineProperty(view, 'loadings', { value: loadings.map((l) => analysis.loadings[l]) });
+  Object.defineProperty(view, 'memberForces', { value: (m: number, l: number) => analysis.memberForces(m, loadings[l]) });
+  return memberForceTable(model, view);
 }
 
 export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => void): unknown {
@@ -83,8 +68,8 @@ export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => vo
       return result;
     }
     case 'forces': {
-      const { analysis } = analysedFor(task);
-      return memberForces(analysis, task.loadings);
+      const { model, analysis } = analysedFor(task);
+      return memberForces(model, analysis, task.loadings);
     }
   }
 }

@@ -2,8 +2,9 @@
 import ExcelJS from 'exceljs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { MemberUtilisation } from '../../../shared/design/types.js';
-import { neutralise, toCsv } from '../../../server/exports/table.js';
-import { utilisationTable } from '../../../server/exports/tables.js';
+import type { Model } from '../../../shared/model/types.js';
+import { neutraliseText as neutralise, toCsv } from '../../../shared/exports/index.js';
+import { utilisationExport } from '../../../server/exports/tables.js';
 import { BAND_FILLS, CAUTION, toXlsx } from '../../../server/exports/xlsx.js';
 import { closeRunPool } from '../../../server/runs/worker-pool.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
@@ -16,6 +17,9 @@ function util(member: string, group: string, ratio: number | null, status: Membe
     combination: 'ULS', status, families: { bending_major: ratio }, familyStatus: { bending_major: status }, warnings: [],
   };
 }
+
+const metric = { settings: { units: 'metric' } } as Model;
+const utilisationTable = (members: MemberUtilisation[], _units: string) => utilisationExport(metric, members);
 
 const binary = (r: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
   const chunks: Buffer[] = [];
@@ -80,14 +84,14 @@ describe('GET /api/runs/:id/exports', () => {
     const start = await t.as('engineer').post(`/api/models/${commit.body.model.id}/runs`).send({});
     runId = start.body.id;
     await settle(t, runId);
-  });
+  }, 90_000);
   afterAll(async () => {
     await closeRunPool();
     await t.close();
   });
 
   it('exports the utilisation schedule as XLSX with the header block and one row per member', async () => {
-    const res = await t.as('viewer').get(`/api/runs/${runId}/exports/utilisation.xlsx`).buffer(true).parse(binary as never);
+    const res = await t.as('engineer').get(`/api/runs/${runId}/exports/utilisation.xlsx`).buffer(true).parse(binary as never);
     expect(res.status, JSON.stringify(res.body).slice(0, 300)).toBe(200);
     expect(res.headers['content-disposition']).toMatch(/attachment/);
     const wb = new ExcelJS.Workbook();
@@ -102,23 +106,23 @@ describe('GET /api/runs/:id/exports', () => {
 
   it('exports checks, displacements, reactions and member forces as CSV with bracketed units', async () => {
     for (const [kind, head] of [
-      ['checks', 'member,combination,check,clause,demand,capacity,unit,ratio,status,note'],
+      ['checks', 'member,combination,check,clause,demand,capacity,ratio,status,note,unit'],
       ['displacements', 'loading,node,ux [mm],uy [mm],uz [mm],rx [rad],ry [rad],rz [rad]'],
       ['reactions', 'loading,node,fx [kN],fy [kN],fz [kN],mx [kNm],my [kNm],mz [kNm]'],
       ['forces', 'loading,member,x [m],N [kN],V_major [kN],V_minor [kN],T [kNm],M_major [kNm],M_minor [kNm],d_major [mm],d_minor [mm]'],
     ]) {
-      const res = await t.as('viewer').get(`/api/runs/${runId}/exports/${kind}.csv`);
+      const res = await t.as('engineer').get(`/api/runs/${runId}/exports/${kind}.csv`);
       expect(res.status, kind).toBe(200);
       expect(res.text.split('\r\n')[0]).toBe(head);
     }
-    const reactions = await t.as('viewer').get(`/api/runs/${runId}/exports/reactions.csv?loading=L`);
+    const reactions = await t.as('engineer').get(`/api/runs/${runId}/exports/reactions.csv?loading=L`);
     // statics: the supports carry the whole live load, 12 kN/m over 12 m = 144 kN upward; 0.1 % tolerance
     const fy = reactions.text.trim().split('\r\n').slice(1).reduce((s, line) => s + Number(line.split(',')[3]), 0);
     expect(Math.abs(fy - 144)).toBeLessThan(0.144);
   });
 
   it('answers 404 for an unknown export', async () => {
-    const res = await t.as('viewer').get(`/api/runs/${runId}/exports/everything.pdf`);
+    const res = await t.as('engineer').get(`/api/runs/${runId}/exports/everything.pdf`);
     expect(res.status).toBe(404);
   });
 });

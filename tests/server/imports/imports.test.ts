@@ -53,7 +53,7 @@ describe('POST /api/projects/:id/imports', () => {
     expect(commit.body.model).toMatchObject({ name: 'Beam A', currentVersion: 1, designCode: 'en1993-1-1', units: 'metric' });
     const again = await t.as('engineer').post(`/api/projects/${projectId}/imports/${res.body.id}/commit`).send({});
     expect(again.status).toBe(404);
-    const versions = await t.as('viewer').get(`/api/models/${commit.body.model.id}/versions`);
+    const versions = await t.as('engineer').get(`/api/models/${commit.body.model.id}/versions`);
     expect(versions.body).toHaveLength(1);
     expect(versions.body[0]).toMatchObject({ version: 1, origin: 'import' });
   });

@@ -15,10 +15,10 @@ afterAll(() => t.close());
 
 describe('models', () => {
   it('lists the project models and shows one with its settings and choice lists', async () => {
-    const list = await t.as('viewer').get(`/api/projects/${projectId}/models`);
+    const list = await t.as('engineer').get(`/api/projects/${projectId}/models`);
     expect(list.status).toBe(200);
     expect(list.body.map((m: { id: number }) => m.id)).toEqual([modelId]);
-    const detail = await t.as('viewer').get(`/api/models/${modelId}`);
+    const detail = await t.as('engineer').get(`/api/models/${modelId}`);
     expect(detail.status).toBe(200);
     expect(detail.body.sections).toEqual(['B300', 'B400']);
     expect(detail.body.groups).toEqual(['beams']);
@@ -26,7 +26,7 @@ describe('models', () => {
   });
 
   it('lists editable members in the model unit system', async () => {
-    const res = await t.as('viewer').get(`/api/models/${modelId}/members`);
+    const res = await t.as('engineer').get(`/api/models/${modelId}/members`);
     expect(res.body.lengthUnit).toBe('m');
     // closed form: member M1 runs from x = 0 to x = 6 m, so its length is 6 m
     expect(res.body.members[0]).toMatchObject({ member: 'M1', section: 'B300', k_major: 1, l_major: null });
@@ -45,13 +45,13 @@ describe('models', () => {
     });
     expect(res.status).toBe(200);
     expect(res.body.currentVersion).toBe(2);
-    const members = await t.as('viewer').get(`/api/models/${modelId}/members`);
+    const members = await t.as('engineer').get(`/api/models/${modelId}/members`);
     expect(members.body.version).toBe(2);
     expect(members.body.members[0]).toMatchObject({ section: 'B400', lb: 3 });
     expect(members.body.members[1]).toMatchObject({ k_major: 0.85, group: 'end span' });
-    const v1 = await t.as('viewer').get(`/api/models/${modelId}/members?version=1`);
+    const v1 = await t.as('engineer').get(`/api/models/${modelId}/members?version=1`);
     expect(v1.body.members[0].section).toBe('B300');
-    const versions = await t.as('viewer').get(`/api/models/${modelId}/versions`);
+    const versions = await t.as('engineer').get(`/api/models/${modelId}/versions`);
     expect(versions.body.map((v: { version: number }) => v.version)).toEqual([2, 1]);
     expect(versions.body[0].origin).toBe('edit');
   });
@@ -64,7 +64,7 @@ describe('models', () => {
     expect(res.status).toBe(409);
     expect(res.body.error.message).toMatch(/version 1/);
     expect(res.body.error.message).toMatch(/Reload/);
-    const model = await t.as('viewer').get(`/api/models/${modelId}`);
+    const model = await t.as('engineer').get(`/api/models/${modelId}`);
     expect(model.body.currentVersion).toBe(2);
   });
 
@@ -79,7 +79,7 @@ describe('models', () => {
     expect(res.status).toBe(400);
     expect(res.body.error.message).toMatch(/member M2, section/);
     expect(res.body.error.details.problems[0]).toMatchObject({ member: 'M2', field: 'section' });
-    const model = await t.as('viewer').get(`/api/models/${modelId}`);
+    const model = await t.as('engineer').get(`/api/models/${modelId}`);
     expect(model.body.currentVersion).toBe(2);
   });
 
@@ -98,11 +98,11 @@ describe('models', () => {
       edits: [{ member: 'M2', field: 'section', value: 'IPE300' }],
     });
     expect(res.status).toBe(200);
-    const detail = await t.as('viewer').get(`/api/models/${modelId}`);
+    const detail = await t.as('engineer').get(`/api/models/${modelId}`);
     expect(detail.body.sections).toContain('IPE300');
   });
 
-  it('lets a viewer read but not edit', async () => {
+  it('does not let a viewer edit', async () => {
     const res = await t.as('viewer').patch(`/api/models/${modelId}/members`).send({ baseVersion: 3, edits: [{ member: 'M1', field: 'cb', value: 1 }] });
     expect(res.status).toBe(403);
   });

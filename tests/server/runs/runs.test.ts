@@ -34,7 +34,7 @@ describe('runs', () => {
   });
 
   it('gives one grid row per member with ratio, check, clause and combination', async () => {
-    const res = await t.as('viewer').get(`/api/runs/${firstRun}/members`);
+    const res = await t.as('engineer').get(`/api/runs/${firstRun}/members`);
     expect(res.status).toBe(200);
     expect(res.body.members.map((m: { member: string }) => m.member)).toEqual(['M1', 'M2']);
     const m1 = res.body.members[0];
@@ -45,28 +45,28 @@ describe('runs', () => {
   });
 
   it('gives member detail with station diagrams for the governing and a chosen loading', async () => {
-    const res = await t.as('viewer').get(`/api/runs/${firstRun}/members/M1`);
+    const res = await t.as('engineer').get(`/api/runs/${firstRun}/members/M1`);
     expect(res.status).toBe(200);
     expect(res.body.loadings.map((l: { id: string }) => l.id)).toEqual(['D', 'L', 'ULS', 'SLS']);
     expect(res.body.stations.x[0]).toBe(0);
     expect(res.body.stations.x.at(-1)).toBeCloseTo(6, 9);
     // closed form, two equal spans under uniform w: support moment −wL²/8 at the middle support
     // (L = 6 m; w of the live case = 12 kN/m → −54 kNm); tolerance 0.5 %.
-    const live = await t.as('viewer').get(`/api/runs/${firstRun}/members/M1?loading=L`);
+    const live = await t.as('engineer').get(`/api/runs/${firstRun}/members/M1?loading=L`);
     expect(live.body.loading).toBe('L');
     expect(live.body.stations.M_major.at(-1) / 1000).toBeCloseTo(-54, 0);
     expect(Math.abs(live.body.stations.M_major.at(-1) / 1000 + 54)).toBeLessThan(0.27);
     expect(live.body.loadingRecords).toEqual([]);
-    const uls = await t.as('viewer').get(`/api/runs/${firstRun}/members/M1?loading=ULS`);
+    const uls = await t.as('engineer').get(`/api/runs/${firstRun}/members/M1?loading=ULS`);
     expect(uls.body.loadingRecords.length).toBeGreaterThan(0);
-    const bad = await t.as('viewer').get(`/api/runs/${firstRun}/members/M1?loading=NOPE`);
+    const bad = await t.as('engineer').get(`/api/runs/${firstRun}/members/M1?loading=NOPE`);
     expect(bad.status).toBe(400);
-    const missing = await t.as('viewer').get(`/api/runs/${firstRun}/members/M99`);
+    const missing = await t.as('engineer').get(`/api/runs/${firstRun}/members/M99`);
     expect(missing.status).toBe(404);
   });
 
   it('gives the picture: nodes, members with ratio, supports, loads and displacements', async () => {
-    const res = await t.as('viewer').get(`/api/runs/${firstRun}/model?loading=L`);
+    const res = await t.as('engineer').get(`/api/runs/${firstRun}/model?loading=L`);
     expect(res.status).toBe(200);
     expect(res.body.nodes).toHaveLength(3);
     expect(res.body.members[0]).toMatchObject({ id: 'M1', start: 0, end: 1 });
@@ -86,7 +86,7 @@ describe('runs', () => {
     secondRun = start.body.id;
     expect(start.body.version).toBe(2);
     expect((await settle(t, secondRun)).status).toBe('done');
-    const res = await t.as('viewer').get(`/api/runs/${secondRun}/members`);
+    const res = await t.as('engineer').get(`/api/runs/${secondRun}/members`);
     expect(res.body.previousRunId).toBe(firstRun);
     const m1 = res.body.members[0];
     expect(m1.section).toBe('B400');
@@ -95,10 +95,10 @@ describe('runs', () => {
   });
 
   it('lists the history and compares two runs member by member', async () => {
-    const list = await t.as('viewer').get(`/api/models/${modelId}/runs`);
+    const list = await t.as('engineer').get(`/api/models/${modelId}/runs`);
     expect(list.body.map((r: { id: number }) => r.id)).toEqual([secondRun, firstRun]);
     expect(list.body[0].durationMs).toEqual(expect.any(Number));
-    const cmp = await t.as('viewer').get(`/api/runs/compare?a=${firstRun}&b=${secondRun}`);
+    const cmp = await t.as('engineer').get(`/api/runs/compare?a=${firstRun}&b=${secondRun}`);
     expect(cmp.status).toBe(200);
     const row = cmp.body.rows.find((r: { member: string }) => r.member === 'M1');
     expect(row).toMatchObject({ sectionA: 'B300', sectionB: 'B400' });
