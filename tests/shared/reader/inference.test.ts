@@ -82,3 +82,22 @@ describe('combinations', () => {
     expect(m.combinations.every((c) => !ids.has(c.id))).toBe(true);
   });
 });
+
+describe('generated combinations', () => {
+  const cases = 'case,category\nD,dead\nQ,live\nW,wind\n';
+  it('builds the combinations of the rule from the case categories, each naming its source', () => {
+    const m = model({ cases, settings: 'key,value\ncombination_rule,en1990-6.10\n' });
+    expect(m.combinations.length).toBeGreaterThan(0);
+    expect(m.combinations.every((c) => c.generated && (c.source ?? '').length > 0)).toBe(true);
+    expect(m.combinations.some((c) => c.limitState === 'service')).toBe(true);
+  });
+
+  it('ignores a combinations table under a generating rule, with a warning', async () => {
+    const { read } = await import('./helpers.js');
+    const r = read({ cases, settings: 'key,value\ncombination_rule,asce7-lrfd\n', combinations: 'combination,case,factor\nU1,D,1.4\n' });
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.warnings.some((w) => w.table === 'combinations' && w.message.includes('ignored'))).toBe(true);
+    expect(r.model.combinations.some((c) => c.id === 'U1')).toBe(false);
+  });
+});
