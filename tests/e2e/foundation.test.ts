@@ -1,6 +1,6 @@
 /** The foundation in a real browser: sign-in, roles, projects, sign-out. */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { apiFromPage, chromiumAvailable, screenshot, signIn, signOut, startApp, stopApp, type TrestleApp } from './harness.js';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { apiFromPage, chromiumAvailable, screenshot, screenshotOpenPages, signIn, signOut, slug, startApp, stopApp, type TrestleApp } from './harness.js';
 
 const enabled = chromiumAvailable('foundation');
 
@@ -9,6 +9,13 @@ describe.skipIf(!enabled)('foundation in the browser', () => {
 
   beforeAll(async () => {
     app = await startApp();
+  });
+
+  afterEach(async (ctx) => {
+    if (ctx.task.result?.state !== 'fail' || !app) return;
+    const files = await screenshotOpenPages(app, `failed-${slug(ctx.task.name)}`);
+    console.warn(`screenshots of the failed test: ${files.join(', ')}\nserver output:\n${app.server.output().slice(-2000)}`);
+    for (const page of app.browser.context.pages()) await page.close().catch(() => undefined);
   });
 
   afterAll(async () => {
@@ -146,5 +153,9 @@ describe.skipIf(!enabled)('foundation in the browser', () => {
     await signOut(page);
     await page.close();
     expect(app.serverErrors).toEqual([]);
+  });
+
+  it('loaded every font, icon and script from its own server', () => {
+    expect(app.externalRequests).toEqual([]);
   });
 });

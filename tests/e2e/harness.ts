@@ -188,6 +188,8 @@ export interface TrestleApp {
   clearSession: () => Promise<void>;
   /** Requests the page made that the server answered with 5xx, for assertions. */
   serverErrors: string[];
+  /** Requests to any other origin (fonts, scripts…): the app must make none. */
+  externalRequests: string[];
 }
 
 export async function startApp(): Promise<TrestleApp> {
@@ -201,14 +203,22 @@ export async function startApp(): Promise<TrestleApp> {
     throw err;
   }
   const serverErrors: string[] = [];
+  const externalRequests: string[] = [];
   const app: TrestleApp = {
     server,
     browser,
     baseUrl: server.baseUrl,
     serverErrors,
+    externalRequests,
     newPage: async () => {
       const page = await browser.context.newPage();
-      page.setDefaultTimeout(15_000);
+      // Generous: the machine running the tests may be busy; a real failure still fails.
+      page.setDefaultTimeout(30_000);
+      page.setDefaultNavigationTimeout(45_000);
+      page.on('request', (req) => {
+        const url = req.url();
+        if (!url.startsWith(server.baseUrl) && !url.startsWith('data:') && !url.startsWith('blob:')) externalRequests.push(url);
+      });
       page.on('response', (res) => {
         if (res.status() >= 500) serverErrors.push(`${res.status()} ${res.request().method()} ${res.url()}`);
       });
@@ -231,8 +241,12 @@ export async function stopApp(app: TrestleApp | undefined): Promise<void> {
   }
 }
 
-/** Signs in through the sign-in screen and waits for the projects page. */
+/**
+ * Signs in through the sign-in screen (dropping any earlier session first, so a failed test
+ * cannot leave the next one signed in) and waits for the app shell.
+ */
 export async function signIn(page: Page, baseUrl: string, email: string, password = DEMO_PASSWORD): Promise<void> {
+  await page.context().clearCookies();
   await page.goto(`${baseUrl}/sign-in`);
   await page.locator('[data-test=sign-in-email] input').fill(email);
   await page.locator('[data-test=sign-in-password] input').fill(password);
@@ -277,4 +291,23 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   const file = path.join(ARTIFACTS_DIR, `${name}.png`);
   await page.screenshot({ path: file, fullPage: true });
   return file;
+}
+
+/** Screenshots of every open tab as test-artifacts/<prefix>-<n>.png (for a failed test). */
+export async function screenshotOpenPages(app: TrestleApp, prefix: string): Promise<string[]> {
+  const files: string[] = [];
+  const pages = app.browser.context.pages();
+  for (let i = 0; i < pages.length; i++) {
+    try {
+      files.push(await screenshot(pages[i], `${prefix}-${i + 1}`));
+    } catch {
+      // the tab may be closing
+    }
+  }
+  return files;
+}
+
+/** A file-name-safe slug of a test name. */
+export function slug(text: string): string {
+  return text.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 60);
 }
