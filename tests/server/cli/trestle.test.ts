@@ -127,3 +127,20 @@ describe('trestle check', () => {
     expect(u[0].slice(0, 10)).toEqual(['member', 'group', 'section', 'material', 'length [m]', 'ratio', 'check', 'clause', 'combination', 'status']);
   });
 });
+
+describe('trestle check on a sample', () => {
+  it('writes a schedule row per member with the status words of the contract', async () => {
+    const root = join(import.meta.dirname, '..', '..', '..');
+    const outDir = join(mkdtempSync(join(tmpdir(), 'trestle-out-')), 'portal');
+    const r = await run(['check', join(root, 'samples', 'portal-frame-building', 'portal-frame-building.xlsx'), '--out', outDir]);
+    if (r.code === 3) return; // design checks not in this build
+    expect(r.code).toBe(0);
+    const u = parseCsv(readFileSync(join(outDir, 'utilisation.csv'), 'utf8'));
+    expect(u[0][4]).toBe('length [ft]');
+    expect(u).toHaveLength(1 + 7);
+    for (const row of u.slice(1)) expect(['pass', 'fail', 'not checked']).toContain(row[9]);
+    const c = readFileSync(join(outDir, 'checks.csv'), 'utf8').split('\r\n');
+    expect(c[0]).toBe('member,combination,check,clause,demand,capacity,ratio,status,note,unit');
+    expect(c.length).toBeGreaterThan(8);
+  });
+});
