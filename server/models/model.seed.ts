@@ -4,10 +4,8 @@
  * checks succeed, so a new user sees results at once. A sample that fails to read is skipped.
  */
 import { readFileSync } from 'node:fs';
-import { gzipSync } from 'node:zlib';
 import type { SeedContext } from '../db/seed.js';
 import { readWorkbook } from '../../shared/reader/index.js';
-import { maxRatio, statusCounts } from '../../shared/results/member-rows.js';
 import { listSamples } from '../samples/sample.router.js';
 import { RunEntity, RunResultEntity } from '../runs/run.entity.js';
 import { encodeJson } from './model-codec.js';
@@ -35,25 +33,24 @@ export async function seedSampleModels(seed: SeedContext): Promise<void> {
       createdBy: seed.users.engineer.id,
     });
     try {
-      const { computeRun } = await import('../runs/run-compute.js');
+      // in this thread: the seed runs once, before the server listens
+      const { computeRun, packRun } = await import('../runs/run-compute.js');
       const started = new Date();
-      const { output } = computeRun(JSON.stringify(model), model.settings.designCode);
-      const counts = statusCounts(output.members);
+      const packed = packRun(computeRun(JSON.stringify(model), model.settings.designCode).output);
       const run = await seed.manager.getRepository(RunEntity).save({
         modelId: record.id, version: 1, designCode: model.settings.designCode, settingsJson: JSON.stringify(model.settings),
-        status: 'done', phase: 'saving', progress: 1, message: '', reviewStatus: 'draft', maxRatio: maxRatio(output.members),
-        passCount: counts.pass, failCount: counts.fail, notCheckedCount: counts.notChecked, timingsJson: JSON.stringify(output.timings),
-        diagnosticsJson: JSON.stringify(output.diagnostics), createdBy: seed.users.engineer.id, startedAt: started, finishedAt: new Date(),
+        status: 'done', phase: 'saving', progress: 1, message: '', reviewStatus: 'draft', maxRatio: packed.maxRatio,
+        passCount: packed.counts.pass, failCount: packed.counts.fail, notCheckedCount: packed.counts.notChecked,
+        timingsJson: JSON.stringify(packed.timings), diagnosticsJson: JSON.stringify(packed.diagnostics),
+        createdBy: seed.users.engineer.id, startedAt: started, finishedAt: new Date(),
       });
-      const d = output.displacements;
-      const r = output.reactions;
       await seed.manager.getRepository(RunResultEntity).insert({
         runId: run.id,
-        membersData: encodeJson(output.members),
-        recordsData: encodeJson(output.records),
-        loadingsJson: JSON.stringify(output.loadings),
-        nodeData: gzipSync(Buffer.concat([Buffer.from(d.buffer, d.byteOffset, d.byteLength), Buffer.from(r.buffer, r.byteOffset, r.byteLength)]), { level: 1 }),
-        nodeCount: output.nodeCount,
+        membersData: Buffer.from(packed.membersData),
+        recordsData: Buffer.from(packed.recordsData),
+        loadingsJson: JSON.stringify(packed.loadings),
+        nodeData: Buffer.from(packed.nodeData),
+        nodeCount: packed.nodeCount,
       });
     } catch {
       // no run for this sample: the model is still there to run by hand

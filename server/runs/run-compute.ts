@@ -3,6 +3,9 @@
  * loading, check every member, and pack what the server keeps. Pure apart from timing.
  */
 import { performance } from 'node:perf_hooks';
+import { gzipSync } from 'node:zlib';
+import { maxRatio, statusCounts } from '../../shared/results/member-rows.js';
+import type { RunCounts } from '../../shared/schemas/runs.js';
 import type { DesignCode, Model } from '../../shared/model/types.js';
 import type { AnalysisResult } from '../../shared/engine/types.js';
 import type { CheckRecord, MemberUtilisation } from '../../shared/design/types.js';
@@ -110,6 +113,42 @@ export function computeRun(
       },
     },
   };
+}
+
+/** What the worker hands back: results already encoded for run_results (no big clone). */
+export interface PackedRun {
+  counts: RunCounts;
+  maxRatio: number | null;
+  /** gzip(JSON MemberUtilisation[]) */
+  membersData: Uint8Array;
+  /** gzip(JSON CheckRecord[]) */
+  recordsData: Uint8Array;
+  /** gzip(Float64 displacements then reactions) */
+  nodeData: Uint8Array;
+  loadings: LoadingInfo[];
+  nodeCount: number;
+  timings: Record<string, number>;
+  diagnostics: RunOutput['diagnostics'];
+}
+
+export function packRun(out: RunOutput): PackedRun {
+  const t0 = performance.now();
+  const gz = (b: Buffer) => new Uint8Array(gzipSync(b, { level: 1 }));
+  const d = out.displacements;
+  const r = out.reactions;
+  const packed: PackedRun = {
+    counts: statusCounts(out.members),
+    maxRatio: maxRatio(out.members),
+    membersData: gz(Buffer.from(JSON.stringify(out.members), 'utf8')),
+    recordsData: gz(Buffer.from(JSON.stringify(out.records), 'utf8')),
+    nodeData: gz(Buffer.concat([Buffer.from(d.buffer, d.byteOffset, d.byteLength), Buffer.from(r.buffer, r.byteOffset, r.byteLength)])),
+    loadings: out.loadings,
+    nodeCount: out.nodeCount,
+    timings: { ...out.timings },
+    diagnostics: out.diagnostics,
+  };
+  packed.timings.packing = (packed.timings.packing ?? 0) + (performance.now() - t0);
+  return packed;
 }
 
 /** Analysis only (member detail and force exports when the worker no longer holds it). */

@@ -5,14 +5,14 @@
  * recomputed in a worker on demand (the worker that ran the model usually still holds its
  * analysis, so this costs no re-solve).
  */
-import { gunzipSync, gzipSync } from 'node:zlib';
+import { gunzipSync } from 'node:zlib';
 import { performance } from 'node:perf_hooks';
 import type { DataSource } from 'typeorm';
 import type { CheckRecord, MemberUtilisation } from '../../shared/design/types.js';
 import type { DesignCode, Model } from '../../shared/model/types.js';
 import { compareMembers } from '../../shared/results/compare.js';
 import { runGeometry } from '../../shared/results/geometry.js';
-import { familiesPresent, maxRatio, memberRows, statusCounts, type PreviousMember } from '../../shared/results/member-rows.js';
+import { familiesPresent, memberRows, statusCounts, type PreviousMember } from '../../shared/results/member-rows.js';
 import {
   startRunSchema,
   type LoadingInfo,
@@ -27,9 +27,9 @@ import {
 } from '../../shared/schemas/runs.js';
 import type { Logger } from '../config/logger.js';
 import { AppError, badRequest, notFound } from '../errors/app-error.js';
-import { decodeJson, decodeModel, decodeText, encodeJson } from '../models/model-codec.js';
+import { decodeJson, decodeText } from '../models/model-codec.js';
 import { findModel, findVersion } from '../models/model.service.js';
-import type { RunOutput } from './run-compute.js';
+import type { PackedRun } from './run-compute.js';
 import { RunEntity, RunResultEntity, type RunRecord, type RunResultRecord } from './run.entity.js';
 import { runPool } from './worker-pool.js';
 
@@ -200,22 +200,17 @@ function dispatch(ds: DataSource, runId: number, modelJson: string, designCode: 
   active.set(runId, done);
 }
 
-async function saveResults(ds: DataSource, runId: number, out: RunOutput): Promise<void> {
+async function saveResults(ds: DataSource, runId: number, out: PackedRun): Promise<void> {
   const t0 = performance.now();
-  await ds.getRepository(RunEntity).update({ id: runId }, { phase: 'saving', progress: PHASE_PROGRESS.saving });
-  const nodeBytes = Buffer.concat([
-    Buffer.from(out.displacements.buffer, out.displacements.byteOffset, out.displacements.byteLength),
-    Buffer.from(out.reactions.buffer, out.reactions.byteOffset, out.reactions.byteLength),
-  ]);
-  const counts = statusCounts(out.members);
   const result: RunResultRecord = {
     runId,
-    membersData: encodeJson(out.members),
-    recordsData: encodeJson(out.records),
+    membersData: Buffer.from(out.membersData.buffer, out.membersData.byteOffset, out.membersData.byteLength),
+    recordsData: Buffer.from(out.recordsData.buffer, out.recordsData.byteOffset, out.recordsData.byteLength),
     loadingsJson: JSON.stringify(out.loadings),
-    nodeData: gzipSync(nodeBytes, { level: 1 }),
+    nodeData: Buffer.from(out.nodeData.buffer, out.nodeData.byteOffset, out.nodeData.byteLength),
     nodeCount: out.nodeCount,
   };
+  const counts = out.counts;
   await ds.transaction(async (m) => {
     await m.getRepository(RunResultEntity).insert(result);
     const timings = { ...out.timings, saving: performance.now() - t0 };
@@ -226,7 +221,7 @@ async function saveResults(ds: DataSource, runId: number, out: RunOutput): Promi
         phase: 'saving',
         progress: 1,
         message: counts.fail > 0 ? `${counts.fail} member${counts.fail === 1 ? '' : 's'} over capacity` : '',
-        maxRatio: maxRatio(out.members),
+        maxRatio: out.maxRatio,
         passCount: counts.pass,
         failCount: counts.fail,
         notCheckedCount: counts.notChecked,

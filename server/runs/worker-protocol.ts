@@ -3,7 +3,7 @@ import type { DesignCode } from '../../shared/model/types.js';
 import type { CheckRecord } from '../../shared/design/types.js';
 import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
 import type { ResultTable } from '../../shared/exports/results.js';
-import type { RunOutput } from './run-compute.js';
+import type { PackedRun } from './run-compute.js';
 
 interface TaskBase {
   /** the run whose analysis the task needs (workers keep the last few analyses) */
@@ -42,7 +42,7 @@ export interface MemberTaskResult {
 export type ForcesTaskResult = ResultTable;
 
 export type TaskResult<T extends WorkerTask> = T extends RunTask
-  ? RunOutput
+  ? PackedRun
   : T extends MemberTask
     ? MemberTaskResult
     : ForcesTaskResult;

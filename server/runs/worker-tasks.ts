@@ -4,7 +4,7 @@ import { checkMember } from '../../shared/design/index.js';
 import { memberForceTable } from '../../shared/exports/results.js';
 import type { Model } from '../../shared/model/types.js';
 import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
-import { analyseOnly, computeRun, type Analysed } from './run-compute.js';
+import { analyseOnly, computeRun, packRun, type Analysed } from './run-compute.js';
 import type { ForcesTaskResult, MemberTaskResult, WorkerTask } from './worker-protocol.js';
 
 /** Analyses kept per worker, newest last. */
@@ -55,7 +55,7 @@ export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => vo
     case 'run': {
       const { output, analysed } = computeRun(task.modelJson, task.designCode, onPhase);
       remember(task.runId, analysed);
-      return output;
+      return packRun(output);
     }
     case 'member': {
       const { model, analysis } = analysedFor(task);
@@ -78,7 +78,11 @@ export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => vo
 export function transferList(result: unknown): ArrayBuffer[] {
   const out: ArrayBuffer[] = [];
   if (result && typeof result === 'object') {
-    for (const v of Object.values(result)) if (v instanceof Float64Array || v instanceof Int32Array) out.push(v.buffer as ArrayBuffer);
+    for (const v of Object.values(result)) {
+      if ((v instanceof Float64Array || v instanceof Int32Array || v instanceof Uint8Array) && v.byteOffset === 0 && v.byteLength === v.buffer.byteLength) {
+        out.push(v.buffer as ArrayBuffer);
+      }
+    }
   }
   return out;
 }
