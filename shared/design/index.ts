@@ -178,6 +178,7 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
   const pick = new Int32Array(MAX_SLOTS);
   const want = new Uint8Array(MAX_SLOTS);
   let evaluations = 0;
+  let evaluationMs = 0;
 
   for (let mi = 0; mi < ctx.prepared.length; mi++) {
     const p = ctx.prepared[mi];
@@ -192,6 +193,7 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
       gov.fill(-1, 0, n);
       govL.fill(-1, 0, n);
       nanL.fill(-1, 0, n);
+      const te0 = performance.now();
       let compression = false;
       let compressionLoading = -1;
       for (let k = 0; k < strength.length; k++) {
@@ -206,8 +208,10 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
         }
         if (!compression && hasCompression(sf)) { compression = true; compressionLoading = li; }
       }
+      evaluationMs += performance.now() - te0;
       // records of the governing loadings: each loading evaluated once, only its slots built
-      for (let s = 0; s < n; s++) pick[s] = nanL[s] >= 0 ? nanL[s] : gov[s] >= 0 ? govL[s] : -1;
+      // a known failure outranks a not-checked loading of the same check; otherwise not checked outranks pass
+      for (let s = 0; s < n; s++) pick[s] = gov[s] > 1 ? govL[s] : nanL[s] >= 0 ? nanL[s] : gov[s] >= 0 ? govL[s] : -1;
       for (let s = 0; s < n; s++) {
         const li = pick[s];
         if (li < 0) continue;
@@ -252,7 +256,7 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
     if (u.status === 'pass') counts.pass++; else if (u.status === 'fail') counts.fail++; else counts.notChecked++;
     for (const r of memberRecords) records.push(r);
   }
-  return { code: ctx.code, members, records, counts, diagnostics: { evaluations, milliseconds: performance.now() - t0 } };
+  return { code: ctx.code, members, records, counts, diagnostics: { evaluations, milliseconds: performance.now() - t0, evaluationMilliseconds: evaluationMs } };
 }
 
 /** The member's schedule row from its governing records. */

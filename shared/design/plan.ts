@@ -3,8 +3,10 @@
  * numbers and no allocation, and turned into full records only when asked (the governing
  * loading of each slot, or the member-detail view).
  *
- * evaluate() writes per slot: ratio (NaN = not checked, −1 = not applicable in this
- * loading) and the position x of the governing demand.
+ * evaluate() writes per slot: ratio (NaN = not checked: the check is outside the
+ * implemented scope and the loading puts demand on it; −1 = not applicable in this loading,
+ * e.g. no demand on a check outside scope, or no torsion) and the position x of the
+ * governing demand.
  */
 import type { StationForces } from '../engine/types.js';
 import type { CheckFamily, CheckRecord } from './types.js';

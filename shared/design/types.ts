@@ -84,6 +84,9 @@ export interface DesignResult {
   records: CheckRecord[];
   /** members by status */
   counts: { pass: number; fail: number; notChecked: number };
-  /** member-combination evaluations and time spent (ms) */
-  diagnostics: { evaluations: number; milliseconds: number };
+  /**
+   * member-combination evaluations; total time (ms); time of the evaluation loop alone
+   * (ms, without plans, records and schedule rows)
+   */
+  diagnostics: { evaluations: number; milliseconds: number; evaluationMilliseconds: number };
 }

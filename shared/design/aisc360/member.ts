@@ -83,13 +83,13 @@ export function aiscPlan(g: DesignGeometry, cx: AiscContext, m: MemberSetup): Me
     }
     d[D_NT] = nt; d[D_NT + 1] = xt; d[D_NC] = nc; d[D_NC + 1] = xc;
     ratio[0] = nt === 0 ? 0 : nt / ty.capacity; xo[0] = xt;
-    ratio[1] = Number.isNaN(tr.capacity) ? NaN : nt === 0 ? 0 : nt / tr.capacity; xo[1] = xt;
-    ratio[2] = Number.isNaN(e3.capacity) ? NaN : nc === 0 ? 0 : nc / e3.capacity; xo[2] = xc;
-    if (iE4 > 0) { ratio[iE4] = Number.isNaN(e4!.capacity) ? NaN : nc === 0 ? 0 : nc / e4!.capacity; xo[iE4] = xc; }
+    ratio[1] = nt === 0 ? (Number.isNaN(tr.capacity) ? -1 : 0) : nt / tr.capacity; xo[1] = xt;
+    ratio[2] = nc === 0 ? (Number.isNaN(e3.capacity) ? -1 : 0) : nc / e3.capacity; xo[2] = xc;
+    if (iE4 > 0) { ratio[iE4] = nc === 0 ? (Number.isNaN(e4!.capacity) ? -1 : 0) : nc / e4!.capacity; xo[iE4] = xc; }
     if (!frame) return;
     // major-axis flexure by unbraced segment
     const L = m.length;
-    let rMaj = 0, xMaj = 0, cbGov = 1, mGov = 0;
+    let rMaj = 0, xMaj = 0, cbGov = 1, mGov = 0, mAny = false;
     const nanMaj = Number.isNaN(fMaj!.Mcap);
     for (let s = 0; s < nSeg; s++) {
       const a = nSeg === 1 ? 0 : s * m.Lb;
@@ -98,17 +98,18 @@ export function aiscPlan(g: DesignGeometry, cx: AiscContext, m: MemberSetup): Me
       const cb = cbFixed !== undefined ? cbFixed : cbF11(seg[SEG_MMAX], seg[SEG_MA], seg[SEG_MB], seg[SEG_MC]);
       const cap = nanMaj ? NaN : designMoment(fMaj!, cb);
       segCap[s] = cap;
+      if (seg[SEG_MMAX] !== 0) mAny = true;
       const r = seg[SEG_MMAX] === 0 ? 0 : seg[SEG_MMAX] / cap;
       if (s === 0 || r > rMaj) { rMaj = r; xMaj = seg[SEG_XMAX]; cbGov = cb; mGov = seg[SEG_MMAX]; }
     }
     d[D_CB] = cbGov; d[D_MMAJ] = mGov; d[D_XMAJ] = xMaj;
-    ratio[iMaj] = nanMaj ? NaN : rMaj; xo[iMaj] = xMaj;
+    ratio[iMaj] = nanMaj ? (mAny ? NaN : -1) : rMaj; xo[iMaj] = xMaj;
     absMax(sf.M_minor, xs, d, D_MMIN);
-    ratio[iMaj + 1] = Number.isNaN(McyDesign) ? NaN : d[D_MMIN] === 0 ? 0 : d[D_MMIN] / McyDesign; xo[iMaj + 1] = d[D_MMIN + 1];
+    ratio[iMaj + 1] = d[D_MMIN] === 0 ? (Number.isNaN(McyDesign) ? -1 : 0) : d[D_MMIN] / McyDesign; xo[iMaj + 1] = d[D_MMIN + 1];
     absMax(sf.V_major, xs, d, D_VMAJ);
-    ratio[iMaj + 2] = Number.isNaN(vMaj!.capacity) ? NaN : d[D_VMAJ] === 0 ? 0 : d[D_VMAJ] / vMaj!.capacity; xo[iMaj + 2] = d[D_VMAJ + 1];
+    ratio[iMaj + 2] = d[D_VMAJ] === 0 ? (Number.isNaN(vMaj!.capacity) ? -1 : 0) : d[D_VMAJ] / vMaj!.capacity; xo[iMaj + 2] = d[D_VMAJ + 1];
     absMax(sf.V_minor, xs, d, D_VMIN);
-    ratio[iMaj + 3] = Number.isNaN(vMin!.capacity) ? NaN : d[D_VMIN] === 0 ? 0 : d[D_VMIN] / vMin!.capacity; xo[iMaj + 3] = d[D_VMIN + 1];
+    ratio[iMaj + 3] = d[D_VMIN] === 0 ? (Number.isNaN(vMin!.capacity) ? -1 : 0) : d[D_VMIN] / vMin!.capacity; xo[iMaj + 3] = d[D_VMIN + 1];
     // H1-1 at every station
     let rH = 0, iH = 0, nan = false;
     for (let i = 0; i < n; i++) {

@@ -49,7 +49,8 @@ export function axialBendingRatio(p: AxialBendingPlan, N: number, My: number, Mz
     const MNy = Math.min(p.MyRd, (p.MyRd * (1 - n)) / (1 - 0.5 * p.a));
     const MNz = n <= p.a ? p.MzRd : p.MzRd * (1 - ((n - p.a) / (1 - p.a)) ** 2);
     const beta = Math.max(1, 5 * n);
-    return (My / MNy) ** 2 + (Mz === 0 ? 0 : (Mz / MNz) ** beta);
+    const ry = My / MNy;
+    return ry * ry + (Mz === 0 ? 0 : beta === 1 ? Mz / MNz : (Mz / MNz) ** beta);
   }
   if (p.kind === 'RHS') {
     const MNy = Math.min(p.MyRd, (p.MyRd * (1 - n)) / (1 - 0.5 * p.aw));

@@ -107,27 +107,32 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
     ratio[1] = ratioOf(tn.capacity, nt); xo[1] = xt;
     ratio[2] = ratioOf(nc.capacity, ncm); xo[2] = xc;
     ratio[3] = ratioOf(fb.capacity, ncm); xo[3] = xc;
-    if (tfb) { ratio[4] = NaN; xo[4] = xc; }
+    if (tfb) { ratio[4] = ncm === 0 ? -1 : NaN; xo[4] = xc; }
     if (!frame) return;
     // bending with shear, and 6.2.9, station by station
-    let rMaj = 0, iMaj = 0, rMin = 0, iMin = 0, r629 = 0, i629 = 0, nan629 = combScope;
+    let rMaj = 0, iMaj = 0, rMin = 0, iMin = 0, r629 = 0, i629 = 0, nan629 = false, any629 = false, anyMy = false, anyMz = false;
     const VplMaj = vMaj.capacity, VplMin = vMin.capacity;
     for (let i = 0; i < n; i++) {
       const My = sf.M_major[i] < 0 ? -sf.M_major[i] : sf.M_major[i];
       const Mz = sf.M_minor[i] < 0 ? -sf.M_minor[i] : sf.M_minor[i];
       if (My > 0) {
+        anyMy = true;
         const V = sf.V_major[i] < 0 ? -sf.V_major[i] : sf.V_major[i];
         const r = My / (VplMaj === VplMaj ? momentWithShear(bMaj, V, VplMaj) : bMaj.Mc);
         if (r > rMaj) { rMaj = r; iMaj = i; }
       }
       if (Mz > 0) {
+        anyMz = true;
         const V = sf.V_minor[i] < 0 ? -sf.V_minor[i] : sf.V_minor[i];
         const r = Mz / (VplMin === VplMin ? momentWithShear(bMin, V, VplMin) : bMin.Mc);
         if (r > rMin) { rMin = r; iMin = i; }
       }
       if (!nan629) {
         const Ni = sf.N[i];
-        if (Ni < 0 && compScope) nan629 = true;
+        if (Ni !== 0 || My > 0 || Mz > 0) any629 = true;
+        // outside scope: not checked when bending acts (axial force alone is 6.2.3 / 6.2.4)
+        if (combScope) { if (My > 0 || Mz > 0) nan629 = true; }
+        else if (Ni < 0 && compScope) nan629 = true;
         else {
           const r = axialBendingRatio(Ni < 0 ? abC : abT, Ni < 0 ? -Ni : Ni, My, Mz);
           if (r > r629) { r629 = r; i629 = i; }
@@ -135,13 +140,13 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
       }
     }
     d[D_IMAJ] = iMaj; d[D_IMIN] = iMin; d[D_I629] = i629;
-    ratio[iFrame] = Number.isNaN(bMaj.Mc) ? NaN : rMaj; xo[iFrame] = xs[iMaj];
-    ratio[iFrame + 1] = Number.isNaN(bMin.Mc) ? NaN : rMin; xo[iFrame + 1] = xs[iMin];
+    ratio[iFrame] = Number.isNaN(bMaj.Mc) ? (anyMy ? NaN : -1) : rMaj; xo[iFrame] = xs[iMaj];
+    ratio[iFrame + 1] = Number.isNaN(bMin.Mc) ? (anyMz ? NaN : -1) : rMin; xo[iFrame + 1] = xs[iMin];
     absMax(sf.V_major, xs, d, D_T);
     ratio[iFrame + 2] = ratioOf(vMaj.capacity, d[D_T]); xo[iFrame + 2] = d[D_T + 1];
     absMax(sf.V_minor, xs, d, D_T);
     ratio[iFrame + 3] = ratioOf(vMin.capacity, d[D_T]); xo[iFrame + 3] = d[D_T + 1];
-    ratio[iFrame + 4] = nan629 ? NaN : r629; xo[iFrame + 4] = xs[i629];
+    ratio[iFrame + 4] = nan629 ? NaN : combScope || !any629 ? -1 : r629; xo[iFrame + 4] = xs[i629];
     // lateral-torsional buckling by segment
     let chiMin = 1;
     if (ltb.applies) {
@@ -160,7 +165,7 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
         }
       }
       d[D_C1] = c1Gov; d[D_MLT] = mGov; d[D_XLT] = xL; d[D_CHILT] = chiMin;
-      ratio[iLtb] = ltbNaN ? NaN : rL; xo[iLtb] = xL;
+      ratio[iLtb] = ltbNaN ? (anyMy ? NaN : -1) : rL; xo[iLtb] = xL;
     }
     // 6.3.3
     absMax(sf.M_major, xs, d, D_MY);
@@ -171,8 +176,10 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
       segmentMoments(xs, sf.M_major, 0, m.length, seg);
       ii.Cmy = cmB3(seg[SEG_M0], seg[SEG_M1], seg[SEG_MS], isLinearSegment(seg));
       ii.CmLT = ii.Cmy;
-      segmentMoments(xs, sf.M_minor, 0, m.length, seg);
-      ii.Cmz = cmB3(seg[SEG_M0], seg[SEG_M1], seg[SEG_MS], isLinearSegment(seg));
+      if (anyMz) {
+        segmentMoments(xs, sf.M_minor, 0, m.length, seg);
+        ii.Cmz = cmB3(seg[SEG_M0], seg[SEG_M1], seg[SEG_MS], isLinearSegment(seg));
+      } else ii.Cmz = 1;
       ii.NEd = ncm; ii.MyEd = d[D_MY]; ii.MzEd = d[D_MZ]; ii.chiLT = ltb.applies ? chiMin : 1;
       const f = annexB(ii, fac);
       ratio[i633] = f.r61 > f.r62 ? f.r61 : f.r62; xo[i633] = d[D_MY] > 0 ? d[D_XMY] : xc;
@@ -247,8 +254,9 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
   return { member: m.id, slots, evaluate, records };
 }
 
+/** demand/capacity; a capacity outside scope gives NaN (not checked) with demand, −1 (not applicable) without. */
 function ratioOf(cap: number, demand: number): number {
-  return cap !== cap ? NaN : demand === 0 ? 0 : demand / cap;
+  return demand === 0 ? (cap !== cap ? -1 : 0) : cap !== cap ? NaN : demand / cap;
 }
 
 function maxAbs(v: Float64Array): number {

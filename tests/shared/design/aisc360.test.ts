@@ -255,7 +255,7 @@ describe('out of scope is never pass', () => {
   it('tee: flexure (F9), shear (G3) and E4 are not checked; tension is checked', () => {
     const L = 3;
     const plan = aiscPlan(designGeometry(tee), lrfd, { id: 'T1', length: L, truss: false, LcMajor: L, LcMinor: L, Lb: L, cantilever: false });
-    const recs = plan.records(stations(L, { N: () => -10e3, M_major: () => 1e3 }), 'U1').filter((r) => r !== null);
+    const recs = plan.records(stations(L, { N: () => -10e3, M_major: (x) => 1e3 * x, V_major: () => 1e3 }), 'U1').filter((r) => r !== null);
     for (const fam of ['bending_major', 'shear_major', 'combined'] as const) {
       expect(recs.find((r) => r!.family === fam)!.status).toBe('not checked');
     }
