@@ -23,6 +23,17 @@ import { importsRouter } from './imports/import.router.js';
 import { runsRouter } from './runs/run.router.js';
 import { closeRunPool } from './runs/worker-pool.js';
 import { samplesRouter, templatesRouter } from './samples/sample.router.js';
+import { accessRouter, membersRouter } from './membership/member.router.js';
+import { reviewsRouter } from './reviews/review.router.js';
+import { commentsRouter } from './comments/comment.router.js';
+import { auditRouter } from './audit/audit.router.js';
+import { auditTrail } from './audit/audit-middleware.js';
+import { outboxRouter } from './mail/outbox.router.js';
+import { closeMailers } from './mail/mailer.js';
+import { mailConfigFromEnv } from './mail/mail-config.js';
+import { accountRouter } from './security/account.router.js';
+import { csrfGuard } from './security/csrf.js';
+import { CONTENT_SECURITY_POLICY } from './security/csp.js';
 
 export interface AppContext {
   config: AppConfig;
@@ -41,13 +52,20 @@ export const apiRouters: [string, (ctx: AppContext) => Router][] = [
   ['/api/runs', runsRouter],
   ['/api/samples', samplesRouter],
   ['/api/templates', templatesRouter],
+  ['/api/projects/:projectId/members', membersRouter],
+  ['/api/projects/:projectId/access', accessRouter],
+  ['/api/runs/:runId/review', reviewsRouter],
+  ['/api/runs/:runId/comments', commentsRouter],
+  ['/api/audit', auditRouter],
+  ['/api/outbox', outboxRouter],
+  ['/api/account', accountRouter],
 ];
 
 /**
  * Work to finish when the server stops (SIGINT/SIGTERM), run in order after the HTTP server
  * has closed and before the database closes, e.g. `shutdownHooks.push(() => pool.close())`.
  */
-export const shutdownHooks: (() => Promise<void> | void)[] = [closeRunPool];
+export const shutdownHooks: (() => Promise<void> | void)[] = [closeRunPool, closeMailers];
 
 export const JSON_BODY_LIMIT = '5mb';
 
@@ -56,13 +74,7 @@ export function createApp(ctx: AppContext): Express {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', config.trustProxy ? 1 : false);
-  app.use(
-    helmet({
-      contentSecurityPolicy: {
-        directives: { 'upgrade-insecure-requests': null, 'worker-src': ["'self'", 'blob:'] },
-      },
-    }),
-  );
+  app.use(helmet({ contentSecurityPolicy: { useDefaults: false, directives: CONTENT_SECURITY_POLICY } }));
   app.use(cookieParser());
   app.use('/api', express.json({ limit: JSON_BODY_LIMIT }));
   app.use('/api', (_req, res, next) => {
@@ -74,7 +86,9 @@ export function createApp(ctx: AppContext): Express {
     res.json({ status: 'ok' });
   });
 
+  app.use('/api', csrfGuard(mailConfigFromEnv().appUrl));
   app.use('/api', authenticate(config, dataSource));
+  app.use('/api', auditTrail(dataSource, logger));
   for (const [mountPath, makeRouter] of apiRouters) app.use(mountPath, makeRouter(ctx));
   app.use('/api', apiNotFound);
 

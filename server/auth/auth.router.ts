@@ -8,6 +8,7 @@ import type { AppContext } from '../app.js';
 import { AppError } from '../errors/app-error.js';
 import { currentUser, requireAuth } from '../middleware/auth.js';
 import { toUser } from '../users/user.service.js';
+import { revokeSession } from '../security/session-revocation.js';
 import { changePassword, login } from './auth.service.js';
 import { SESSION_COOKIE, sessionCookieOptions, signSession } from './session-token.js';
 
@@ -33,7 +34,9 @@ export function authRouter(ctx: AppContext): Router {
     res.json(toUser(user));
   });
 
-  router.post('/logout', (_req, res) => {
+  router.post('/logout', async (req, res) => {
+    const token: unknown = req.cookies?.[SESSION_COOKIE];
+    if (typeof token === 'string' && token) await revokeSession(dataSource, token);
     res.clearCookie(SESSION_COOKIE, clearCookie);
     res.status(204).end();
   });

@@ -1,4 +1,5 @@
 /** The session cookie: a signed JWT carrying the user id and session version. */
+import { randomUUID } from 'node:crypto';
 import type { CookieOptions } from 'express';
 import jwt from 'jsonwebtoken';
 import type { AppConfig } from '../config/app-config.js';
@@ -16,6 +17,8 @@ export function signSession(config: AppConfig, userId: number, version: number):
   return jwt.sign({ ver: version }, config.jwtSecret, {
     algorithm: 'HS256',
     subject: String(userId),
+    // a random id makes every session distinct, so signing one out never touches another
+    jwtid: randomUUID(),
     expiresIn: Math.round(config.sessionHours * 3600),
   });
 }

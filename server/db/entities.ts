@@ -9,6 +9,13 @@ import { ModelEntity, ModelVersionEntity } from '../models/model.entity.js';
 import { PendingImportEntity } from '../imports/pending-import.entity.js';
 import { RunEntity, RunResultEntity } from '../runs/run.entity.js';
 import { UserEntity } from '../users/user.entity.js';
+import { ProjectMemberEntity } from '../membership/member.entity.js';
+import { RunReviewEntity } from '../reviews/review.entity.js';
+import { CommentEntity } from '../comments/comment.entity.js';
+import { OutboxEntity } from '../mail/outbox.entity.js';
+import { AuditEntity } from '../audit/audit.entity.js';
+import { AccountTokenEntity } from '../security/account-token.entity.js';
+import { RevokedSessionEntity } from '../security/revoked-session.entity.js';
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 export const entities: (EntitySchema<any> | Function)[] = [
@@ -19,4 +26,11 @@ export const entities: (EntitySchema<any> | Function)[] = [
   PendingImportEntity,
   RunEntity,
   RunResultEntity,
+  ProjectMemberEntity,
+  RunReviewEntity,
+  CommentEntity,
+  OutboxEntity,
+  AuditEntity,
+  AccountTokenEntity,
+  RevokedSessionEntity,
 ];

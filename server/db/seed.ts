@@ -11,6 +11,7 @@ import { hashPassword } from '../auth/password.js';
 import { ProjectEntity, type ProjectRecord } from '../projects/project.entity.js';
 import { UserEntity, type UserRecord } from '../users/user.entity.js';
 import { seedSampleModels } from '../models/model.seed.js';
+import { seedProjectMembers } from '../membership/member.seed.js';
 
 export const DEMO_PASSWORD = 'trestle-demo';
 
@@ -34,7 +35,7 @@ export interface SeedContext {
 export type SeedHook = (seed: SeedContext) => Promise<void>;
 
 /** Run after the demo users and projects exist. Append yours. */
-export const seedHooks: SeedHook[] = [seedSampleModels];
+export const seedHooks: SeedHook[] = [seedProjectMembers, seedSampleModels];
 
 /**
  * The four demo accounts (also used alone by the API tests, which pass one precomputed hash

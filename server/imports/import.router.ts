@@ -11,6 +11,9 @@ import { currentUser, requireRole } from '../middleware/auth.js';
 import { parseId } from '../middleware/params.js';
 import { describeBytes, importLimits, type ImportLimits } from './import-limits.js';
 import { commitImport, getPreview, previewImport } from './import.service.js';
+import { projectGuards } from '../membership/project-access.js';
+import { assertModelEditable } from '../reviews/lock.js';
+import { PendingImportEntity } from './pending-import.entity.js';
 
 export const IMPORTERS = rolesAtLeast('engineer');
 
@@ -41,8 +44,9 @@ export function importsRouter({ dataSource }: AppContext): Router {
   const router = Router({ mergeParams: true });
   const limits = importLimits();
   const projectId = (params: unknown) => parseId((params as Record<string, string>).projectId, 'Project');
+  const guard = projectGuards(dataSource);
 
-  router.post('/', requireRole(...IMPORTERS), upload(limits), async (req, res) => {
+  router.post('/', requireRole(...IMPORTERS), guard.project('projectId', 'engineer'), upload(limits), async (req, res) => {
     const files = ((req.files as Express.Multer.File[] | undefined) ?? []).map((f) => ({
       name: Buffer.from(f.originalname, 'latin1').toString('utf8'),
       buffer: f.buffer,
@@ -55,11 +59,13 @@ export function importsRouter({ dataSource }: AppContext): Router {
     res.status(201).json(await previewImport(dataSource, projectId(req.params), currentUser(req).id, files, fields, limits));
   });
 
-  router.get('/:importId', requireRole(...IMPORTERS), async (req, res) => {
+  router.get('/:importId', requireRole(...IMPORTERS), guard.project('projectId', 'engineer'), async (req, res) => {
     res.json(await getPreview(dataSource, projectId(req.params), String(req.params.importId)));
   });
 
-  router.post('/:importId/commit', requireRole(...IMPORTERS), async (req, res) => {
+  router.post('/:importId/commit', requireRole(...IMPORTERS), guard.project('projectId', 'engineer'), async (req, res) => {
+    const pending = await dataSource.getRepository(PendingImportEntity).findOneBy({ id: String(req.params.importId), projectId: projectId(req.params) });
+    if (pending?.modelId) await assertModelEditable(dataSource, pending.modelId);
     res.status(201).json(await commitImport(dataSource, projectId(req.params), String(req.params.importId), currentUser(req).id, req.body ?? {}));
   });
 

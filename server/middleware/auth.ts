@@ -13,6 +13,7 @@ import type { AppConfig } from '../config/app-config.js';
 import { forbidden, unauthorized } from '../errors/app-error.js';
 import { SESSION_COOKIE, verifySession } from '../auth/session-token.js';
 import { UserEntity, type UserRecord } from '../users/user.entity.js';
+import { isRevoked } from '../security/session-revocation.js';
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
@@ -31,7 +32,7 @@ export function authenticate(config: AppConfig, dataSource: DataSource): Request
     if (typeof token === 'string' && token) {
       const claims = verifySession(config, token);
       const id = claims ? Number(claims.sub) : NaN;
-      if (claims && Number.isSafeInteger(id)) {
+      if (claims && Number.isSafeInteger(id) && !(await isRevoked(dataSource, token))) {
         const user = await users.findOneBy({ id });
         if (user && user.active && user.sessionVersion === claims.ver) req.user = user;
       }

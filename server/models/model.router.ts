@@ -9,6 +9,8 @@ import { currentUser, requireRole } from '../middleware/auth.js';
 import { parseId } from '../middleware/params.js';
 import { listRuns, startRun } from '../runs/run.service.js';
 import { editMembers, getEditableMembers, getModelDetail, listModels, listVersions, renameModel } from './model.service.js';
+import { projectGuards, runVisibleTo } from '../membership/project-access.js';
+import { assertModelEditable } from '../reviews/lock.js';
 
 export const MODEL_READERS = rolesAtLeast('viewer');
 export const MODEL_EDITORS = rolesAtLeast('engineer');
@@ -20,7 +22,8 @@ function optionalVersion(raw: unknown): number | undefined {
 
 export function projectModelsRouter({ dataSource }: AppContext): Router {
   const router = Router({ mergeParams: true });
-  router.get('/', requireRole(...MODEL_READERS), async (req, res) => {
+  const guard = projectGuards(dataSource);
+  router.get('/', requireRole(...MODEL_READERS), guard.project('projectId'), async (req, res) => {
     res.json(await listModels(dataSource, parseId((req.params as Record<string, string>).projectId, 'Project')));
   });
   return router;
@@ -28,25 +31,28 @@ export function projectModelsRouter({ dataSource }: AppContext): Router {
 
 export function modelsRouter({ dataSource }: AppContext): Router {
   const router = Router();
-  router.get('/:id', requireRole(...MODEL_READERS), async (req, res) => {
+  const guard = projectGuards(dataSource);
+  router.get('/:id', requireRole(...MODEL_READERS), guard.model('id'), async (req, res) => {
     res.json(await getModelDetail(dataSource, parseId(req.params.id, 'Model')));
   });
-  router.patch('/:id', requireRole(...MODEL_EDITORS), async (req, res) => {
+  router.patch('/:id', requireRole(...MODEL_EDITORS), guard.model('id', 'engineer'), async (req, res) => {
     res.json(await renameModel(dataSource, parseId(req.params.id, 'Model'), req.body ?? {}));
   });
-  router.get('/:id/versions', requireRole(...MODEL_READERS), async (req, res) => {
+  router.get('/:id/versions', requireRole(...MODEL_READERS), guard.model('id'), async (req, res) => {
     res.json(await listVersions(dataSource, parseId(req.params.id, 'Model')));
   });
-  router.get('/:id/members', requireRole(...MODEL_READERS), async (req, res) => {
+  router.get('/:id/members', requireRole(...MODEL_READERS), guard.model('id'), async (req, res) => {
     res.json(await getEditableMembers(dataSource, parseId(req.params.id, 'Model'), optionalVersion(req.query.version)));
   });
-  router.patch('/:id/members', requireRole(...MODEL_EDITORS), async (req, res) => {
+  router.patch('/:id/members', requireRole(...MODEL_EDITORS), guard.model('id', 'engineer'), async (req, res) => {
+    await assertModelEditable(dataSource, req.access!.modelId!);
     res.json(await editMembers(dataSource, parseId(req.params.id, 'Model'), currentUser(req).id, req.body ?? {}));
   });
-  router.get('/:id/runs', requireRole(...MODEL_READERS), async (req, res) => {
-    res.json(await listRuns(dataSource, parseId(req.params.id, 'Model')));
+  router.get('/:id/runs', requireRole(...MODEL_READERS), guard.model('id'), async (req, res) => {
+    const role = req.access!.role;
+    res.json((await listRuns(dataSource, parseId(req.params.id, 'Model'))).filter((r) => runVisibleTo(role, r)));
   });
-  router.post('/:id/runs', requireRole(...MODEL_EDITORS), async (req, res) => {
+  router.post('/:id/runs', requireRole(...MODEL_EDITORS), guard.model('id', 'engineer'), async (req, res) => {
     res.status(202).json(await startRun(dataSource, parseId(req.params.id, 'Model'), currentUser(req).id, req.body ?? {}));
   });
   return router;

@@ -8,6 +8,7 @@ import { exportRun } from '../exports/export.service.js';
 import { requireRole } from '../middleware/auth.js';
 import { parseId } from '../middleware/params.js';
 import { runPool } from './worker-pool.js';
+import { projectGuards } from '../membership/project-access.js';
 import { compareRuns, getMemberDetail, getRun, getRunGeometry, getRunMembers, recoverInterruptedRuns } from './run.service.js';
 
 export const RUN_READERS = rolesAtLeast('viewer');
@@ -17,28 +18,29 @@ const text = (v: unknown) => (typeof v === 'string' ? v : undefined);
 
 export function runsRouter({ dataSource, logger }: AppContext): Router {
   const router = Router();
+  const guard = projectGuards(dataSource);
   void recoverInterruptedRuns(dataSource, logger);
   if (process.env.NODE_ENV !== 'test') void runPool().warm();
 
-  router.get('/compare', requireRole(...RUN_READERS), async (req, res) => {
+  router.get('/compare', requireRole(...RUN_READERS), guard.runsInQuery('a', 'b'), async (req, res) => {
     const a = text(req.query.a);
     const b = text(req.query.b);
     if (!a || !b) throw badRequest('Give two run ids: /api/runs/compare?a=<run>&b=<run>');
     res.json(await compareRuns(dataSource, parseId(a, 'Run'), parseId(b, 'Run')));
   });
-  router.get('/:id', requireRole(...RUN_READERS), async (req, res) => {
+  router.get('/:id', requireRole(...RUN_READERS), guard.run('id'), async (req, res) => {
     res.json(await getRun(dataSource, parseId(req.params.id, 'Run')));
   });
-  router.get('/:id/members', requireRole(...RUN_READERS), async (req, res) => {
+  router.get('/:id/members', requireRole(...RUN_READERS), guard.run('id'), async (req, res) => {
     res.json(await getRunMembers(dataSource, parseId(req.params.id, 'Run')));
   });
-  router.get('/:id/members/:member', requireRole(...RUN_READERS), async (req, res) => {
+  router.get('/:id/members/:member', requireRole(...RUN_READERS), guard.run('id'), async (req, res) => {
     res.json(await getMemberDetail(dataSource, parseId(req.params.id, 'Run'), String(req.params.member), text(req.query.loading)));
   });
-  router.get('/:id/model', requireRole(...RUN_READERS), async (req, res) => {
+  router.get('/:id/model', requireRole(...RUN_READERS), guard.run('id'), async (req, res) => {
     res.json(await getRunGeometry(dataSource, parseId(req.params.id, 'Run'), text(req.query.loading)));
   });
-  router.get('/:id/exports/:file', requireRole(...RUN_EXPORTERS), async (req, res) => {
+  router.get('/:id/exports/:file', requireRole(...RUN_EXPORTERS), guard.run('id'), async (req, res) => {
     const m = /^([a-z]+)\.([a-z]+)$/.exec(String(req.params.file));
     if (!m || !(EXPORT_KINDS as readonly string[]).includes(m[1]) || !(EXPORT_FORMATS as readonly string[]).includes(m[2])) {
       throw notFound(`No export ${String(req.params.file)}: choose ${EXPORT_KINDS.join(', ')} as .xlsx or .csv`);

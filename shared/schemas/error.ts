@@ -15,6 +15,7 @@ export const ERROR_CODES = [
   'payload_too_large',
   'rate_limited',
   'internal',
+  'locked',
 ] as const;
 export type ErrorCode = (typeof ERROR_CODES)[number];
 

@@ -37,6 +37,10 @@ describe('projects', () => {
     });
     expect(created.status).toBe(201);
     const id = created.body.id as number;
+    // membership (server/membership): the creator is its lead; others see it once added
+    for (const [email, role] of [['viewer@example.com', 'viewer'], ['engineer@example.com', 'engineer']]) {
+      expect((await t.as('lead').post(`/api/projects/${id}/members`).send({ email, role })).status).toBe(201);
+    }
 
     const list = await t.as('viewer').get('/api/projects');
     expect(list.status).toBe(200);
@@ -70,7 +74,7 @@ describe('projects', () => {
     const res = await t.as('engineer').patch(`/api/projects/${created.body.id}`).send({ name: '', client: 'X' });
     expect(res.status).toBe(400);
     expect(res.body.error.details.fieldErrors.name).toBeDefined();
-    expect((await t.as('viewer').get(`/api/projects/${created.body.id}`)).body.client).toBe('');
+    expect((await t.as('admin').get(`/api/projects/${created.body.id}`)).body.client).toBe('');
   });
 
   it('answers 404 JSON for a missing or malformed id', async () => {

@@ -10,6 +10,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { ROLES, rolesAtLeast, type Role } from '../../shared/schemas/users.js';
+import { SESSION_COOKIE, signSession } from '../../server/auth/session-token.js';
 import { listRoutes } from './helpers/list-routes.js';
 import { createTestApp, type TestApp } from './helpers/test-app.js';
 
@@ -61,6 +62,26 @@ export const ROUTES: RouteRule[] = [
   { method: 'GET', path: '/api/samples', allowed: READ },
   { method: 'GET', path: '/api/samples/:file', allowed: READ },
   { method: 'GET', path: '/api/templates/:file', allowed: READ },
+  // membership, reviews, comments, audit, mail, account (server/membership, reviews, comments, audit, mail, security);
+  // project scoping (member / non-member) is covered in tests/server/membership/scope-matrix.test.ts
+  { method: 'GET', path: '/api/projects/:projectId/members', allowed: READ },
+  { method: 'POST', path: '/api/projects/:projectId/members', allowed: LEAD },
+  { method: 'PATCH', path: '/api/projects/:projectId/members/:userId', allowed: LEAD },
+  { method: 'DELETE', path: '/api/projects/:projectId/members/:userId', allowed: LEAD },
+  { method: 'GET', path: '/api/projects/:projectId/access', allowed: READ },
+  { method: 'GET', path: '/api/runs/:runId/review', allowed: READ },
+  { method: 'POST', path: '/api/runs/:runId/review/submit', allowed: EDIT },
+  { method: 'POST', path: '/api/runs/:runId/review/return', allowed: LEAD },
+  { method: 'POST', path: '/api/runs/:runId/review/approve', allowed: LEAD },
+  { method: 'GET', path: '/api/runs/:runId/comments', allowed: READ },
+  { method: 'POST', path: '/api/runs/:runId/comments', allowed: EDIT },
+  { method: 'GET', path: '/api/audit', allowed: LEAD },
+  { method: 'GET', path: '/api/audit/export.csv', allowed: LEAD },
+  { method: 'GET', path: '/api/outbox', allowed: 'signed-in' },
+  { method: 'POST', path: '/api/account/invite', allowed: ADMIN },
+  { method: 'POST', path: '/api/account/forgot', allowed: 'public' },
+  { method: 'GET', path: '/api/account/token', allowed: 'public' },
+  { method: 'POST', path: '/api/account/set-password', allowed: 'public' },
 ];
 
 /** Routes outside /api (the single-page fallback) are not part of the matrix. */
@@ -76,6 +97,11 @@ function allowedRoles(access: Access): readonly Role[] {
 }
 
 let t: TestApp;
+
+function freshCookie(role: Role): string {
+  const u = t.users[role]!;
+  return `${SESSION_COOKIE}=${signSession(t.config, u.id, u.sessionVersion)}`;
+}
 beforeAll(async () => {
   t = await createTestApp();
 });
@@ -108,7 +134,8 @@ describe.each(ROUTES)('$method $path', (rule) => {
   for (const role of ROLES) {
     if (allowed.includes(role)) {
       it(`lets ${role} past the role guard`, async () => {
-        const res = await send(rule, t.cookieFor(role));
+        // signing out revokes the session it carries: use a fresh one so later cases keep theirs
+        const res = await send(rule, rule.path === '/api/auth/logout' ? freshCookie(role) : t.cookieFor(role));
         expect([401, 403]).not.toContain(res.status);
       });
     } else {

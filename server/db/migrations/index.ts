@@ -8,5 +8,6 @@
 import type { MigrationInterface } from 'typeorm';
 import { Foundation1764633600000 } from './1764633600000-foundation.js';
 import { ModelsRuns1764640000000 } from './1764640000000-models-runs.js';
+import { ReviewAudit1764700000000 } from './1764700000000-review-audit.js';
 
-export const migrations: (new () => MigrationInterface)[] = [Foundation1764633600000, ModelsRuns1764640000000];
+export const migrations: (new () => MigrationInterface)[] = [Foundation1764633600000, ModelsRuns1764640000000, ReviewAudit1764700000000];

@@ -1,0 +1,26 @@
+/** Rate limits of the public account routes (forgot password, set password). */
+import type { RequestHandler } from 'express';
+import { rateLimit } from 'express-rate-limit';
+import { z } from 'zod';
+import { AppError } from '../errors/app-error.js';
+
+export interface AccountRateLimits {
+  /** requests per window per client address */
+  limit: number;
+  windowMs: number;
+}
+
+export function accountRateLimitsFromEnv(env: Record<string, string | undefined> = process.env): AccountRateLimits {
+  const v = z.coerce.number().int().positive().default(5).safeParse(env.RESET_RATE_LIMIT?.trim() || undefined);
+  return { limit: v.success ? v.data : 5, windowMs: 15 * 60_000 };
+}
+
+export function accountLimiter(limits: AccountRateLimits): RequestHandler {
+  return rateLimit({
+    windowMs: limits.windowMs,
+    limit: limits.limit,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'Too many requests; wait a few minutes and try again')),
+  });
+}
