@@ -1,3 +1,7 @@
+/**
+ * Prints each sample's schedule (governing ratio per member, worst first) to tune the demo
+ * loads. Run: npx tsx scripts/samples/tune.ts footbridge-truss portal-frame-building plant-structure
+ */
 import { readFileSync } from 'node:fs';
 import { readWorkbook, formatProblem } from '../../shared/reader/index.js';
 import { analyse } from '../../shared/engine/index.js';
