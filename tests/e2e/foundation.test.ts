@@ -75,7 +75,8 @@ describe.skipIf(!enabled)('foundation in the browser', () => {
     await app.clearSession();
     const page = await app.newPage();
     await signIn(page, app.baseUrl, 'viewer@example.com');
-    const row = page.locator('[data-test=project-row]', { hasText: 'Harbour crane rail girder' });
+    // Projects are visible to their members; the demo footbridge project lists the viewer.
+    const row = page.locator('[data-test=project-row]', { hasText: 'Kestrel Creek footbridge' });
     await row.waitFor();
     expect(await page.locator('[data-test=new-project]').count()).toBe(0);
     expect(await page.locator('[data-test=nav-admin-users]').count()).toBe(0);
