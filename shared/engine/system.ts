@@ -10,6 +10,7 @@ import { buildMesh, elementReleases, FREE, type Mesh, NO_STIFFNESS } from './dis
 import { localStiffness, toGlobalStiffness, trussGlobalStiffness } from './element.js';
 import { fixedEndForces } from './fixedEnd.js';
 import { instabilityAt } from './instability.js';
+import { findSpinModes } from './spinModes.js';
 import { clipLoadSet, type LoadSet } from './loadSet.js';
 import { buildLoadSets } from './memberLoads.js';
 
@@ -84,15 +85,40 @@ export function buildSystem(model: Model, taperSegments: number, timings: Record
     }
   }
   const status = mesh.status;
+  // pin joints: every member meeting the node is a truss or has both bending moments released
+  // there. Torsion cannot pass a pin, so the node's rotations carry nothing: they are removed
+  // (a node moment there is an instability, caught with the node loads).
+  const momentJoint = new Uint8Array(nNodes), connected = new Uint8Array(nNodes);
+  for (let e = 0; e < nEl; e++) {
+    const truss = mesh.members[mesh.elMember[e]].truss, bits = mesh.elRel[e];
+    connected[mesh.elStart[e]] = connected[mesh.elEnd[e]] = 1;
+    if (!truss && (bits & 3) !== 3) momentJoint[mesh.elStart[e]] = 1;
+    if (!truss && (bits & 12) !== 12) momentJoint[mesh.elEnd[e]] = 1;
+  }
+  for (let n = 0; n < nNodes; n++) {
+    if (!connected[n] || momentJoint[n]) continue;
+    for (let k = 3; k < 6; k++) if (status[n * 6 + k] === FREE && mesh.springs[n * 6 + k] === 0) status[n * 6 + k] = NO_STIFFNESS;
+  }
   for (let g = 0; g < nDofAll; g++) {
     if (status[g] !== FREE || diag[g] !== 0) continue;
     if (g % 6 >= 3) status[g] = NO_STIFFNESS;
     else throw instabilityAt(mesh.nodeNames[Math.floor(g / 6)], g % 6);
   }
+  const spins = findSpinModes(mesh, kgAll, status);
   const { eq, nEq, eqDof } = numberEquations(status);
   const pat = buildPattern(nNodes, mesh.elStart, mesh.elEnd, eq, nEq);
   for (let e = 0; e < nEl; e++) addElement(pat, eq, e, mesh.elStart[e], mesh.elEnd[e], kgAll, e * 144);
   addSprings(pat, eq, mesh.springs);
+  for (const sp of spins) {
+    // k·v·vᵀ on the node's free rotations (lower triangle of its own block)
+    sp.dofs.forEach((dc, c) => {
+      const ec = eq[sp.node * 6 + dc];
+      sp.dofs.forEach((dr, r) => {
+        const er = eq[sp.node * 6 + dr];
+        if (er >= ec) pat.K.values[pat.K.colPtr[ec] + (er - ec)] += sp.k * sp.v[r] * sp.v[c];
+      });
+    });
+  }
   timings.assembly = now() - t;
   t = now();
 
@@ -131,6 +157,16 @@ export function buildSystem(model: Model, taperSegments: number, timings: Record
       const g = n * 6 + k;
       if (eq[g] >= 0) F[c * nEq + eq[g]] += v;
       else if (status[g] === NO_STIFFNESS) throw instabilityAt(mesh.nodeNames[n], k);
+    }
+    for (const sp of spins) {
+      if (sp.node !== n) continue;
+      let dot = 0, norm = 0, big = 0;
+      sp.dofs.forEach((d, i) => {
+        dot += nl.values[d] * sp.v[i];
+        norm += nl.values[d] ** 2;
+        if (Math.abs(sp.v[i]) > Math.abs(sp.v[big])) big = i;
+      });
+      if (Math.abs(dot) > 1e-9 * Math.sqrt(norm)) throw instabilityAt(mesh.nodeNames[n], sp.dofs[big]);
     }
   }
   const fg = new Float64Array(12);
