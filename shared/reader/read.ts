@@ -213,7 +213,7 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
     members.set(id, m);
     if (a && b && !invalidNodes.has(a.id) && !invalidNodes.has(b.id)) {
       const L = dist(a, b);
-      memberLength.set(id, L);
+      if (L > 1e-9) memberLength.set(id, L); // loads on a zero-length member are not judged again
       if (L <= 1e-9) problems.error('members', r.row, lab('members', 'end'), m.start === m.end ? `member ${id} starts and ends at node ${m.start}` : `member ${id} has zero length: nodes ${m.start} and ${m.end} are at the same place`);
     }
     let sec: Section | undefined;
