@@ -56,6 +56,23 @@ describe('tapered members', () => {
     expect(run.diagnostics.equilibrium[0].residual).toBeLessThan(1e-9);
   });
 
+  it('member loads on a tapered member are split over its pieces: UDL plus a point load at mid-length', () => {
+    const w = 3e3, Pm = 4e3;
+    const model = new ModelBuilder({ planeNormal: 'Y' })
+      .section('S0', { I_major: I0, A: 0.012 }).section('S1', { I_major: I1, A: 0.006 })
+      .node('A', 0, 0, 0).node('B', L, 0, 0).support('A', 'fixed')
+      .member('M1', 'A', 'B', { section: 'S0', sectionEnd: 'S1' })
+      .loadCase('D').memberLoad('D', 'M1', 'uniform', 'global_z', -w).memberLoad('D', 'M1', 'point', 'global_z', -Pm, { a: L / 2 }).build();
+    const r = analyse(model);
+    const f = r.memberForces(0, 0);
+    // Statics of the cantilever: M(0) = −wL²/2 − Pm·L/2 (tolerance rel 1e-9); tip deflection by unit load
+    //   δ = ∫₀ᴸ |M(x)|·(L − x)/(E I(x)) dx, M(x) = w(L−x)²/2 + Pm·⟨L/2 − x⟩ (Simpson, n = 2000); tolerance 0.5 %.
+    expect(f.M_major[0] / (-(w * L * L) / 2 - (Pm * L) / 2)).toBeCloseTo(1, 9);
+    const ref = simpson((x) => (((w * (L - x) ** 2) / 2 + (x < L / 2 ? Pm * (L / 2 - x) : 0)) * (L - x)) / (E * (I0 + k * x)), 0, L, 4000);
+    expect(relErr(-r.displacements(0)[6 + 2], ref)).toBeLessThan(0.005);
+    expect(r.diagnostics.equilibrium[0].residual).toBeLessThan(1e-9);
+  });
+
   it('dimensioned rectangle tapering in depth: dimensions interpolate, I = b·h(x)³/12', () => {
     const b = 0.2, h0 = 0.5, h1 = 0.25;
     const m = new ModelBuilder({ planeNormal: 'Y' }).build();
