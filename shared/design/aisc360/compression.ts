@@ -1,8 +1,8 @@
 /**
  * AISC 360-22 Chapter E compressive strength for members without slender elements:
- * E3 flexural buckling and E4 torsional buckling of doubly symmetric I-shapes. Slender
- * elements (E7), singly symmetric and unsymmetric shapes (E4 flexural-torsional: tees,
- * channels) and single angles (E5) are `not checked`.
+ * E3 flexural buckling; E4 torsional buckling of doubly symmetric I-shapes and
+ * flexural-torsional buckling of singly symmetric tees and channels. Slender elements (E7),
+ * unsymmetric shapes and single angles (E5) are `not checked`.
  */
 import { inp, notCheckedHead } from '../record.js';
 import type { DesignGeometry } from '../geometry.js';
@@ -61,16 +61,18 @@ export function compressionE3(g: DesignGeometry, c: AiscContext, LcMajor: number
 
 /**
  * E4 torsional buckling. Doubly symmetric I: Fe = (π²E·Cw/Lcz² + G·J)/(Ix + Iy) (Eq. E4-2)
- * with Lcz taken as the minor-axis effective length (stated). Closed and solid sections:
- * null (torsional buckling does not govern, E4 user note). Tees and channels: not checked.
+ * with Lcz taken as the minor-axis effective length (stated). Tees and channels: E4(b)
+ * below. Closed and solid sections: null (torsional buckling does not govern, E4 user
+ * note). Angles and custom sections: not checked.
  */
-export function compressionE4(g: DesignGeometry, c: AiscContext, Lcz: number): Capacity | null {
+export function compressionE4(g: DesignGeometry, c: AiscContext, Lcz: number, LcMajor = Lcz, LcMinor = Lcz): Capacity | null {
   if (g.shape === 'rhs' || g.shape === 'chs' || g.shape === 'rect' || g.shape === 'round') return null;
-  if (g.shape === 'tee' || g.shape === 'channel' || g.shape === 'angle' || g.shape === 'custom') {
-    return { capacity: NaN, head: notCheckedHead('compression', c.code, 'E4', 'flexural-torsional buckling', `${g.shape === 'custom' ? 'custom section' : g.shape}: E4 flexural-torsional buckling of singly symmetric and unsymmetric members not implemented`) };
+  if (g.shape === 'angle' || g.shape === 'custom') {
+    return { capacity: NaN, head: notCheckedHead('compression', c.code, 'E4', 'flexural-torsional buckling', `${g.shape === 'custom' ? 'custom section' : 'single angle'}: E4 flexural-torsional buckling of unsymmetric members not implemented`) };
   }
   const reason = compressionScope(g, c);
   if (reason) return { capacity: NaN, head: notCheckedHead('compression', c.code, 'E4', 'torsional buckling', reason) };
+  if (g.shape === 'tee' || g.shape === 'channel') return compressionE4Singly(g, c, Lcz, LcMajor, LcMinor);
   const Fe = ((Math.PI * Math.PI * c.E * g.Cw) / (Lcz * Lcz) + c.G * g.J) / (g.Imaj + g.Imin);
   const Fcr = fcrE3(c.Fy, Fe);
   const Pn = Fcr * g.A;
@@ -89,6 +91,63 @@ export function compressionE4(g: DesignGeometry, c: AiscContext, Lcz: number): C
       ],
       quantity: 'force',
       note: 'Lcz taken equal to the minor-axis effective length',
+    },
+  };
+}
+
+/**
+ * Distance from the centroid to the shear centre of a tee (along the stem) or a channel
+ * (along the flanges), thin-walled and without fillets (stated approximation).
+ * Tee: shear centre at the intersection of the flange and stem mid-planes.
+ * Channel: shear centre at e = 3b'²tf/(6b'tf + h'tw) behind the web mid-plane, with
+ * b' = bf − tw/2 and h' = d − tf (the classical thin-walled result).
+ */
+export function shearCentreOffset(g: DesignGeometry): number {
+  if (g.shape === 'tee') {
+    const af = g.bf * g.tf, aw = (g.d - g.tf) * g.tw;
+    const zc = (af * (g.d - g.tf / 2) + aw * ((g.d - g.tf) / 2)) / (af + aw); // from the stem tip
+    return g.d - g.tf / 2 - zc;
+  }
+  const af = 2 * g.bf * g.tf, aw = (g.d - 2 * g.tf) * g.tw;
+  const xc = (af * (g.bf / 2) + aw * (g.tw / 2)) / (af + aw); // from the back of the web
+  const b = g.bf - g.tw / 2, h = g.d - g.tf;
+  const e = (3 * b * b * g.tf) / (6 * b * g.tf + h * g.tw);
+  return xc - g.tw / 2 + e;
+}
+
+/**
+ * E4(b) singly symmetric members (tees: axis of symmetry is the minor axis; channels: the
+ * major axis): Fe = (Fes + Fez)/(2H)·[1 − √(1 − 4·Fes·Fez·H/(Fes + Fez)²)] (Eq. E4-3) with
+ * Fes the flexural buckling stress about the axis of symmetry, Fez = (π²E·Cw/Lcz² + G·J)/(Ag·ro²)
+ * (Eq. E4-9), ro² = x0² + y0² + (Ix + Iy)/Ag (Eq. E4-11), H = 1 − (x0² + y0²)/ro² (Eq. E4-10).
+ */
+export function compressionE4Singly(g: DesignGeometry, c: AiscContext, Lcz: number, LcMajor: number, LcMinor: number): Capacity {
+  const tee = g.shape === 'tee';
+  const s = tee ? LcMinor / g.rmin : LcMajor / g.rmaj;
+  const Fes = (Math.PI * Math.PI * c.E) / (s * s);
+  const y0 = shearCentreOffset(g);
+  const ro2 = y0 * y0 + (g.Imaj + g.Imin) / g.A;
+  const H = 1 - (y0 * y0) / ro2;
+  const Fez = ((Math.PI * Math.PI * c.E * g.Cw) / (Lcz * Lcz) + c.G * g.J) / (g.A * ro2);
+  const sum = Fes + Fez;
+  const Fe = (sum / (2 * H)) * (1 - Math.sqrt(1 - (4 * Fes * Fez * H) / (sum * sum)));
+  const Fcr = fcrE3(c.Fy, Fe);
+  const Pn = Fcr * g.A;
+  const f = AISC_FACTORS.compression;
+  return {
+    capacity: factorOn(c.method, f) * Pn,
+    head: {
+      family: 'compression', code: c.code, clause: 'E4', title: 'flexural-torsional buckling',
+      equation: `${factorWords(c.method, f, c.method === 'lrfd' ? 'φc·Pn' : 'Pn/Ωc', 'Fcr·Ag')}; Fe = (Fes + Fez)/(2H)·[1 − √(1 − 4FesFezH/(Fes + Fez)²)] (Eq. E4-3); Fcr by Eq. E3-2/E3-3`,
+      inputs: [
+        inp('Fy', 'yield stress', c.Fy, 'stress'), inp('Fes', `flexural buckling stress about the axis of symmetry (${tee ? 'minor' : 'major'})`, Fes, 'stress'),
+        inp('Fez', 'torsional buckling stress (Eq. E4-9)', Fez, 'stress'), inp('ro', 'polar radius of gyration about the shear centre (Eq. E4-11)', Math.sqrt(ro2), 'section_dim'),
+        inp('y0', 'centroid to shear centre', y0, 'section_dim'), inp('H', 'flexural constant (Eq. E4-10)', H, 'ratio'),
+        inp('Cw', 'warping constant', g.Cw, 'warping'), inp('J', 'torsion constant', g.J, 'inertia'), inp('Lcz', 'torsional effective length', Lcz, 'length'),
+        inp('Fe', 'elastic buckling stress', Fe, 'stress'), inp('Fcr', 'critical stress', Fcr, 'stress'), inp('Pn', 'nominal compressive strength', Pn, 'force'),
+      ],
+      quantity: 'force',
+      note: 'Lcz taken equal to the minor-axis effective length; shear centre from thin-walled dimensions without fillets',
     },
   };
 }

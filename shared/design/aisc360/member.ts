@@ -45,7 +45,7 @@ export function aiscPlan(g: DesignGeometry, cx: AiscContext, m: MemberSetup): Me
   const ty = tensionYieldD2a(g, cx);
   const tr = tensionRuptureD2b(g, cx);
   const e3 = compressionE3(g, cx, m.LcMajor, m.LcMinor);
-  const e4 = compressionE4(g, cx, m.LcMinor);
+  const e4 = compressionE4(g, cx, m.LcMinor, m.LcMajor, m.LcMinor);
   const slots: Slot[] = [{ family: 'tension', key: 'D2(a)' }, { family: 'tension', key: 'D2(b)' }, { family: 'compression', key: 'E3' }];
   if (e4) slots.push({ family: 'compression', key: 'E4' });
   const iE4 = e4 ? 3 : -1;
