@@ -107,6 +107,7 @@ export async function runCli(args: string[], io: CliIO): Promise<number> {
 
     const tables: ResultTable[] = [displacementTable(model, analysis), reactionTable(model, analysis), memberForceTable(model, analysis)];
     if (checker) {
+      if (model.settings.designCode === 'none') io.err('settings design_code: warning: design_code is none, so every member comes out not checked');
       let design: DesignResultLike;
       try {
         design = checker(model, analysis);
