@@ -67,3 +67,14 @@ describe('samples as a set', () => {
     expect(all.some((s) => s.tables.combinations && !s.tables.combinations[0].includes('factor'))).toBe(true);
   });
 });
+
+describe('portal-frame-building', () => {
+  it('is read as a plane frame in X–Y with Y up inferred, in us units', async () => {
+    const { xlsx } = await readBoth('portal-frame-building');
+    expect(xlsx.inferred.planeFrame).toEqual({ plane: 'XY', normal: 'Z' });
+    expect(xlsx.inferred.verticalAxisInferred).toBe(true);
+    expect(xlsx.settings.verticalAxis).toBe('Y');
+    // 60 ft bay = 18.288 m (1 ft = 0.3048 m exactly)
+    expect(xlsx.nodes.find((n) => n.id === 'B0')!.x).toBeCloseTo(18.288, 12);
+  });
+});
