@@ -2,8 +2,9 @@
  * Nested dissection ordering (George, SIAM J. Numer. Anal. 10 (1973) 345–363): split the
  * graph by a vertex separator, order both halves recursively and the separator last.
  * Separators come from breadth-first level structures rooted at a pseudo-peripheral vertex
- * (George & Liu, ACM TOMS 5 (1979) 284–299); the level with the best size/balance ratio is
- * taken and then trimmed and improved by greedy vertex moves. Small parts are ordered by
+ * (George & Liu, ACM TOMS 5 (1979) 284–299). Every level structure met while searching for
+ * that root proposes its level with the lowest separator weight × total / (part A × part B);
+ * the best proposal is trimmed by greedy vertex moves. Small parts are ordered by
  * approximate minimum degree.
  */
 import { amdOrder } from './amd.js';
@@ -91,6 +92,38 @@ export function nestedDissectionOrder(
       tasks.push({ verts: rest, lo: lo + reached });
       continue;
     }
+    // every level structure met on the way to a pseudo-peripheral root proposes a separating
+    // level; keep the proposal with the lowest separator weight relative to the parts' sizes
+    const levW = new Float64Array(m + 1);
+    let bestCost = Infinity;
+    let bestNl = 0;
+    const bestPart = new Int8Array(m);
+    const propose = (nl: number): void => {
+      if (nl < 3) return;
+      levW.fill(0, 0, nl);
+      for (let x = 0; x < m; x++) levW[level[queue[x]]] += wt[queue[x]];
+      let below = levW[0];
+      let bl = -1;
+      let bc = Infinity;
+      for (let l = 1; l < nl - 1; l++) {
+        const above = wsum - below - levW[l];
+        const cost = (levW[l] * wsum) / (below * above);
+        if (cost < bc) {
+          bc = cost;
+          bl = l;
+        }
+        below += levW[l];
+      }
+      if (bc < bestCost) {
+        bestCost = bc;
+        bestNl = nl;
+        for (let x = 0; x < m; x++) {
+          const lv = level[verts[x]];
+          bestPart[x] = lv < bl ? 0 : lv > bl ? 1 : 2;
+        }
+      }
+    };
+    propose(nlev);
     for (let iter = 0; iter < 6; iter++) {
       // lowest-degree vertex of the last level
       let cand = -1;
@@ -107,38 +140,16 @@ export function nestedDissectionOrder(
       const trial = ++stampCounter;
       const [, nl] = bfs(cand, st, trial);
       visited = trial;
-      if (nl <= nlev) {
-        nlev = nl;
-        break;
-      }
+      propose(nl);
+      if (nl <= nlev) break;
       nlev = nl;
     }
-    if (nlev < 3) {
+    if (bestNl === 0) {
       orderLeaf(verts, lo);
       continue;
     }
-    // weight per level, choose the separating level
-    const levW = new Float64Array(nlev);
-    for (let x = 0; x < m; x++) levW[level[queue[x]]] += wt[queue[x]];
-    let bestL = -1;
-    let bestCost = Infinity;
-    let below = levW[0];
-    for (let l = 1; l < nlev - 1; l++) {
-      const above = wsum - below - levW[l];
-      const cost = (levW[l] * wsum) / (below * above);
-      if (cost < bestCost) {
-        bestCost = cost;
-        bestL = l;
-      }
-      below += levW[l];
-    }
-    // part labels: 0 = A, 1 = B, 2 = separator (kept in `level` reused as label)
     const part = level;
-    for (let x = 0; x < m; x++) {
-      const v = queue[x];
-      const lv = level[v];
-      part[v] = lv < bestL ? 0 : lv > bestL ? 1 : 2;
-    }
+    for (let x = 0; x < m; x++) part[verts[x]] = bestPart[x];
     const inSet = visited;
     improveSeparator(verts, part, stamp, inSet, ptr, adj, wt);
     let na = 0;

@@ -5,7 +5,7 @@
  * original diagonal so that mechanisms are reported instead of producing garbage.
  *
  * The dense kernels are dot products over rows held contiguously, blocked two rows by two
- * columns so that each loaded value is used twice.
+ * columns so that each loaded value is used twice, and tiled so the reused rows stay in cache.
  */
 import type { SymbolicFactor } from './symbolic.js';
 import { SingularMatrixError } from './types.js';
@@ -27,6 +27,12 @@ export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTo
   const head = new Int32Array(nsuper).fill(-1);
   const nextD = new Int32Array(nsuper);
   const posD = new Int32Array(nsuper);
+  let maxRows = 0;
+  for (let s = 0; s < nsuper; s++) maxRows = Math.max(maxRows, superRowPtr[s + 1] - superRowPtr[s]);
+  const tRow = new Int32Array(maxRows);
+  const tCol = new Int32Array(maxRows);
+  const ident = new Int32Array(maxRows);
+  for (let i = 0; i < maxRows; i++) ident[i] = i;
 
   for (let s = 0; s < nsuper; s++) {
     const f = superFirst[s];
@@ -52,7 +58,12 @@ export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTo
       const p1 = posD[d];
       let p2 = p1;
       while (p2 < nrd && superRows[r0d + p2] < l) p2++;
-      updateFrom(Lx, superValPtr[d], superFirst[d + 1] - superFirst[d], superRows, r0d, nrd, p1, p2, os, nc, f, map);
+      for (let r = p1; r < nrd; r++) {
+        const row = superRows[r0d + r];
+        tRow[r] = os + map[row] * nc - f;
+        tCol[r] = row;
+      }
+      lowerProduct(Lx, superValPtr[d], superFirst[d + 1] - superFirst[d], p1, nrd, p1, p2, 0, superFirst[d + 1] - superFirst[d], tRow, tCol);
       posD[d] = p2;
       if (p2 < nrd) {
         const t = colToSuper[superRows[r0d + p2]];
@@ -62,7 +73,8 @@ export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTo
       d = dNext;
     }
 
-    factorBlock(Lx, os, nc, nr, f, origDiag, perm, pivotTolerance);
+    for (let r = 0; r < nr; r++) tRow[r] = os + r * nc;
+    factorBlock(Lx, os, nc, nr, f, origDiag, perm, pivotTolerance, tRow, ident);
 
     if (nr > nc) {
       const t = colToSuper[superRows[r0 + nc]];
@@ -72,91 +84,6 @@ export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTo
     }
   }
   return Lx;
-}
-
-/**
- * Subtracts L_d[p1:nrd, :] · L_d[p1:p2, :]ᵀ (lower part) from the target block.
- * Row r of the product lands in target row map[rows[r]], column c in target column rows[c] − f.
- */
-function updateFrom(
-  Lx: Float64Array,
-  od: number,
-  w: number,
-  rows: Int32Array,
-  r0d: number,
-  nrd: number,
-  p1: number,
-  p2: number,
-  os: number,
-  nc: number,
-  f: number,
-  map: Int32Array,
-): void {
-  let r = p1;
-  for (; r + 1 < nrd; r += 2) {
-    const a0 = od + r * w;
-    const a1 = a0 + w;
-    const t0 = os + map[rows[r0d + r]] * nc - f;
-    const t1 = os + map[rows[r0d + r + 1]] * nc - f;
-    const cEnd0 = r < p2 ? r + 1 : p2;
-    const cEnd1 = r + 1 < p2 ? r + 2 : p2;
-    let c = p1;
-    for (; c + 1 < cEnd0; c += 2) {
-      const b0 = od + c * w;
-      const b1 = b0 + w;
-      let s00 = 0;
-      let s01 = 0;
-      let s10 = 0;
-      let s11 = 0;
-      for (let k = 0; k < w; k++) {
-        const x0 = Lx[a0 + k];
-        const x1 = Lx[a1 + k];
-        const y0 = Lx[b0 + k];
-        const y1 = Lx[b1 + k];
-        s00 += x0 * y0;
-        s01 += x0 * y1;
-        s10 += x1 * y0;
-        s11 += x1 * y1;
-      }
-      const c0 = rows[r0d + c];
-      const c1 = rows[r0d + c + 1];
-      Lx[t0 + c0] -= s00;
-      Lx[t0 + c1] -= s01;
-      Lx[t1 + c0] -= s10;
-      Lx[t1 + c1] -= s11;
-    }
-    if (c < cEnd0) {
-      const b0 = od + c * w;
-      let s00 = 0;
-      let s10 = 0;
-      for (let k = 0; k < w; k++) {
-        const y0 = Lx[b0 + k];
-        s00 += Lx[a0 + k] * y0;
-        s10 += Lx[a1 + k] * y0;
-      }
-      const c0 = rows[r0d + c];
-      Lx[t0 + c0] -= s00;
-      Lx[t1 + c0] -= s10;
-      c++;
-    }
-    for (; c < cEnd1; c++) {
-      const b0 = od + c * w;
-      let s10 = 0;
-      for (let k = 0; k < w; k++) s10 += Lx[a1 + k] * Lx[b0 + k];
-      Lx[t1 + rows[r0d + c]] -= s10;
-    }
-  }
-  if (r < nrd) {
-    const a0 = od + r * w;
-    const t0 = os + map[rows[r0d + r]] * nc - f;
-    const cEnd0 = r < p2 ? r + 1 : p2;
-    for (let c = p1; c < cEnd0; c++) {
-      const b0 = od + c * w;
-      let s00 = 0;
-      for (let k = 0; k < w; k++) s00 += Lx[a0 + k] * Lx[b0 + k];
-      Lx[t0 + rows[r0d + c]] -= s00;
-    }
-  }
 }
 
 /**
@@ -172,10 +99,12 @@ function factorBlock(
   origDiag: Float64Array,
   perm: Int32Array,
   tol: number,
+  tRow: Int32Array,
+  ident: Int32Array,
 ): void {
   for (let j0 = 0; j0 < nc; j0 += NB) {
     const j1 = Math.min(nc, j0 + NB);
-    if (j0 > 0) blockUpdate(Lx, os, nc, nr, j0, j1);
+    if (j0 > 0) lowerProduct(Lx, os, nc, j0, nr, j0, j1, 0, j0, tRow, ident);
     // diagonal block columns j0..j1-1
     for (let i = j0; i < j1; i++) {
       const rowI = os + i * nc;
@@ -259,23 +188,68 @@ function trsmRows(Lx: Float64Array, os: number, nc: number, nr: number, j0: numb
   }
 }
 
-/** L[r, c] −= L[r, 0:j0] · L[c, 0:j0] for rows r ≥ j0 and columns j0 ≤ c < j1, c ≤ r. */
-function blockUpdate(Lx: Float64Array, os: number, nc: number, nr: number, j0: number, j1: number): void {
-  let r = j0;
-  for (; r + 1 < nr; r += 2) {
-    const a0 = os + r * nc;
-    const a1 = a0 + nc;
-    const cEnd0 = r < j1 ? r + 1 : j1;
-    const cEnd1 = r + 1 < j1 ? r + 2 : j1;
-    let c = j0;
+/** cache blocking of the update products: columns per block and dot-product chunk */
+const CB = 64;
+const KC = 384;
+
+/**
+ * Lower-triangular product with scatter, blocked for the cache:
+ * for rows rLo ≤ r < rHi and columns cLo ≤ c < cHi with c ≤ r,
+ * Lx[tRow[r] + tCol[c]] −= Σ_{kLo≤k<kHi} L[ob + r·w + k] · L[ob + c·w + k].
+ */
+function lowerProduct(
+  Lx: Float64Array,
+  ob: number,
+  w: number,
+  rLo: number,
+  rHi: number,
+  cLo: number,
+  cHi: number,
+  kLo: number,
+  kHi: number,
+  tRow: Int32Array,
+  tCol: Int32Array,
+): void {
+  for (let k0 = kLo; k0 < kHi; k0 += KC) {
+    const k1 = Math.min(kHi, k0 + KC);
+    for (let c0 = cLo; c0 < cHi; c0 += CB) {
+      const c1 = Math.min(cHi, c0 + CB);
+      productKernel(Lx, ob, w, Math.max(rLo, c0), rHi, c0, c1, k0, k1, tRow, tCol);
+    }
+  }
+}
+
+/** The unblocked kernel of lowerProduct, two rows by two columns at a time. */
+function productKernel(
+  Lx: Float64Array,
+  ob: number,
+  w: number,
+  rLo: number,
+  rHi: number,
+  cLo: number,
+  cHi: number,
+  kLo: number,
+  kHi: number,
+  tRow: Int32Array,
+  tCol: Int32Array,
+): void {
+  let r = rLo;
+  for (; r + 1 < rHi; r += 2) {
+    const a0 = ob + r * w;
+    const a1 = a0 + w;
+    const t0 = tRow[r];
+    const t1 = tRow[r + 1];
+    const cEnd0 = r < cHi ? r + 1 : cHi;
+    const cEnd1 = r + 1 < cHi ? r + 2 : cHi;
+    let c = cLo;
     for (; c + 1 < cEnd0; c += 2) {
-      const b0 = os + c * nc;
-      const b1 = b0 + nc;
+      const b0 = ob + c * w;
+      const b1 = b0 + w;
       let s00 = 0;
       let s01 = 0;
       let s10 = 0;
       let s11 = 0;
-      for (let k = 0; k < j0; k++) {
+      for (let k = kLo; k < kHi; k++) {
         const x0 = Lx[a0 + k];
         const x1 = Lx[a1 + k];
         const y0 = Lx[b0 + k];
@@ -285,39 +259,43 @@ function blockUpdate(Lx: Float64Array, os: number, nc: number, nr: number, j0: n
         s10 += x1 * y0;
         s11 += x1 * y1;
       }
-      Lx[a0 + c] -= s00;
-      Lx[a0 + c + 1] -= s01;
-      Lx[a1 + c] -= s10;
-      Lx[a1 + c + 1] -= s11;
+      const c0 = tCol[c];
+      const c1 = tCol[c + 1];
+      Lx[t0 + c0] -= s00;
+      Lx[t0 + c1] -= s01;
+      Lx[t1 + c0] -= s10;
+      Lx[t1 + c1] -= s11;
     }
     if (c < cEnd0) {
-      const b0 = os + c * nc;
+      const b0 = ob + c * w;
       let s00 = 0;
       let s10 = 0;
-      for (let k = 0; k < j0; k++) {
+      for (let k = kLo; k < kHi; k++) {
         const y0 = Lx[b0 + k];
         s00 += Lx[a0 + k] * y0;
         s10 += Lx[a1 + k] * y0;
       }
-      Lx[a0 + c] -= s00;
-      Lx[a1 + c] -= s10;
+      const c0 = tCol[c];
+      Lx[t0 + c0] -= s00;
+      Lx[t1 + c0] -= s10;
       c++;
     }
     for (; c < cEnd1; c++) {
-      const b0 = os + c * nc;
+      const b0 = ob + c * w;
       let s10 = 0;
-      for (let k = 0; k < j0; k++) s10 += Lx[a1 + k] * Lx[b0 + k];
-      Lx[a1 + c] -= s10;
+      for (let k = kLo; k < kHi; k++) s10 += Lx[a1 + k] * Lx[b0 + k];
+      Lx[t1 + tCol[c]] -= s10;
     }
   }
-  if (r < nr) {
-    const a0 = os + r * nc;
-    const cEnd0 = r < j1 ? r + 1 : j1;
-    for (let c = j0; c < cEnd0; c++) {
-      const b0 = os + c * nc;
+  if (r < rHi) {
+    const a0 = ob + r * w;
+    const t0 = tRow[r];
+    const cEnd0 = r < cHi ? r + 1 : cHi;
+    for (let c = cLo; c < cEnd0; c++) {
+      const b0 = ob + c * w;
       let s00 = 0;
-      for (let k = 0; k < j0; k++) s00 += Lx[a0 + k] * Lx[b0 + k];
-      Lx[a0 + c] -= s00;
+      for (let k = kLo; k < kHi; k++) s00 += Lx[a0 + k] * Lx[b0 + k];
+      Lx[t0 + tCol[c]] -= s00;
     }
   }
 }

@@ -128,6 +128,35 @@ function postorder(parent: Int32Array): Int32Array {
   return post;
 }
 
+/**
+ * Operation count of the Cholesky factor for an ordering (Σ column count², from the
+ * elimination tree and row subtrees), without building anything else.
+ */
+export function factorFlops(K: SymmetricCsc, order: Int32Array): number {
+  const n = K.n;
+  const pinv = new Int32Array(n);
+  for (let k = 0; k < n; k++) pinv[order[k]] = k;
+  const { uPtr, uRow } = permute(K, pinv, false);
+  const parent = etree(n, uPtr, uRow);
+  const count = new Int32Array(n);
+  const mark = new Int32Array(n).fill(-1);
+  for (let i = 0; i < n; i++) {
+    mark[i] = i;
+    count[i]++;
+    for (let p = uPtr[i]; p < uPtr[i + 1]; p++) {
+      let j = uRow[p];
+      while (mark[j] !== i) {
+        mark[j] = i;
+        count[j]++;
+        j = parent[j];
+      }
+    }
+  }
+  let flops = 0;
+  for (let j = 0; j < n; j++) flops += count[j] * count[j];
+  return flops;
+}
+
 export interface AmalgamationOptions {
   /** merge freely while a supernode has at most this many columns */
   smallColumns: number;

@@ -78,3 +78,14 @@ describe('fill-reducing orderings', () => {
     expect(factorise(K, { ordering: 'amd' }).nnzFactor).toBe(2 * n - 1);
   });
 });
+
+describe('automatic ordering choice', () => {
+  it('keeps whichever of AMD and nested dissection needs fewer operations on a large system', () => {
+    const K = gridLaplacian([110, 100]);
+    const auto = factorise(K);
+    const amd = factorise(K, { ordering: 'amd' });
+    const nd = factorise(K, { ordering: 'nested-dissection' });
+    expect(auto.flops).toBe(Math.min(amd.flops, nd.flops));
+    expect(factorise(gridLaplacian([20, 20])).ordering).toBe('amd');
+  });
+});
