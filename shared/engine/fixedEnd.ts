@@ -49,13 +49,17 @@ export function fixedEndForces(
 ): Float64Array {
   let IN = 0, IT = 0, I0maj = 0, I1maj = 0, I0min = 0, I1min = 0, MLmaj = 0, MLmin = 0;
   const d = ls.dist;
-  if (d.length === 8 && ls.point.length === 0 && ls.moment.length === 0 && d[0] === 0 && d[1] === L
-    && d[2] === d[5] && d[3] === d[6] && d[4] === d[7]) {
-    // one uniform load over the whole element (self weight, floor loads): M_L = q x²/2,
-    // N_L = −qx·x, so ∫M_L = qL³/6, ∫x·M_L = qL⁴/8, M_L(L) = qL²/2, ∫N_L = −qx·L²/2
-    IN = (-d[2] * L * L) / 2;
-    I0maj = (d[4] * L * L * L) / 6; I1maj = (d[4] * L * L * L * L) / 8; MLmaj = (d[4] * L * L) / 2;
-    I0min = (d[3] * L * L * L) / 6; I1min = (d[3] * L * L * L * L) / 8; MLmin = (d[3] * L * L) / 2;
+  if (d.length === 8 && ls.point.length === 0 && ls.moment.length === 0 && d[0] === 0 && d[1] === L) {
+    // one linear load over the whole element (self weight, floor loads): with q(x) = q1 + (q2 − q1)x/L,
+    // M_L = q1x²/2 + (q2−q1)x³/(6L) and N_L = −(q1x·x + (q2x−q1x)x²/(2L)), integrated in closed form
+    const L2 = L * L, L3 = L2 * L, L4 = L3 * L;
+    IN = -(d[2] * L2) / 2 - ((d[5] - d[2]) * L2) / 6;
+    I0maj = (d[4] * L3) / 6 + ((d[7] - d[4]) * L3) / 24;
+    I1maj = (d[4] * L4) / 8 + ((d[7] - d[4]) * L4) / 30;
+    MLmaj = (d[4] * L2) / 2 + ((d[7] - d[4]) * L2) / 6;
+    I0min = (d[3] * L3) / 6 + ((d[6] - d[3]) * L3) / 24;
+    I1min = (d[3] * L4) / 8 + ((d[6] - d[3]) * L4) / 30;
+    MLmin = (d[3] * L2) / 2 + ((d[6] - d[3]) * L2) / 6;
   } else {
     const r = integrateLoadDiagrams(ls, L);
     IN = r[0]; IT = r[1]; I0maj = r[2]; I1maj = r[3]; I0min = r[4]; I1min = r[5]; MLmaj = r[6]; MLmin = r[7];

@@ -106,5 +106,18 @@ export function buildLoadSets(model: Model, members: MemberInfo[], caseIndex: Ma
       get(mi, c).dist.push(0, m.L, w0 * v[0], w0 * v[1], w0 * v[2], w1 * v[0], w1 * v[1], w1 * v[2]);
     });
   });
+  for (const ls of sets) if (ls && ls.dist.length > 8) mergeSameSpan(ls);
   return sets;
+}
+
+/** Distributed loads over the same span add up into one (fewer pieces, closed-form fixed-end forces). */
+function mergeSameSpan(ls: LoadSet): void {
+  const d = ls.dist, out: number[] = [];
+  for (let i = 0; i < d.length; i += 8) {
+    let j = 0;
+    while (j < out.length && !(out[j] === d[i] && out[j + 1] === d[i + 1])) j += 8;
+    if (j === out.length) out.push(...d.slice(i, i + 8));
+    else for (let c = 2; c < 8; c++) out[j + c] += d[i + c];
+  }
+  ls.dist = out;
 }
