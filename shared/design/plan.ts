@@ -61,3 +61,22 @@ export function segmentCount(L: number, Lb: number): number {
   if (!(Lb < L)) return 1;
   return Math.max(1, Math.ceil(L / Lb - 1e-9));
 }
+
+/**
+ * Largest torsional moment treated as negligible: the one giving a St Venant shear stress
+ * of 2 % of the shear yield stress 0.6·Fy (our rule, common practice for incidental
+ * torsion in frames). τ = T·tmax/J for open sections and solid bars (T·(D/2)/J for round
+ * bars and tubes), τ = T/(2·t·Am) for rectangular hollow sections (Bredt).
+ * Custom sections: 1e-6·Fy·Z_major (numerical noise only).
+ */
+export function negligibleTorsion(g: import('./geometry.js').DesignGeometry, Fy: number): number {
+  const tau = 0.02 * 0.6 * Fy;
+  switch (g.shape) {
+    case 'i': case 'channel': case 'tee': return (tau * g.J) / Math.max(g.tf, g.tw);
+    case 'angle': return (tau * g.J) / g.t;
+    case 'rect': return (tau * g.J) / Math.min(g.h, g.b);
+    case 'round': case 'chs': return (tau * g.J) / (g.D / 2);
+    case 'rhs': return tau * 2 * g.t * (g.b - g.t) * (g.h - g.t);
+    default: return 1e-6 * Fy * g.Zmaj;
+  }
+}

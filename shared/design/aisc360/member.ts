@@ -9,7 +9,7 @@ import type { StationForces } from '../../engine/types.js';
 import type { DesignGeometry } from '../geometry.js';
 import { finish, interactionRecord, notChecked, type RecordHead } from '../record.js';
 import type { CheckRecord } from '../types.js';
-import { absMax, segmentCount, type MemberPlan, type MemberSetup, type Slot } from '../plan.js';
+import { absMax, negligibleTorsion, segmentCount, type MemberPlan, type MemberSetup, type Slot } from '../plan.js';
 import { cbF11, segmentMoments, SEG_MA, SEG_MB, SEG_MC, SEG_MMAX, SEG_SIZE, SEG_XMAX } from '../moment-diagram.js';
 import type { AiscContext, Capacity } from './context.js';
 import { tensionRuptureD2b, tensionYieldD2a } from './tension.js';
@@ -68,7 +68,7 @@ export function aiscPlan(g: DesignGeometry, cx: AiscContext, m: MemberSetup): Me
   const seg = new Float64Array(SEG_SIZE);
   const d = new Float64Array(D_SIZE);
   const McyDesign = fMin && !Number.isNaN(fMin.Mcap) ? designMoment(fMin, 1) : NaN;
-  const tThreshold = 1e-6 * cx.Fy * (g.Zmaj > 0 ? g.Zmaj : g.A * 1e-3);
+  const tThreshold = negligibleTorsion(g, cx.Fy);
   const cbFixed = m.cb !== undefined ? m.cb : m.cantilever ? 1 : undefined;
   const cbSource = m.cb !== undefined ? 'given' : m.cantilever ? 'cantilever, free end unbraced: 1.0 (F1)' : 'Eq. F1-1 from the moment diagram';
 

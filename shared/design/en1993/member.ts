@@ -11,7 +11,7 @@ import type { StationForces } from '../../engine/types.js';
 import type { DesignGeometry } from '../geometry.js';
 import { finish, interactionRecord, notChecked, notCheckedHead, type RecordHead } from '../record.js';
 import type { CheckRecord } from '../types.js';
-import { absMax, segmentCount, type MemberPlan, type MemberSetup, type Slot } from '../plan.js';
+import { absMax, negligibleTorsion, segmentCount, type MemberPlan, type MemberSetup, type Slot } from '../plan.js';
 import { cbF11, isLinearSegment, segmentMoments, SEG_M0, SEG_M1, SEG_MA, SEG_MB, SEG_MC, SEG_MMAX, SEG_MS, SEG_SIZE, SEG_XMAX } from '../moment-diagram.js';
 import type { EnContext, Resistance } from './context.js';
 import { enClass } from './classification.js';
@@ -82,7 +82,7 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
   const nSeg = frame ? segmentCount(m.length, m.Lb) : 1;
   const seg = new Float64Array(SEG_SIZE);
   const d = new Float64Array(D_SIZE);
-  const tThreshold = 1e-6 * cx.fy * (g.Zmaj > 0 ? g.Zmaj : g.A * 1e-3);
+  const tThreshold = negligibleTorsion(g, cx.fy);
   const c1Source = m.cb !== undefined ? 'given cb used as C1' : 'from the moment diagram';
   const ltbNaN = ltb.applies && Number.isNaN(ltb.Mcr1);
   const ii: InteractionInput = {

@@ -302,6 +302,11 @@ describe('out of scope is never pass', () => {
     const recs = plan.records(stations(3, { T: () => 5e3 }), 'U1');
     expect(recs.find((r) => r?.family === 'torsion')!.status).toBe('not checked');
   });
+  it('incidental torsion below the negligible limit gives no torsion record: W18x50, τ = T·tf/J = 2 % of 0.6·Fy at T = 0.02·0.6·50·1.24/0.57 = 1.305 kip-in = 147 N·m; T = 100 N·m is ignored', () => {
+    const plan = aiscPlan(designGeometry(W18X50()), lrfd, { id: 'B', length: 3, truss: false, LcMajor: 3, LcMinor: 3, Lb: 3, cantilever: false });
+    expect(plan.records(stations(3, { T: () => 100 }), 'U1').some((r) => r?.family === 'torsion')).toBe(false);
+    expect(plan.records(stations(3, { T: () => 200 }), 'U1').some((r) => r?.family === 'torsion')).toBe(true);
+  });
 });
 
 describe('LRFD and ASD factors', () => {
