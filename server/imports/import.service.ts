@@ -8,7 +8,7 @@ import path from 'node:path';
 import { LessThan, type DataSource } from 'typeorm';
 import type { Model, ReadResult } from '../../shared/model/types.js';
 import { commitImportSchema, type CommitImportInput, type CommitResult, type ImportPreview } from '../../shared/schemas/imports.js';
-import { readCsvFiles, readWorkbook } from '../../shared/reader/index.js';
+import { runPool } from '../runs/worker-pool.js';
 import { AppError, badRequest, conflict, notFound } from '../errors/app-error.js';
 import { decodeModel, encodeJson } from '../models/model-codec.js';
 import { appendVersion, createModelWithVersion, findModel, summarise } from '../models/model.service.js';
@@ -52,19 +52,20 @@ export async function readUpload(files: UploadedFile[], limits: ImportLimits): P
     throw badRequest('Upload either one .xlsx workbook or a set of .csv files, not both or several workbooks');
   }
   let result: ReadResult;
+  // the reading itself happens in a worker thread (big uploads take seconds)
+  const data = (f: UploadedFile) => new Uint8Array(f.buffer.buffer, f.buffer.byteOffset, f.buffer.byteLength);
   if (workbooks.length === 1) {
     try {
-      result = await readWorkbook(workbooks[0].buffer);
+      result = await runPool().run({ kind: 'read', runId: 0, format: 'xlsx', files: [{ name: workbooks[0].name, data: data(workbooks[0]) }] });
     } catch (err) {
       throw badRequest(`${workbooks[0].name} could not be read as an .xlsx workbook${err instanceof Error ? `: ${err.message}` : ''}`);
     }
   } else {
-    const texts = csvs.map((f) => ({ name: f.name, text: f.buffer.toString('utf8') }));
-    const rows = texts.reduce((s, f) => s + countLines(f.text), 0);
+    const rows = csvs.reduce((s, f) => s + countLines(f.buffer.toString('utf8')), 0);
     if (rows > limits.maxRows) {
       throw tooLarge(`The upload has about ${rows.toLocaleString('en')} rows; the limit is ${limits.maxRows.toLocaleString('en')} (IMPORT_MAX_ROWS)`);
     }
-    result = await readCsvFiles(texts);
+    result = await runPool().run({ kind: 'read', runId: 0, format: 'csv', files: csvs.map((f) => ({ name: f.name, data: data(f) })) });
   }
   const rows = Object.values(result.counts).reduce((s, n) => s + n, 0);
   if (rows > limits.maxRows) {

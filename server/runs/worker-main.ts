@@ -9,9 +9,9 @@ import { runWorkerTask, transferList } from './worker-tasks.js';
 if (!parentPort) throw new Error('worker.ts must run in a worker thread');
 const port = parentPort;
 
-port.on('message', ({ id, task }: WorkerRequest) => {
+port.on('message', async ({ id, task }: WorkerRequest) => {
   try {
-    const result = runWorkerTask(task, (phase) => port.postMessage({ id, type: 'progress', phase } satisfies WorkerReply));
+    const result = await runWorkerTask(task, (phase) => port.postMessage({ id, type: 'progress', phase } satisfies WorkerReply));
     port.postMessage({ id, type: 'done', result } satisfies WorkerReply, transferList(result));
   } catch (err) {
     const message = err instanceof Error ? err.message : String(err);

@@ -1,5 +1,5 @@
 /** Messages between the HTTP thread and the run workers. */
-import type { DesignCode } from '../../shared/model/types.js';
+import type { DesignCode, ReadResult } from '../../shared/model/types.js';
 import type { CheckRecord } from '../../shared/design/types.js';
 import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
 import type { ResultTable } from '../../shared/exports/results.js';
@@ -30,7 +30,16 @@ export interface ForcesTask extends TaskBase {
   loadings: number[];
 }
 
-export type WorkerTask = RunTask | MemberTask | ForcesTask;
+/** Read and validate an upload (imports), off the HTTP thread. */
+export interface ReadTask {
+  kind: 'read';
+  /** 0: no run */
+  runId: 0;
+  format: 'xlsx' | 'csv';
+  files: { name: string; data: Uint8Array }[];
+}
+
+export type WorkerTask = RunTask | MemberTask | ForcesTask | ReadTask;
 
 export interface MemberTaskResult {
   stations: Stations;
@@ -45,7 +54,9 @@ export type TaskResult<T extends WorkerTask> = T extends RunTask
   ? PackedRun
   : T extends MemberTask
     ? MemberTaskResult
-    : ForcesTaskResult;
+    : T extends ReadTask
+      ? ReadResult
+      : ForcesTaskResult;
 
 export type WorkerRequest = { id: number; task: WorkerTask };
 

@@ -5,7 +5,9 @@ import { memberForceTable } from '../../shared/exports/results.js';
 import type { Model } from '../../shared/model/types.js';
 import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
 import { analyseOnly, computeRun, packRun, type Analysed } from './run-compute.js';
-import type { ForcesTaskResult, MemberTaskResult, WorkerTask } from './worker-protocol.js';
+import type { ForcesTask, ForcesTaskResult, MemberTask, MemberTaskResult, ReadTask, WorkerTask } from './worker-protocol.js';
+import type { ReadResult } from '../../shared/model/types.js';
+import { readCsvFiles, readWorkbook } from '../../shared/reader/index.js';
 
 /** Analyses kept per worker, newest last. */
 const CACHE_SIZE = 2;
@@ -17,7 +19,7 @@ function remember(runId: number, analysed: Analysed): void {
   while (cache.size > CACHE_SIZE) cache.delete(cache.keys().next().value as number);
 }
 
-function analysedFor(task: WorkerTask): Analysed {
+function analysedFor(task: MemberTask | ForcesTask): Analysed {
   const kept = cache.get(task.runId);
   if (kept) {
     remember(task.runId, kept);
@@ -51,6 +53,7 @@ function memberForces(model: Model, analysis: AnalysisResult, loadings: number[]
 }
 
 export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => void): unknown {
+  if (task.kind === 'read') return readFiles(task);
   switch (task.kind) {
     case 'run': {
       const { output, analysed } = computeRun(task.modelJson, task.designCode, onPhase);
@@ -72,6 +75,12 @@ export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => vo
       return memberForces(model, analysis, task.loadings);
     }
   }
+}
+
+/** An upload through the shared reader (one workbook, or CSV files). */
+export async function readFiles(task: ReadTask): Promise<ReadResult> {
+  if (task.format === 'xlsx') return readWorkbook(Buffer.from(task.files[0].data.buffer, task.files[0].data.byteOffset, task.files[0].data.byteLength));
+  return readCsvFiles(task.files.map((f) => ({ name: f.name, text: Buffer.from(f.data.buffer, f.data.byteOffset, f.data.byteLength).toString('utf8') })));
 }
 
 /** Buffers to move rather than copy back to the HTTP thread. */

@@ -1,6 +1,7 @@
 /** Import: preview with row/column problems, nothing saved while errors remain, commit, limits, templates. */
 import ExcelJS from 'exceljs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { closeRunPool } from '../../../server/runs/worker-pool.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import { CSV, newProject, upload, withFile } from '../models/fixture.js';
 
@@ -13,8 +14,11 @@ beforeAll(async () => {
   delete process.env.IMPORT_MAX_MB;
   delete process.env.IMPORT_MAX_ROWS;
   projectId = await newProject(t);
+}, 120_000);
+afterAll(async () => {
+  await closeRunPool();
+  await t.close();
 });
-afterAll(() => t.close());
 
 describe('POST /api/projects/:id/imports', () => {
   it('previews a valid upload with counts, settings and the inferred plane frame', async () => {

@@ -1,5 +1,6 @@
 /** Models: listing, detail, member edits as one new version, optimistic locking. */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { closeRunPool } from '../../../server/runs/worker-pool.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import { importDemo, newProject } from './fixture.js';
 
@@ -10,8 +11,11 @@ beforeAll(async () => {
   t = await createTestApp();
   projectId = await newProject(t);
   modelId = await importDemo(t, projectId);
+}, 120_000);
+afterAll(async () => {
+  await closeRunPool();
+  await t.close();
 });
-afterAll(() => t.close());
 
 describe('models', () => {
   it('lists the project models and shows one with its settings and choice lists', async () => {

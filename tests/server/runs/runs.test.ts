@@ -12,7 +12,7 @@ let secondRun: number;
 beforeAll(async () => {
   t = await createTestApp();
   modelId = await importDemo(t, await newProject(t));
-});
+}, 120_000);
 afterAll(async () => {
   await closeRunPool();
   await t.close();
