@@ -149,6 +149,7 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
     ratio[iFrame + 4] = nan629 ? NaN : combScope || !any629 ? -1 : r629; xo[iFrame + 4] = xs[i629];
     // lateral-torsional buckling by segment
     let chiMin = 1;
+    let wholeInSeg = false; // seg holds the whole member's M_major diagram
     if (ltb.applies) {
       let rL = 0, xL = 0, c1Gov = 1, mGov = 0;
       if (!ltbNaN) {
@@ -163,6 +164,7 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
           const r = seg[SEG_MMAX] === 0 ? 0 : seg[SEG_MMAX] / Mb;
           if (s === 0 || r > rL) { rL = r; xL = seg[SEG_XMAX]; c1Gov = c1; mGov = seg[SEG_MMAX]; }
         }
+        wholeInSeg = nSeg === 1;
       }
       d[D_C1] = c1Gov; d[D_MLT] = mGov; d[D_XLT] = xL; d[D_CHILT] = chiMin;
       ratio[iLtb] = ltbNaN ? (anyMy ? NaN : -1) : rL; xo[iLtb] = xL;
@@ -173,7 +175,7 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
     if (ncm === 0) { ratio[i633] = -1; xo[i633] = 0; }
     else if (r633NaN || (Number.isNaN(bMaj.Mc) && d[D_MY] > 0)) { ratio[i633] = NaN; xo[i633] = xc; }
     else {
-      segmentMoments(xs, sf.M_major, 0, m.length, seg);
+      if (!wholeInSeg) segmentMoments(xs, sf.M_major, 0, m.length, seg);
       ii.Cmy = cmB3(seg[SEG_M0], seg[SEG_M1], seg[SEG_MS], isLinearSegment(seg));
       ii.CmLT = ii.Cmy;
       if (anyMz) {
