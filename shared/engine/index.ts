@@ -14,6 +14,7 @@ import { caseStations, memberStations, ROWS } from './recovery.js';
 import { factorise as defaultFactorise } from './solverBridge.js';
 import { buildSystem, elementLocal } from './system.js';
 import type { AnalysisResult, EquilibriumCheck, Loading, StationForces } from './types.js';
+import { addMovingPart, computeMoving, expandLoadings, type MovingComputation, type MovingInput, movingResults } from '../moving/index.js';
 
 export { InstabilityError } from './types.js';
 export type { AnalysisResult, Loading, StationForces } from './types.js';
@@ -46,6 +47,8 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
   // factorise once, solve all cases as one block
   let X: Float64Array = new Float64Array(0);
   let nnzFactor = 0;
+  let moving: MovingComputation | null = null;
+  let movingInput: MovingInput | null = null;
   if (nEq > 0) {
     let fact: Factorisation;
     try {
@@ -63,6 +66,14 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
     t = now();
     X = nCases > 0 ? fact.solve(F, nCases) : X;
     timings.solve = now() - t;
+    if (model.movingLoads.length > 0) {
+      // influence basis of the lanes with the same factorisation, then the envelopes
+      t = now();
+      const stationsOf = (mi: number) => memberStations(mesh.members[mi].L, Array.from({ length: nCases }, (_, c) => loadSets[mi * nCases + c]));
+      movingInput = { model, sys, solve: (B, n) => fact.solve(B, n), stations: stationsOf };
+      moving = computeMoving(movingInput);
+      timings.moving = now() - t;
+    }
   } else {
     timings.ordering = timings.factorisation = timings.solve = 0;
   }
@@ -87,6 +98,11 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
       return { caseIndex: ci, factor: tm.factor };
     });
     loadings.push({ id: cb.id, kind: 'combination', limitState: cb.limitState, terms });
+  }
+  if (moving) {
+    const expanded = expandLoadings(loadings, moving);
+    loadings.length = 0;
+    loadings.push(...expanded);
   }
 
   // equilibrium per loading
@@ -159,12 +175,22 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
     supportedNodes: mesh.supportedNodes,
     displacements(l: number): Float64Array {
       let v = dispCache.get(l);
-      if (!v) dispCache.set(l, (v = combine(U, checkLoading(l))));
+      if (!v) {
+        const ld = checkLoading(l);
+        v = combine(U, ld);
+        if (moving && ld.envelope) addMovingPart(moving, ld, 0, v);
+        dispCache.set(l, v);
+      }
       return v;
     },
     reactions(l: number): Float64Array {
       let v = reactCache.get(l);
-      if (!v) reactCache.set(l, (v = combine(Rall, checkLoading(l))));
+      if (!v) {
+        const ld = checkLoading(l);
+        v = combine(Rall, ld);
+        if (moving && ld.envelope) addMovingPart(moving, ld, nUser * 6, v);
+        reactCache.set(l, v);
+      }
       return v;
     },
     memberForces(mi: number, l: number): StationForces {
@@ -181,6 +207,7 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
           for (let i = 0; i < nSt; i++) dst[i] += factor * cacheData[o + r * nSt + i];
         }
       }
+      if (moving && ld.envelope) addMovingPart(moving, ld, moving.basis.memberOff[mi], buf);
       return {
         x: cacheX.slice(), N: rows[0], V_major: rows[1], V_minor: rows[2], T: rows[3],
         M_major: rows[4], M_minor: rows[5], d_major: rows[6], d_minor: rows[7],
@@ -197,5 +224,6 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
       timings,
       equilibrium,
     },
+    ...(moving && movingInput ? { moving: movingResults(model, moving, loadings, movingInput) } : {}),
   };
 }

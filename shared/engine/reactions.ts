@@ -18,9 +18,14 @@ export function computeReactions(model: Model, sys: LinearSystem, U: Float64Arra
   for (let e = 0; e < mesh.nElements; e++) {
     const ni = mesh.elStart[e], nj = mesh.elEnd[e];
     let nr = 0;
-    for (let i = 0; i < 12; i++) if (restrained(i < 6 ? ni * 6 + i : nj * 6 + i - 6)) rows[nr++] = i;
-    if (nr === 0) continue;
     const mi = mesh.elMember[e];
+    let loaded = false;
+    for (let c = 0; c < nCases && !loaded; c++) loaded = loadSets[mi * nCases + c] !== undefined;
+    // a zero diagonal means a zero stiffness row (K is positive semi-definite): only span loads add there
+    for (let i = 0; i < 12; i++) {
+      if (restrained(i < 6 ? ni * 6 + i : nj * 6 + i - 6) && (loaded || kgAll[e * 144 + i * 13] !== 0)) rows[nr++] = i;
+    }
+    if (nr === 0) continue;
     const Rm = mesh.members[mi].R;
     const o = e * 144;
     for (let c = 0; c < nCases; c++) {

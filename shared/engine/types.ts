@@ -4,6 +4,7 @@
  * node results, member local axes for internal forces (conventions.md).
  */
 import type { LimitState } from '../model/types.js';
+import type { MovingResults } from '../moving/types.js';
 
 /** Internal forces and local deflections at stations along one member. */
 export interface StationForces {
@@ -31,6 +32,13 @@ export interface Loading {
   limitState: LimitState | null;
   /** case index -> factor (a case is itself with factor 1) */
   terms: { caseIndex: number; factor: number }[];
+  /**
+   * Moving loads (shared/moving): a loading that includes a moving-load case appears twice,
+   * with the same id, as its `max` and its `min` envelope — the static part plus, per
+   * quantity, the factored extreme of the moving part over all vehicle positions. Absent on
+   * every other loading.
+   */
+  envelope?: 'max' | 'min';
 }
 
 export interface EquilibriumCheck {
@@ -75,6 +83,8 @@ export interface AnalysisResult {
   /** member length (m) */
   memberLength(member: number): number;
   diagnostics: AnalysisDiagnostics;
+  /** present when the model has moving loads: lanes, vehicle positions, influence lines */
+  moving?: MovingResults;
 }
 
 /** An unstable model: the engine names the node and freedom in an engineer's words. */

@@ -69,4 +69,14 @@ describe('trusses', () => {
     expect(f.M_major[5] / ((w * 9) / 8)).toBeCloseTo(1, 9);
     expect(Math.abs(f.M_major[0])).toBeLessThan(1e-6);
   });
+
+  it('a transverse load on a chord that ends at a support reaches the reactions (equilibrium)', () => {
+    const w = 2e3;
+    const m = warren(200e9);
+    m.memberLoads.push({ case: 'P', member: 'AB', kind: 'uniform', direction: 'global_z', a: 0, b: 3, w1: -w, w2: -w });
+    const r = analyse(m);
+    // statics: total vertical reaction = P + w·3 (tolerance rel 1e-9); equilibrium residual below 1e-9
+    expect((r.reactions(0)[2] + r.reactions(0)[2 * 6 + 2]) / (100e3 + 3 * w)).toBeCloseTo(1, 9);
+    expect(r.diagnostics.equilibrium[0].residual).toBeLessThan(1e-9);
+  });
 });
