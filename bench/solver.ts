@@ -238,10 +238,11 @@ const cpuMs = (): number => {
   return (c.user + c.system) / 1000;
 };
 
-/** Runs the solver on each synthetic frame; returns one row per model and ordering. */
+/** Runs the solver on each synthetic model, prints a table, returns one row per model and ordering. */
 export function benchSolver(
   orderings: Array<'auto' | 'amd' | 'nested-dissection'> = ['auto'],
   models = solverBenchModels,
+  print = true,
 ): SolverBenchRow[] {
   const out: SolverBenchRow[] = [];
   let peak = process.memoryUsage().rss;
@@ -276,6 +277,7 @@ export function benchSolver(
       });
     }
   }
+  if (print) printTable(out);
   return out;
 }
 
@@ -313,7 +315,7 @@ export function relativeResidual(K: SymmetricCsc, X: Float64Array, B: Float64Arr
 }
 
 function printTable(rows: SolverBenchRow[]): void {
-  const head = ['model', 'members', 'freedoms', 'ordering', 'order ms', 'symb ms', 'numeric ms', '20-rhs ms', 'cpu ms', 'nnz(L)', 'GFLOP/s', 'residual', 'peak MB'];
+  const head = ['model', 'members', 'freedoms', 'ordering', 'order ms', 'symb ms', 'numeric ms', '20-rhs ms', 'cpu ms', 'nnz(L)', 'GFLOP/s wall', 'residual', 'peak MB'];
   const lines = rows.map((r) => [
     r.model, String(r.members), String(r.freedoms), r.ordering, r.orderingMs.toFixed(0), r.symbolicMs.toFixed(0),
     r.numericMs.toFixed(0), r.solveMs.toFixed(0), r.cpuMs.toFixed(0), String(r.nnzL), r.gflops.toFixed(2), r.residual.toExponential(1), r.peakRssMb.toFixed(0),
@@ -330,5 +332,5 @@ if (isMain) {
   const sizes = args.filter((a) => /^\d+$/.test(a)).map(Number);
   const orderings = args.filter((a) => !/^\d+$/.test(a));
   const models = sizes.length > 0 ? sizes.map((i) => solverBenchModels[i]) : solverBenchModels;
-  printTable(benchSolver(orderings.length > 0 ? orderings : ['auto'], models));
+  benchSolver(orderings.length > 0 ? orderings : ['auto'], models);
 }
