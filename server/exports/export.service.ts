@@ -42,9 +42,13 @@ export async function exportRun(ds: DataSource, runId: number, kind: ExportKind,
     case 'utilisation':
       table = utilisationExport(model, membersOf(result));
       break;
-    case 'checks':
-      table = checksExport(model, recordsOf(result));
+    case 'checks': {
+      const records = recordsOf(result);
+      table = records
+        ? checksExport(model, records)
+        : await runPool().run({ kind: 'checks', runId: run.id, modelJson: json, designCode: run.designCode });
       break;
+    }
     case 'displacements':
       table = displacementsExport(model, nodes());
       break;

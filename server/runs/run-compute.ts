@@ -121,7 +121,7 @@ export interface PackedRun {
   maxRatio: number | null;
   /** gzip(JSON MemberUtilisation[]) */
   membersData: Uint8Array;
-  /** gzip(JSON CheckRecord[]) */
+  /** gzip(JSON CheckRecord[]), or gzip('null') when there were more than MAX_STORED_RECORDS */
   recordsData: Uint8Array;
   /** gzip(Float64 displacements then reactions) */
   nodeData: Uint8Array;
@@ -130,6 +130,13 @@ export interface PackedRun {
   timings: Record<string, number>;
   diagnostics: RunOutput['diagnostics'];
 }
+
+/**
+ * Check records are kept only up to this many; above it (large models) the detailed-checks
+ * export recomputes them in a worker, which keeps a rerun close to the bare analysis time.
+ * (RUN_MAX_STORED_RECORDS overrides it.)
+ */
+export const MAX_STORED_RECORDS = Number(process.env.RUN_MAX_STORED_RECORDS) || 20_000;
 
 export function packRun(out: RunOutput): PackedRun {
   const t0 = performance.now();
@@ -140,7 +147,7 @@ export function packRun(out: RunOutput): PackedRun {
     counts: statusCounts(out.members),
     maxRatio: maxRatio(out.members),
     membersData: gz(Buffer.from(JSON.stringify(out.members), 'utf8')),
-    recordsData: gz(Buffer.from(JSON.stringify(out.records), 'utf8')),
+    recordsData: gz(Buffer.from(out.records.length <= MAX_STORED_RECORDS ? JSON.stringify(out.records) : 'null', 'utf8')),
     nodeData: gz(Buffer.concat([Buffer.from(d.buffer, d.byteOffset, d.byteLength), Buffer.from(r.buffer, r.byteOffset, r.byteLength)])),
     loadings: out.loadings,
     nodeCount: out.nodeCount,

@@ -255,8 +255,9 @@ export function membersOf(result: RunResultRecord): MemberUtilisation[] {
   return decodeJson<MemberUtilisation[]>(result.membersData);
 }
 
-export function recordsOf(result: RunResultRecord): CheckRecord[] {
-  return decodeJson<CheckRecord[]>(result.recordsData);
+/** The stored check records, or null when the run had too many to keep (recompute them). */
+export function recordsOf(result: RunResultRecord): CheckRecord[] | null {
+  return decodeJson<CheckRecord[] | null>(result.recordsData);
 }
 
 export function loadingsOf(result: RunResultRecord): LoadingInfo[] {

@@ -30,6 +30,11 @@ export interface ForcesTask extends TaskBase {
   loadings: number[];
 }
 
+/** The detailed-checks export table, recomputed (runs whose records were not kept). */
+export interface ChecksTask extends TaskBase {
+  kind: 'checks';
+}
+
 /** Read and validate an upload (imports), off the HTTP thread. */
 export interface ReadTask {
   kind: 'read';
@@ -39,7 +44,7 @@ export interface ReadTask {
   files: { name: string; data: Uint8Array }[];
 }
 
-export type WorkerTask = RunTask | MemberTask | ForcesTask | ReadTask;
+export type WorkerTask = RunTask | MemberTask | ForcesTask | ChecksTask | ReadTask;
 
 export interface MemberTaskResult {
   stations: Stations;
@@ -56,7 +61,7 @@ export type TaskResult<T extends WorkerTask> = T extends RunTask
     ? MemberTaskResult
     : T extends ReadTask
       ? ReadResult
-      : ForcesTaskResult;
+      : ResultTable;
 
 export type WorkerRequest = { id: number; task: WorkerTask };
 

@@ -1,11 +1,11 @@
 /** What a worker does for each task; kept apart from the thread plumbing so tests can call it. */
 import type { AnalysisResult, StationForces } from '../../shared/engine/types.js';
-import { checkMember } from '../../shared/design/index.js';
-import { memberForceTable } from '../../shared/exports/results.js';
+import { checkMember, checkModel } from '../../shared/design/index.js';
+import { checksTable, memberForceTable } from '../../shared/exports/results.js';
 import type { Model } from '../../shared/model/types.js';
 import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
 import { analyseOnly, computeRun, packRun, type Analysed } from './run-compute.js';
-import type { ForcesTask, ForcesTaskResult, MemberTask, MemberTaskResult, ReadTask, WorkerTask } from './worker-protocol.js';
+import type { ChecksTask, ForcesTask, ForcesTaskResult, MemberTask, MemberTaskResult, ReadTask, WorkerTask } from './worker-protocol.js';
 import type { ReadResult } from '../../shared/model/types.js';
 import { readCsvFiles, readWorkbook } from '../../shared/reader/index.js';
 
@@ -19,7 +19,7 @@ function remember(runId: number, analysed: Analysed): void {
   while (cache.size > CACHE_SIZE) cache.delete(cache.keys().next().value as number);
 }
 
-function analysedFor(task: MemberTask | ForcesTask): Analysed {
+function analysedFor(task: MemberTask | ForcesTask | ChecksTask): Analysed {
   const kept = cache.get(task.runId);
   if (kept) {
     remember(task.runId, kept);
@@ -69,6 +69,10 @@ export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => vo
           analysis.loadings[task.loading]?.kind === 'combination' ? checkMember(model, analysis, task.member, task.loading) : [],
       };
       return result;
+    }
+    case 'checks': {
+      const { model, analysis } = analysedFor(task);
+      return checksTable(model, checkModel(model, analysis));
     }
     case 'forces': {
       const { model, analysis } = analysedFor(task);
