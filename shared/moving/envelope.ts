@@ -1,0 +1,119 @@
+/**
+ * Envelope of one moving load (a vehicle on a lane): every quantity's maximum and minimum
+ * over all vehicle positions and the position that produced each. For every position the
+ * axles on the lane give a sparse vector of basis weights w (influence.ts); the dense
+ * quantities are QUᵀ·w, the lane members' own statics are added on top, then compared.
+ */
+import type { InfluenceBasis } from './influence.js';
+import { UnitLoadEffect } from './influence.js';
+import type { LinearSystem } from '../engine/system.js';
+import { type LanePathGeometry, locate, type PathPoint } from './path.js';
+import { axlePosition, type Direction, vehiclePositions } from './positions.js';
+
+export interface Axle { offset: number; load: number }
+
+export interface Envelope {
+  /** full layout (influence.ts) */
+  max: Float64Array;
+  min: Float64Array;
+  /** leading-axle position of each extreme (NaN: never reached by the vehicle) */
+  posMax: Float64Array;
+  posMin: Float64Array;
+  /** 0 forward, 1 backward */
+  dirMax: Uint8Array;
+  dirMin: Uint8Array;
+  positions: number;
+}
+
+/** Path positions of every node and station of the lane (targets for exact axle placement). */
+export function laneTargets(path: LanePathGeometry, basis: InfluenceBasis): number[] {
+  const t: number[] = [...path.nodes];
+  for (const g of path.segments) {
+    for (const x of basis.memberStations[g.member]) t.push(g.s0 + (g.reversed ? g.L - x : x));
+  }
+  return t;
+}
+
+export function movingEnvelope(
+  sys: LinearSystem, basis: InfluenceBasis, path: LanePathGeometry, axles: Axle[], step: number, directions: Direction[],
+): Envelope {
+  const { nFull, nBasis, QU, denseFull, denseOf } = basis;
+  const nDense = denseFull.length;
+  const dMax = new Float64Array(nDense).fill(-Infinity), dMin = new Float64Array(nDense).fill(Infinity);
+  const dPosMax = new Float64Array(nDense).fill(NaN), dPosMin = new Float64Array(nDense).fill(NaN);
+  const dDirMax = new Uint8Array(nDense), dDirMin = new Uint8Array(nDense);
+  // local-only quantities: 0 while no axle is on their member
+  const max = new Float64Array(nFull), min = new Float64Array(nFull);
+  const posMax = new Float64Array(nFull).fill(NaN), posMin = new Float64Array(nFull).fill(NaN);
+  const dirMax = new Uint8Array(nFull), dirMin = new Uint8Array(nFull);
+
+  const effect = new UnitLoadEffect(sys, basis);
+  const w = new Float64Array(nBasis);
+  const wIdx: number[] = [];
+  const scratch = new Float64Array(nFull);
+  const touched: number[] = [];
+  const r = new Float64Array(nDense);
+  const nodal = (b: number, v: number) => { if (w[b] === 0) wIdx.push(b); w[b] += v; if (w[b] === 0) w[b] = 1e-300; };
+  const fullAdd = (f: number, v: number) => { if (scratch[f] === 0) touched.push(f); scratch[f] += v; if (scratch[f] === 0) scratch[f] = 1e-300; };
+  const pt: PathPoint = { segment: 0, a: 0 };
+  const targets = laneTargets(path, basis);
+  const offsets = axles.map((a) => a.offset);
+  let positions = 0;
+
+  for (const direction of directions) {
+    const dirCode = direction === 'forward' ? 0 : 1;
+    const { lead } = vehiclePositions(path.length, offsets, step, direction, targets);
+    positions += lead.length;
+    for (let p = 0; p < lead.length; p++) {
+      const L0 = lead[p];
+      for (const ax of axles) {
+        const s = axlePosition(direction, L0, ax.offset);
+        if (!locate(path, s, pt)) continue;
+        effect.apply(path.segments[pt.segment].member, pt.a, ax.load, true, nodal, fullAdd);
+      }
+      // dense part
+      r.fill(0);
+      for (const b of wIdx) {
+        const wb = w[b];
+        const o = b * nDense;
+        for (let d = 0; d < nDense; d++) r[d] += wb * QU[o + d];
+        w[b] = 0;
+      }
+      wIdx.length = 0;
+      for (const f of touched) {
+        const d = denseOf[f];
+        if (d >= 0) { r[d] += scratch[f]; scratch[f] = 0; }
+      }
+      for (let d = 0; d < nDense; d++) {
+        const v = r[d];
+        if (v > dMax[d]) { dMax[d] = v; dPosMax[d] = L0; dDirMax[d] = dirCode; }
+        if (v < dMin[d]) { dMin[d] = v; dPosMin[d] = L0; dDirMin[d] = dirCode; }
+      }
+      for (const f of touched) {
+        const v = scratch[f];
+        if (v === 0) continue; // dense, already taken
+        scratch[f] = 0;
+        if (v > max[f]) { max[f] = v; posMax[f] = L0; dirMax[f] = dirCode; }
+        if (v < min[f]) { min[f] = v; posMin[f] = L0; dirMin[f] = dirCode; }
+      }
+      touched.length = 0;
+    }
+  }
+  for (let d = 0; d < nDense; d++) {
+    const f = denseFull[d];
+    max[f] = dMax[d]; min[f] = dMin[d];
+    posMax[f] = dPosMax[d]; posMin[f] = dPosMin[d];
+    dirMax[f] = dDirMax[d]; dirMin[f] = dDirMin[d];
+  }
+  // constant-N members: copy station 0 along the member
+  for (let mi = 0; mi < basis.constantN.length; mi++) {
+    if (!basis.constantN[mi]) continue;
+    const o = basis.memberOff[mi], nSt = basis.memberStations[mi].length;
+    for (let i = 1; i < nSt; i++) {
+      max[o + i] = max[o]; min[o + i] = min[o];
+      posMax[o + i] = posMax[o]; posMin[o + i] = posMin[o];
+      dirMax[o + i] = dirMax[o]; dirMin[o + i] = dirMin[o];
+    }
+  }
+  return { max, min, posMax, posMin, dirMax, dirMin, positions };
+}

@@ -1,0 +1,239 @@
+/**
+ * Influence basis of the lanes: ONE factorisation, one block of right-hand sides.
+ *
+ * A unit load along −vertical at distance a on a lane member is, for the rest of the
+ * structure, exactly its fixed-end forces reversed at the member's end nodes; on the member
+ * itself it adds the fixed-ended member's own statics (recovery.ts). So every response R to a
+ * load at path position s is
+ *   R(s) = Σ_k (−f_k(a)) · R_k + R_local(a),
+ * where R_k is the response to a unit nodal load on freedom k of a lane node (solved once,
+ * as one block of right-hand sides with the engine's factorisation) and f(a) the member's
+ * fixed-end forces in global axes (fixedEnd.ts). Evaluated at any s this is exact — the
+ * influence line is never interpolated.
+ *
+ * Quantities ("full layout"): node displacements (nUser·6), reactions (nUser·6), then per
+ * member its station table (8 rows × stations, rows N, V_major, V_minor, T, M_major,
+ * M_minor, d_major, d_minor). An unloaded prismatic truss member carries only a constant N,
+ * so only its first station is a quantity (the rest copy it afterwards).
+ */
+import type { Model } from '../model/types.js';
+import { vecToGlobal12, vecToLocal12 } from '../engine/axes.js';
+import { elementReleases, PLANE, SUPPORT } from '../engine/discretise.js';
+import { fixedEndForces } from '../engine/fixedEnd.js';
+import type { LoadSet } from '../engine/loadSet.js';
+import { caseStations, ROWS } from '../engine/recovery.js';
+import { elementLocal, type LinearSystem } from '../engine/system.js';
+
+export interface InfluenceInput {
+  model: Model;
+  sys: LinearSystem;
+  /** the engine's factorisation: solve K X = B for nrhs columns (column-major) */
+  solve: (B: Float64Array, nrhs: number) => Float64Array;
+  /** the stations of member mi, as the engine's memberForces uses them */
+  stations: (mi: number) => Float64Array;
+  /** model indices of the members on any lane */
+  laneMembers: Set<number>;
+}
+
+export interface InfluenceBasis {
+  nUser: number;
+  /** offset of each member's station table in the full layout */
+  memberOff: Int32Array;
+  memberStations: Float64Array[];
+  nFull: number;
+  /** members whose N row is constant and stored at station 0 only */
+  constantN: Uint8Array;
+  /** basis column of each mesh freedom (−1: none) */
+  basisOf: Int32Array;
+  nBasis: number;
+  /** dense quantities: full index of each, and QU (nBasis × nDense, row-major) */
+  denseFull: Int32Array;
+  denseOf: Int32Array;
+  QU: Float64Array;
+  /** unit downward vector in global axes */
+  down: [number, number, number];
+  /** mesh freedom restrained (reaction there) */
+  restrained: Uint8Array;
+}
+
+export function buildInfluenceBasis(inp: InfluenceInput): InfluenceBasis {
+  const { model, sys, laneMembers } = inp;
+  const { mesh, eq, nEq, status, kgAll } = sys;
+  const nUser = mesh.nUserNodes, nDofAll = mesh.nNodes * 6;
+  const nMem = mesh.members.length;
+  // full layout
+  const memberOff = new Int32Array(nMem + 1);
+  const memberStations: Float64Array[] = [];
+  const constantN = new Uint8Array(nMem);
+  let off = nUser * 12;
+  for (let mi = 0; mi < nMem; mi++) {
+    const xs = inp.stations(mi);
+    memberStations.push(xs);
+    memberOff[mi] = off;
+    off += ROWS * xs.length;
+    const m = mesh.members[mi];
+    if (m.truss && m.elementCount === 1 && !laneMembers.has(mi)) constantN[mi] = 1;
+  }
+  memberOff[nMem] = off;
+  const nFull = off;
+  const restrained = new Uint8Array(nDofAll);
+  for (let g = 0; g < nDofAll; g++) restrained[g] = status[g] === SUPPORT || status[g] === PLANE ? 1 : 0;
+
+  // basis: free freedoms of the end nodes of lane members
+  const basisOf = new Int32Array(nDofAll).fill(-1);
+  let nBasis = 0;
+  for (const mi of laneMembers) {
+    const m = mesh.members[mi];
+    if (m.elementCount !== 1) throw new Error(`member ${m.id}: a tapered member cannot carry a moving load (it is on a lane)`);
+    for (const n of [m.start, m.end]) for (let k = 0; k < 6; k++) {
+      const g = n * 6 + k;
+      if (eq[g] >= 0 && basisOf[g] < 0) basisOf[g] = nBasis++;
+    }
+  }
+  // candidate quantities (full indices)
+  const cand: number[] = [];
+  for (let i = 0; i < nUser * 6; i++) cand.push(i);
+  for (const n of mesh.supportedNodes) for (let k = 0; k < 6; k++) {
+    const g = n * 6 + k;
+    if (restrained[g] || mesh.springs[g] !== 0) cand.push(nUser * 6 + g);
+  }
+  for (let mi = 0; mi < nMem; mi++) {
+    if (constantN[mi]) { cand.push(memberOff[mi]); continue; }
+    for (let q = memberOff[mi]; q < memberOff[mi + 1]; q++) cand.push(q);
+  }
+  const nCand = cand.length;
+  const candVals = new Float64Array(nBasis * nCand);
+
+  // one block solve
+  const B = new Float64Array(nEq * nBasis);
+  for (let g = 0; g < nDofAll; g++) if (basisOf[g] >= 0) B[basisOf[g] * nEq + eq[g]] = 1;
+  const X = nBasis > 0 ? inp.solve(B, nBasis) : new Float64Array(0);
+
+  // reaction elements: those touching a restrained freedom
+  const rxEl: number[] = [];
+  for (let e = 0; e < mesh.nElements; e++) {
+    const a = mesh.elStart[e] * 6, b = mesh.elEnd[e] * 6;
+    let any = false;
+    for (let k = 0; k < 6; k++) any ||= restrained[a + k] === 1 || restrained[b + k] === 1;
+    if (any) rxEl.push(e);
+  }
+  const full = new Float64Array(nFull);
+  const U = new Float64Array(nDofAll);
+  const kl = new Float64Array(144), ue = new Float64Array(12), ul = new Float64Array(12), f1 = new Float64Array(6);
+  const klOf: Float64Array[] = [];
+  for (let mi = 0; mi < nMem; mi++) klOf.push(elementLocal(mesh, mesh.members[mi].firstElement, new Float64Array(144)));
+  void kl;
+  for (let b = 0; b < nBasis; b++) {
+    for (let g = 0; g < nDofAll; g++) U[g] = eq[g] >= 0 ? X[b * nEq + eq[g]] : 0;
+    for (let i = 0; i < nUser * 6; i++) full[i] = U[i];
+    // reactions
+    for (let i = nUser * 6; i < nUser * 12; i++) full[i] = 0;
+    for (const e of rxEl) {
+      const ni = mesh.elStart[e], nj = mesh.elEnd[e];
+      for (let k = 0; k < 6; k++) { ue[k] = U[ni * 6 + k]; ue[6 + k] = U[nj * 6 + k]; }
+      for (let i = 0; i < 12; i++) {
+        const g = i < 6 ? ni * 6 + i : nj * 6 + i - 6;
+        if (!restrained[g] || g >= nUser * 6) continue;
+        let s = 0;
+        const ko = e * 144 + i * 12;
+        for (let j = 0; j < 12; j++) s += kgAll[ko + j] * ue[j];
+        full[nUser * 6 + g] += s;
+      }
+    }
+    for (const n of mesh.supportedNodes) for (let k = 0; k < 6; k++) {
+      const g = n * 6 + k, kk = mesh.springs[g];
+      if (kk !== 0 && eq[g] >= 0) full[nUser * 6 + g] = -kk * U[g];
+    }
+    // members
+    for (let mi = 0; mi < nMem; mi++) {
+      const m = mesh.members[mi];
+      const e0 = m.firstElement;
+      const ni = mesh.elStart[e0], nj = mesh.elEnd[e0];
+      let any = false;
+      for (let k = 0; k < 6; k++) { ue[k] = U[ni * 6 + k]; ue[6 + k] = U[nj * 6 + k]; any ||= ue[k] !== 0 || ue[6 + k] !== 0; }
+      const o = memberOff[mi];
+      if (!any && m.elementCount === 1) {
+        full.fill(0, o, memberOff[mi + 1]);
+        continue;
+      }
+      vecToLocal12(m.R, ue, ul);
+      const k12 = klOf[mi];
+      for (let i = 0; i < 6; i++) {
+        let s = 0;
+        for (let j = 0; j < 12; j++) s += k12[i * 12 + j] * ul[j];
+        f1[i] = s;
+      }
+      if (constantN[mi]) { full[o] = -f1[0]; continue; }
+      caseStations(m, undefined, f1, memberStations[mi], full, o);
+    }
+    const row = b * nCand;
+    for (let c = 0; c < nCand; c++) candVals[row + c] = full[cand[c]];
+  }
+  // keep the candidates with any non-zero value
+  const keep: number[] = [];
+  for (let c = 0; c < nCand; c++) {
+    let nz = false;
+    for (let b = 0; b < nBasis && !nz; b++) nz = candVals[b * nCand + c] !== 0;
+    if (nz) keep.push(c);
+  }
+  const nDense = keep.length;
+  const QU = new Float64Array(nBasis * nDense);
+  const denseFull = new Int32Array(nDense);
+  const denseOf = new Int32Array(nFull).fill(-1);
+  keep.forEach((c, d) => { denseFull[d] = cand[c]; denseOf[cand[c]] = d; });
+  for (let b = 0; b < nBasis; b++) {
+    const src = b * nCand, dst = b * nDense;
+    for (let d = 0; d < nDense; d++) QU[dst + d] = candVals[src + keep[d]];
+  }
+  const down: [number, number, number] = model.settings.verticalAxis === 'Y' ? [0, -1, 0] : [0, 0, -1];
+  return { nUser, memberOff, memberStations, nFull, constantN, basisOf, nBasis, denseFull, denseOf, QU, down, restrained };
+}
+
+/**
+ * The effect of a load P along −vertical at distance a on member mi (a lane member):
+ * equivalent nodal loads on basis columns (wB), reactions at restrained end freedoms and the
+ * member's own station table with its ends held (local). Calls `nodal(b, w)` for every
+ * basis weight, `reaction(full, v)` and `local(full, v)` for the rest.
+ */
+export class UnitLoadEffect {
+  private ls: LoadSet = { dist: [], point: [0, 0, 0, 0], moment: [], eps: 0, grad: 0 };
+  private fef = new Float64Array(12);
+  private fg = new Float64Array(12);
+  private tmp = new Float64Array(0);
+  constructor(private sys: LinearSystem, private basis: InfluenceBasis) {}
+
+  apply(
+    mi: number, a: number, P: number, withLocal: boolean,
+    nodal: (b: number, w: number) => void,
+    fullAdd: (full: number, v: number) => void,
+  ): void {
+    const { mesh } = this.sys;
+    const m = mesh.members[mi];
+    const R = m.R, d = this.basis.down;
+    const ls = this.ls;
+    ls.point[0] = a;
+    ls.point[1] = P * (R[0] * d[0] + R[1] * d[1] + R[2] * d[2]);
+    ls.point[2] = P * (R[3] * d[0] + R[4] * d[1] + R[5] * d[2]);
+    ls.point[3] = P * (R[6] * d[0] + R[7] * d[1] + R[8] * d[2]);
+    const e = m.firstElement;
+    const p = mesh.elProps;
+    fixedEndForces(ls, m.L, { EA: p[e * 5], EIy: p[e * 5 + 1], EIz: p[e * 5 + 2], GJ: p[e * 5 + 3] }, p[e * 5 + 4], m.truss, elementReleases(mesh.elRel[e]), this.fef);
+    vecToGlobal12(R, this.fef, this.fg);
+    const nU6 = this.basis.nUser * 6;
+    for (let i = 0; i < 12; i++) {
+      const v = this.fg[i];
+      if (v === 0) continue;
+      const g = i < 6 ? m.start * 6 + i : m.end * 6 + i - 6;
+      const b = this.basis.basisOf[g];
+      if (b >= 0) nodal(b, -v);
+      else if (this.basis.restrained[g] && g < nU6) fullAdd(nU6 + g, v);
+    }
+    if (!withLocal) return;
+    const xs = this.basis.memberStations[mi];
+    const n = ROWS * xs.length;
+    if (this.tmp.length < n) this.tmp = new Float64Array(n);
+    caseStations(m, ls, this.fef, xs, this.tmp, 0);
+    const o = this.basis.memberOff[mi];
+    for (let i = 0; i < n; i++) if (this.tmp[i] !== 0) fullAdd(o + i, this.tmp[i]);
+  }
+}
