@@ -123,10 +123,10 @@ export function buildSystem(model: Model, taperSegments: number, timings: Record
   t = now();
 
   // fixed-end forces (local) per loaded element and case
-  const fefCache = new Map<number, Float64Array>();
+  const fefCache: (Float64Array | undefined)[] = new Array(nEl * nCases);
   const fefOf = (e: number, c: number): Float64Array | undefined => {
     const key = e * nCases + c;
-    const hit = fefCache.get(key);
+    const hit = fefCache[key];
     if (hit) return hit;
     const mi = mesh.elMember[e];
     const ls = loadSets[mi * nCases + c];
@@ -139,7 +139,7 @@ export function buildSystem(model: Model, taperSegments: number, timings: Record
       part, L, { EA: p[e * 5], EIy: p[e * 5 + 1], EIz: p[e * 5 + 2], GJ: p[e * 5 + 3] }, p[e * 5 + 4],
       m.truss, elementReleases(mesh.elRel[e]), new Float64Array(12),
     );
-    fefCache.set(key, f);
+    fefCache[key] = f;
     return f;
   };
 
