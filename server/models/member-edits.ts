@@ -1,13 +1,13 @@
 /**
  * Grid edits of member fields applied to a validated model, with the reader's rules:
  * a section must be one of the model's sections or a catalogue designation (added to the
- * model's sections when first used), a material one of the model's or a built-in one,
+ * model's sections when first used, exactly as the reader does: shared/reader/library.ts),
+ * a material one of the model's or a built-in one,
  * numbers finite and greater than zero. Values arrive in the model's unit system, as in
  * the tables. Pure: returns a new model or the list of problems, never half an edit.
  */
-import type { Member, Model } from '../../shared/model/types.js';
-import { builtInMaterial } from '../../shared/materials/index.js';
-import { catalogueSection } from '../../shared/sections/index.js';
+import type { Material, Member, Model, Section } from '../../shared/model/types.js';
+import { resolveMaterial, resolveSection } from '../../shared/reader/library.js';
 import type { EditProblem, EditableMember, MemberEdit } from '../../shared/schemas/models.js';
 import { fromSI, toSI } from '../../shared/units/index.js';
 
@@ -23,19 +23,15 @@ function numberOf(value: MemberEdit['value']): number | null {
   return null;
 }
 
-function norm(id: string): string {
-  return id.trim().replace(/\s+/g, '').toLowerCase();
-}
-
 export function applyMemberEdits(model: Model, edits: MemberEdit[]): EditOutcome {
   const problems: EditProblem[] = [];
   const units = model.settings.units;
   const memberIndex = new Map<string, number>();
   model.members.forEach((m, i) => memberIndex.set(m.id, i));
   const sections = new Map(model.sections.map((s) => [s.id, s]));
-  const sectionsByNorm = new Map(model.sections.map((s) => [norm(s.id), s]));
+  const used = new Map<string, Section>();
   const materials = new Map(model.materials.map((m) => [m.id, m]));
-  const materialsByNorm = new Map(model.materials.map((m) => [norm(m.id), m]));
+  const usedMaterials = new Map<string, Material>();
   const newSections = [...model.sections];
   const newMaterials = [...model.materials];
   const members = model.members.slice();
@@ -54,18 +50,13 @@ export function applyMemberEdits(model: Model, edits: MemberEdit[]): EditOutcome
       case 'section': {
         const text = typeof edit.value === 'number' ? String(edit.value) : (edit.value ?? '').trim();
         if (!text) { fail(`${where}: a section is required`); continue; }
-        let section = sections.get(text) ?? sectionsByNorm.get(norm(text));
+        const before = used.size;
+        const section = resolveSection(text, sections, used);
         if (!section) {
-          const fromCatalogue = catalogueSection(text);
-          if (!fromCatalogue) {
-            fail(`${where}: unknown section "${text}" — not in the sections table nor in the catalogue`);
-            continue;
-          }
-          section = fromCatalogue;
-          sections.set(section.id, section);
-          sectionsByNorm.set(norm(section.id), section);
-          newSections.push(section);
+          fail(`${where}: unknown section "${text}" — not in the sections table nor in the catalogue`);
+          continue;
         }
+        if (used.size > before) newSections.push(section);
         if (m.sectionEnd) {
           const end = sections.get(m.sectionEnd);
           if (end && end.shape !== section.shape) {
@@ -79,18 +70,13 @@ export function applyMemberEdits(model: Model, edits: MemberEdit[]): EditOutcome
       case 'material': {
         const text = typeof edit.value === 'number' ? String(edit.value) : (edit.value ?? '').trim();
         if (!text) { fail(`${where}: a material is required`); continue; }
-        let material = materials.get(text) ?? materialsByNorm.get(norm(text));
+        const before = usedMaterials.size;
+        const material = resolveMaterial(text, materials, usedMaterials);
         if (!material) {
-          const builtIn = builtInMaterial(text);
-          if (!builtIn) {
-            fail(`${where}: unknown material "${text}" — not in the materials table nor built in`);
-            continue;
-          }
-          material = builtIn;
-          materials.set(material.id, material);
-          materialsByNorm.set(norm(material.id), material);
-          newMaterials.push(material);
+          fail(`${where}: unknown material "${text}" — not in the materials table nor built in`);
+          continue;
         }
+        if (usedMaterials.size > before) newMaterials.push(material);
         m.material = material.id;
         break;
       }
