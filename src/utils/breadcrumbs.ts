@@ -44,6 +44,10 @@ export function breadcrumbsFor(ctx: CrumbContext): Crumb[] {
       if (ctx.routeName === 'member') return [...trail, current(`Member ${String(ctx.params.member ?? '')}`)];
       return [...trail, current('Model')];
     }
+    case 'audit':
+      return [current('Audit trail')];
+    case 'outbox':
+      return [current('Mail')];
     case 'admin-users':
       return [current('Administration'), current('Users')];
     case 'about':

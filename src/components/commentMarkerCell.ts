@@ -1,0 +1,20 @@
+/** ag-grid cell renderer for the member id with a comment marker (count) when the member has comments. */
+export function commentMarkerCell(counts: Record<string, number>) {
+  return (p: { value: unknown }): HTMLElement => {
+    const span = document.createElement('span');
+    const id = String(p.value ?? '');
+    span.textContent = id;
+    const n = counts[id] ?? 0;
+    if (n > 0) {
+      const mark = document.createElement('span');
+      mark.className = 'comment-marker';
+      mark.dataset.test = 'comment-marker';
+      mark.title = `${n} comment${n === 1 ? '' : 's'}`;
+      mark.textContent = ` 💬${n}`;
+      mark.style.fontSize = '0.75em';
+      mark.style.opacity = '0.8';
+      span.appendChild(mark);
+    }
+    return span;
+  };
+}
