@@ -55,6 +55,28 @@ export function movingEnvelope(
   const r = new Float64Array(nDense);
   const nodal = (b: number, v: number) => { if (w[b] === 0) wIdx.push(b); w[b] += v; if (w[b] === 0) w[b] = 1e-300; };
   const fullAdd = (f: number, v: number) => { if (scratch[f] === 0) touched.push(f); scratch[f] += v; if (scratch[f] === 0) scratch[f] = 1e-300; };
+  // effects of a unit load per path position, cached: axles of a vehicle whose offsets are
+  // multiples of the step stand on the same positions one after another. Key: the position
+  // rounded to 1 nm (the effect is then taken at a point within 1 nm, relative change ~1e-12).
+  const cache = new Map<number, { nb: Int32Array; nw: Float64Array; fi: Int32Array; fv: Float64Array }>();
+  let cached = 0;
+  const CACHE_LIMIT = 4e6;
+  const cb: number[] = [], cw: number[] = [], cf: number[] = [], cv: number[] = [];
+  const recNodal = (b: number, v: number) => { cb.push(b); cw.push(v); };
+  const recFull = (f: number, v: number) => { cf.push(f); cv.push(v); };
+  const axleEffect = (s: number, P: number) => {
+    const key = Math.round(s * 1e9);
+    let e = cache.get(key);
+    if (!e) {
+      if (!locate(path, s, pt)) return;
+      cb.length = cw.length = cf.length = cv.length = 0;
+      effect.apply(path.segments[pt.segment].member, pt.a, 1, true, recNodal, recFull);
+      e = { nb: Int32Array.from(cb), nw: Float64Array.from(cw), fi: Int32Array.from(cf), fv: Float64Array.from(cv) };
+      if (cached < CACHE_LIMIT) { cache.set(key, e); cached += cb.length + cf.length + 4; }
+    }
+    for (let i = 0; i < e.nb.length; i++) nodal(e.nb[i], P * e.nw[i]);
+    for (let i = 0; i < e.fi.length; i++) fullAdd(e.fi[i], P * e.fv[i]);
+  };
   const pt: PathPoint = { segment: 0, a: 0 };
   const targets = laneTargets(path, basis);
   const offsets = axles.map((a) => a.offset);
@@ -68,27 +90,32 @@ export function movingEnvelope(
       const L0 = lead[p];
       for (const ax of axles) {
         const s = axlePosition(direction, L0, ax.offset);
-        if (!locate(path, s, pt)) continue;
-        effect.apply(path.segments[pt.segment].member, pt.a, ax.load, true, nodal, fullAdd);
+        if (s >= 0 && s <= path.length) axleEffect(s, ax.load);
       }
-      // dense part
-      r.fill(0);
-      for (const b of wIdx) {
-        const wb = w[b];
-        const o = b * nDense;
-        for (let d = 0; d < nDense; d++) r[d] += wb * QU[o + d];
-        w[b] = 0;
+      // dense part r = QUᵀ·w, two basis rows per pass; the last pass fused with the comparison
+      const k = wIdx.length;
+      let i = 0, started = false;
+      while (k - i > 2) {
+        const oa = wIdx[i] * nDense, ob = wIdx[i + 1] * nDense, wa = w[wIdx[i]], wb = w[wIdx[i + 1]];
+        if (started) for (let d = 0; d < nDense; d++) r[d] += wa * QU[oa + d] + wb * QU[ob + d];
+        else for (let d = 0; d < nDense; d++) r[d] = wa * QU[oa + d] + wb * QU[ob + d];
+        started = true;
+        i += 2;
       }
-      wIdx.length = 0;
+      if (!started) r.fill(0);
       for (const f of touched) {
         const d = denseOf[f];
         if (d >= 0) { r[d] += scratch[f]; scratch[f] = 0; }
       }
+      const oa = k - i >= 1 ? wIdx[i] * nDense : 0, wa = k - i >= 1 ? w[wIdx[i]] : 0;
+      const ob = k - i >= 2 ? wIdx[i + 1] * nDense : 0, wb = k - i >= 2 ? w[wIdx[i + 1]] : 0;
       for (let d = 0; d < nDense; d++) {
-        const v = r[d];
+        const v = r[d] + wa * QU[oa + d] + wb * QU[ob + d];
         if (v > dMax[d]) { dMax[d] = v; dPosMax[d] = L0; dDirMax[d] = dirCode; }
         if (v < dMin[d]) { dMin[d] = v; dPosMin[d] = L0; dDirMin[d] = dirCode; }
       }
+      for (const b of wIdx) w[b] = 0;
+      wIdx.length = 0;
       for (const f of touched) {
         const v = scratch[f];
         if (v === 0) continue; // dense, already taken

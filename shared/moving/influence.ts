@@ -13,8 +13,9 @@
  *
  * Quantities ("full layout"): node displacements (nUser·6), reactions (nUser·6), then per
  * member its station table (8 rows × stations, rows N, V_major, V_minor, T, M_major,
- * M_minor, d_major, d_minor). An unloaded prismatic truss member carries only a constant N,
- * so only its first station is a quantity (the rest copy it afterwards).
+ * M_minor, d_major, d_minor). A prismatic truss member carries a constant N (unless a lane's
+ * vertical load has an axial part on it), so only its first station is a quantity for N (the
+ * rest copy it afterwards); its other rows come from its own loads only.
  */
 import type { Model } from '../model/types.js';
 import { vecToGlobal12, vecToLocal12 } from '../engine/axes.js';
@@ -22,6 +23,7 @@ import { elementReleases, PLANE, SUPPORT } from '../engine/discretise.js';
 import { fixedEndForces } from '../engine/fixedEnd.js';
 import type { LoadSet } from '../engine/loadSet.js';
 import { caseStations, ROWS } from '../engine/recovery.js';
+import { internalForces } from '../engine/statics.js';
 import { elementLocal, type LinearSystem } from '../engine/system.js';
 
 export interface InfluenceInput {
@@ -66,28 +68,40 @@ export function buildInfluenceBasis(inp: InfluenceInput): InfluenceBasis {
   const memberStations: Float64Array[] = [];
   const constantN = new Uint8Array(nMem);
   let off = nUser * 12;
+  const downOf = model.settings.verticalAxis === 'Y' ? [0, -1, 0] : [0, 0, -1];
   for (let mi = 0; mi < nMem; mi++) {
     const xs = inp.stations(mi);
     memberStations.push(xs);
     memberOff[mi] = off;
     off += ROWS * xs.length;
     const m = mesh.members[mi];
-    if (m.truss && m.elementCount === 1 && !laneMembers.has(mi)) constantN[mi] = 1;
+    // a prismatic truss member carries a constant N unless a vertical load on it has an axial part
+    const axialLoad = Math.abs(m.R[0] * downOf[0] + m.R[1] * downOf[1] + m.R[2] * downOf[2]) > 1e-12;
+    if (m.truss && m.elementCount === 1 && !(laneMembers.has(mi) && axialLoad)) constantN[mi] = 1;
   }
   memberOff[nMem] = off;
   const nFull = off;
   const restrained = new Uint8Array(nDofAll);
   for (let g = 0; g < nDofAll; g++) restrained[g] = status[g] === SUPPORT || status[g] === PLANE ? 1 : 0;
 
-  // basis: free freedoms of the end nodes of lane members
+  // basis: free freedoms of the end nodes of lane members that a vertical load on the member
+  // can load (its fixed-end forces are cubic in a, so two interior positions show the pattern)
   const basisOf = new Int32Array(nDofAll).fill(-1);
+  const down: [number, number, number] = model.settings.verticalAxis === 'Y' ? [0, -1, 0] : [0, 0, -1];
+  const probe = new Float64Array(12), probeG = new Float64Array(12);
   let nBasis = 0;
   for (const mi of laneMembers) {
     const m = mesh.members[mi];
     if (m.elementCount !== 1) throw new Error(`member ${m.id}: a tapered member cannot carry a moving load (it is on a lane)`);
-    for (const n of [m.start, m.end]) for (let k = 0; k < 6; k++) {
-      const g = n * 6 + k;
-      if (eq[g] >= 0 && basisOf[g] < 0) basisOf[g] = nBasis++;
+    const used = new Uint8Array(12);
+    for (const t of [0.2113, 0.7887]) {
+      unitFef(sys, mi, t * m.L, 1, down, probe);
+      vecToGlobal12(m.R, probe, probeG);
+      for (let i = 0; i < 12; i++) if (Math.abs(probeG[i]) > 1e-12) used[i] = 1;
+    }
+    for (let i = 0; i < 12; i++) {
+      const g = i < 6 ? m.start * 6 + i : m.end * 6 + i - 6;
+      if (used[i] && eq[g] >= 0 && basisOf[g] < 0) basisOf[g] = nBasis++;
     }
   }
   // candidate quantities (full indices)
@@ -103,20 +117,18 @@ export function buildInfluenceBasis(inp: InfluenceInput): InfluenceBasis {
   }
   const nCand = cand.length;
   const candVals = new Float64Array(nBasis * nCand);
+  const nonZero = new Uint8Array(nCand);
 
   // one block solve
   const B = new Float64Array(nEq * nBasis);
   for (let g = 0; g < nDofAll; g++) if (basisOf[g] >= 0) B[basisOf[g] * nEq + eq[g]] = 1;
   const X = nBasis > 0 ? inp.solve(B, nBasis) : new Float64Array(0);
 
-  // reaction elements: those touching a restrained freedom
+  // reaction elements: those touching a supported node (plane-frame restraints elsewhere carry nothing in plane)
+  const supported = new Uint8Array(mesh.nNodes);
+  for (const n of mesh.supportedNodes) supported[n] = 1;
   const rxEl: number[] = [];
-  for (let e = 0; e < mesh.nElements; e++) {
-    const a = mesh.elStart[e] * 6, b = mesh.elEnd[e] * 6;
-    let any = false;
-    for (let k = 0; k < 6; k++) any ||= restrained[a + k] === 1 || restrained[b + k] === 1;
-    if (any) rxEl.push(e);
-  }
+  for (let e = 0; e < mesh.nElements; e++) if (supported[mesh.elStart[e]] || supported[mesh.elEnd[e]]) rxEl.push(e);
   const full = new Float64Array(nFull);
   const U = new Float64Array(nDofAll);
   const kl = new Float64Array(144), ue = new Float64Array(12), ul = new Float64Array(12), f1 = new Float64Array(6);
@@ -133,7 +145,7 @@ export function buildInfluenceBasis(inp: InfluenceInput): InfluenceBasis {
       for (let k = 0; k < 6; k++) { ue[k] = U[ni * 6 + k]; ue[6 + k] = U[nj * 6 + k]; }
       for (let i = 0; i < 12; i++) {
         const g = i < 6 ? ni * 6 + i : nj * 6 + i - 6;
-        if (!restrained[g] || g >= nUser * 6) continue;
+        if (!restrained[g] || g >= nUser * 6 || !supported[Math.floor(g / 6)]) continue;
         let s = 0;
         const ko = e * 144 + i * 12;
         for (let j = 0; j < 12; j++) s += kgAll[ko + j] * ue[j];
@@ -167,15 +179,15 @@ export function buildInfluenceBasis(inp: InfluenceInput): InfluenceBasis {
       caseStations(m, undefined, f1, memberStations[mi], full, o);
     }
     const row = b * nCand;
-    for (let c = 0; c < nCand; c++) candVals[row + c] = full[cand[c]];
+    for (let c = 0; c < nCand; c++) {
+      const v = full[cand[c]];
+      candVals[row + c] = v;
+      if (v !== 0) nonZero[c] = 1;
+    }
   }
   // keep the candidates with any non-zero value
   const keep: number[] = [];
-  for (let c = 0; c < nCand; c++) {
-    let nz = false;
-    for (let b = 0; b < nBasis && !nz; b++) nz = candVals[b * nCand + c] !== 0;
-    if (nz) keep.push(c);
-  }
+  for (let c = 0; c < nCand; c++) if (nonZero[c]) keep.push(c);
   const nDense = keep.length;
   const QU = new Float64Array(nBasis * nDense);
   const denseFull = new Int32Array(nDense);
@@ -185,8 +197,66 @@ export function buildInfluenceBasis(inp: InfluenceInput): InfluenceBasis {
     const src = b * nCand, dst = b * nDense;
     for (let d = 0; d < nDense; d++) QU[dst + d] = candVals[src + keep[d]];
   }
-  const down: [number, number, number] = model.settings.verticalAxis === 'Y' ? [0, -1, 0] : [0, 0, -1];
   return { nUser, memberOff, memberStations, nFull, constantN, basisOf, nBasis, denseFull, denseOf, QU, down, restrained };
+}
+
+/** Local fixed-end forces of a load P along `down` at distance a on prismatic member mi (into out12). */
+export function unitFef(sys: LinearSystem, mi: number, a: number, P: number, down: readonly number[], out12: Float64Array, ls?: LoadSet): LoadSet {
+  const { mesh } = sys;
+  const m = mesh.members[mi];
+  const R = m.R;
+  const set = ls ?? { dist: [], point: [0, 0, 0, 0], moment: [], eps: 0, grad: 0 };
+  set.point[0] = a;
+  set.point[1] = P * (R[0] * down[0] + R[1] * down[1] + R[2] * down[2]);
+  set.point[2] = P * (R[3] * down[0] + R[4] * down[1] + R[5] * down[2]);
+  set.point[3] = P * (R[6] * down[0] + R[7] * down[1] + R[8] * down[2]);
+  const e = m.firstElement;
+  const p = mesh.elProps;
+  fixedEndForces(set, m.L, { EA: p[e * 5], EIy: p[e * 5 + 1], EIz: p[e * 5 + 2], GJ: p[e * 5 + 3] }, p[e * 5 + 4], m.truss, elementReleases(mesh.elRel[e]), out12);
+  return set;
+}
+
+/**
+ * Station table (8 rows) of a prismatic member under one point load with start end forces f1:
+ * forces by statics (statics.ts); chord deflections d(x) = x·A(x) − B(x) − (x/L)(L·A(L) − B(L))
+ * with A = ∫κ, B = ∫sκ and κ = M/EI piecewise linear (kinks only at the load), so the
+ * trapezoid-type integrals below are exact. Same result as recovery.ts, without quadrature.
+ */
+function pointLoadStations(ls: LoadSet, f1: ArrayLike<number>, L: number, EIy: number, EIz: number, xs: Float64Array, out: Float64Array, work: Float64Array): void {
+  const nSt = xs.length;
+  const s = work.subarray(0, 6);
+  for (let i = 0; i < nSt; i++) {
+    internalForces(ls, f1, xs[i], xs[i] <= 0, s);
+    for (let r = 0; r < 6; r++) out[r * nSt + i] = s[r];
+  }
+  const a = ls.point[0];
+  internalForces(ls, f1, a, false, s);
+  const MaY = s[4], MaZ = s[5];
+  // integrate piecewise between consecutive points of {stations} ∪ {a}
+  let A1 = 0, B1 = 0, A2 = 0, B2 = 0;
+  let x0 = 0, m0y = out[4 * nSt], m0z = out[5 * nSt];
+  const Ax = work.subarray(6, 6 + nSt), Bx = work.subarray(6 + nSt, 6 + 2 * nSt);
+  const Az = work.subarray(6 + 2 * nSt, 6 + 3 * nSt), Bz = work.subarray(6 + 3 * nSt, 6 + 4 * nSt);
+  Ax[0] = Bx[0] = Az[0] = Bz[0] = 0;
+  const piece = (x1: number, m1y: number, m1z: number) => {
+    const h = x1 - x0;
+    if (h > 0) {
+      A1 += (h * (m0y + m1y)) / 2; B1 += (h * (x0 * (2 * m0y + m1y) + x1 * (m0y + 2 * m1y))) / 6;
+      A2 += (h * (m0z + m1z)) / 2; B2 += (h * (x0 * (2 * m0z + m1z) + x1 * (m0z + 2 * m1z))) / 6;
+    }
+    x0 = x1; m0y = m1y; m0z = m1z;
+  };
+  for (let i = 1; i < nSt; i++) {
+    if (a > xs[i - 1] && a < xs[i]) piece(a, MaY, MaZ);
+    piece(xs[i], out[4 * nSt + i], out[5 * nSt + i]);
+    Ax[i] = A1; Bx[i] = B1; Az[i] = A2; Bz[i] = B2;
+  }
+  const cY = (L * A1 - B1) / L, cZ = (L * A2 - B2) / L;
+  for (let i = 0; i < nSt; i++) {
+    const x = xs[i], end = i === 0 || i === nSt - 1;
+    out[6 * nSt + i] = end ? 0 : (x * Ax[i] - Bx[i] - x * cY) / EIy;
+    out[7 * nSt + i] = end ? 0 : (x * Az[i] - Bz[i] - x * cZ) / EIz;
+  }
 }
 
 /**
@@ -202,6 +272,7 @@ export class UnitLoadEffect {
   private tmp = new Float64Array(0);
   constructor(private sys: LinearSystem, private basis: InfluenceBasis) {}
 
+  private work = new Float64Array(0);
   apply(
     mi: number, a: number, P: number, withLocal: boolean,
     nodal: (b: number, w: number) => void,
@@ -209,16 +280,8 @@ export class UnitLoadEffect {
   ): void {
     const { mesh } = this.sys;
     const m = mesh.members[mi];
-    const R = m.R, d = this.basis.down;
-    const ls = this.ls;
-    ls.point[0] = a;
-    ls.point[1] = P * (R[0] * d[0] + R[1] * d[1] + R[2] * d[2]);
-    ls.point[2] = P * (R[3] * d[0] + R[4] * d[1] + R[5] * d[2]);
-    ls.point[3] = P * (R[6] * d[0] + R[7] * d[1] + R[8] * d[2]);
-    const e = m.firstElement;
-    const p = mesh.elProps;
-    fixedEndForces(ls, m.L, { EA: p[e * 5], EIy: p[e * 5 + 1], EIz: p[e * 5 + 2], GJ: p[e * 5 + 3] }, p[e * 5 + 4], m.truss, elementReleases(mesh.elRel[e]), this.fef);
-    vecToGlobal12(R, this.fef, this.fg);
+    const ls = unitFef(this.sys, mi, a, P, this.basis.down, this.fef, this.ls);
+    vecToGlobal12(m.R, this.fef, this.fg);
     const nU6 = this.basis.nUser * 6;
     for (let i = 0; i < 12; i++) {
       const v = this.fg[i];
@@ -232,7 +295,9 @@ export class UnitLoadEffect {
     const xs = this.basis.memberStations[mi];
     const n = ROWS * xs.length;
     if (this.tmp.length < n) this.tmp = new Float64Array(n);
-    caseStations(m, ls, this.fef, xs, this.tmp, 0);
+    if (this.work.length < 6 + 4 * xs.length) this.work = new Float64Array(6 + 4 * xs.length);
+    const e = m.firstElement, E = mesh.elProps;
+    pointLoadStations(ls, this.fef, m.L, E[e * 5 + 1], E[e * 5 + 2], xs, this.tmp, this.work);
     const o = this.basis.memberOff[mi];
     for (let i = 0; i < n; i++) if (this.tmp[i] !== 0) fullAdd(o + i, this.tmp[i]);
   }
