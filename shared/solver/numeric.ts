@@ -7,18 +7,43 @@
  * The dense kernels are dot products over rows held contiguously, blocked two rows by two
  * columns so that each loaded value is used twice, and tiled so the reused rows stay in cache.
  */
+import { simdKernels, type SimdKernels } from './simd-kernels.js';
 import type { SymbolicFactor } from './symbolic.js';
 import { SingularMatrixError } from './types.js';
 
 /** column block width of the dense factorisation inside a supernode */
 const NB = 48;
 
+/** the factor, the scatter maps (also as byte addresses) and the SIMD kernels if available */
+interface Kernel {
+  Lx: Float64Array;
+  simd: SimdKernels | null;
+  tRow: Int32Array;
+  tCol: Int32Array;
+  tRowB: number;
+  tColB: number;
+}
+
 /** reciprocals of the diagonal of the current column block */
 const inv = new Float64Array(NB);
 
 export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTolerance: number): Float64Array {
   const { n, perm, cPtr, cRow, cVal, nsuper, superFirst, superRowPtr, superRows, superValPtr, colToSuper } = sym;
-  const Lx = new Float64Array(superValPtr[nsuper]);
+  let maxRows = 0;
+  for (let s = 0; s < nsuper; s++) maxRows = Math.max(maxRows, superRowPtr[s + 1] - superRowPtr[s]);
+  // the factor and the scatter maps share one WebAssembly memory when SIMD kernels exist
+  const nL = superValPtr[nsuper];
+  const simd = simdKernels(nL * 8 + 3 * 4 * maxRows + 64);
+  const buf = simd ? simd.memory.buffer : null;
+  const Lx = buf ? new Float64Array(buf, 0, nL) : new Float64Array(nL);
+  const tRowB = nL * 8;
+  const tColB = tRowB + 4 * maxRows;
+  const identB = tColB + 4 * maxRows;
+  const tRow = buf ? new Int32Array(buf, tRowB, maxRows) : new Int32Array(maxRows);
+  const tCol = buf ? new Int32Array(buf, tColB, maxRows) : new Int32Array(maxRows);
+  const ident = buf ? new Int32Array(buf, identB, maxRows) : new Int32Array(maxRows);
+  const k: Kernel = { Lx, simd, tRow, tCol, tRowB, tColB };
+  const kd: Kernel = { Lx, simd, tRow, tCol: ident, tRowB, tColB: identB };
   const origDiag = new Float64Array(n);
   for (let j = 0; j < n; j++) {
     for (let p = cPtr[j]; p < cPtr[j + 1]; p++) if (cRow[p] === j) origDiag[j] += values[cVal[p]];
@@ -27,11 +52,6 @@ export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTo
   const head = new Int32Array(nsuper).fill(-1);
   const nextD = new Int32Array(nsuper);
   const posD = new Int32Array(nsuper);
-  let maxRows = 0;
-  for (let s = 0; s < nsuper; s++) maxRows = Math.max(maxRows, superRowPtr[s + 1] - superRowPtr[s]);
-  const tRow = new Int32Array(maxRows);
-  const tCol = new Int32Array(maxRows);
-  const ident = new Int32Array(maxRows);
   for (let i = 0; i < maxRows; i++) ident[i] = i;
 
   for (let s = 0; s < nsuper; s++) {
@@ -63,7 +83,7 @@ export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTo
         tRow[r] = os + map[row] * nc - f;
         tCol[r] = row;
       }
-      lowerProduct(Lx, superValPtr[d], superFirst[d + 1] - superFirst[d], p1, nrd, p1, p2, 0, superFirst[d + 1] - superFirst[d], tRow, tCol);
+      lowerProduct(k, superValPtr[d], superFirst[d + 1] - superFirst[d], p1, nrd, p1, p2, 0, superFirst[d + 1] - superFirst[d]);
       posD[d] = p2;
       if (p2 < nrd) {
         const t = colToSuper[superRows[r0d + p2]];
@@ -74,7 +94,7 @@ export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTo
     }
 
     for (let r = 0; r < nr; r++) tRow[r] = os + r * nc;
-    factorBlock(Lx, os, nc, nr, f, origDiag, perm, pivotTolerance, tRow, ident);
+    factorBlock(kd, os, nc, nr, f, origDiag, perm, pivotTolerance);
 
     if (nr > nc) {
       const t = colToSuper[superRows[r0 + nc]];
@@ -91,7 +111,7 @@ export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTo
  * solved against it), left-looking over column blocks of width NB.
  */
 function factorBlock(
-  Lx: Float64Array,
+  k: Kernel,
   os: number,
   nc: number,
   nr: number,
@@ -99,12 +119,11 @@ function factorBlock(
   origDiag: Float64Array,
   perm: Int32Array,
   tol: number,
-  tRow: Int32Array,
-  ident: Int32Array,
 ): void {
+  const Lx = k.Lx;
   for (let j0 = 0; j0 < nc; j0 += NB) {
     const j1 = Math.min(nc, j0 + NB);
-    if (j0 > 0) lowerProduct(Lx, os, nc, j0, nr, j0, j1, 0, j0, tRow, ident);
+    if (j0 > 0) lowerProduct(k, os, nc, j0, nr, j0, j1, 0, j0);
     // diagonal block columns j0..j1-1
     for (let i = j0; i < j1; i++) {
       const rowI = os + i * nc;
@@ -125,7 +144,8 @@ function factorBlock(
     }
     // rows below the diagonal block, columns j0..j1-1
     for (let j = j0; j < j1; j++) inv[j - j0] = 1 / Lx[os + j * nc + j];
-    trsmRows(Lx, os, nc, nr, j0, j1, inv);
+    if (k.simd) k.simd.trsm(os, nc, nr, j0, j1);
+    else trsmRows(Lx, os, nc, nr, j0, j1, inv);
   }
 }
 
@@ -197,24 +217,14 @@ const KC = 384;
  * for rows rLo ≤ r < rHi and columns cLo ≤ c < cHi with c ≤ r,
  * Lx[tRow[r] + tCol[c]] −= Σ_{kLo≤k<kHi} L[ob + r·w + k] · L[ob + c·w + k].
  */
-function lowerProduct(
-  Lx: Float64Array,
-  ob: number,
-  w: number,
-  rLo: number,
-  rHi: number,
-  cLo: number,
-  cHi: number,
-  kLo: number,
-  kHi: number,
-  tRow: Int32Array,
-  tCol: Int32Array,
-): void {
+function lowerProduct(k: Kernel, ob: number, w: number, rLo: number, rHi: number, cLo: number, cHi: number, kLo: number, kHi: number): void {
+  const simd = k.simd;
   for (let k0 = kLo; k0 < kHi; k0 += KC) {
     const k1 = Math.min(kHi, k0 + KC);
     for (let c0 = cLo; c0 < cHi; c0 += CB) {
       const c1 = Math.min(cHi, c0 + CB);
-      productKernel(Lx, ob, w, Math.max(rLo, c0), rHi, c0, c1, k0, k1, tRow, tCol);
+      if (simd) simd.update(ob, w, Math.max(rLo, c0), rHi, c0, c1, k0, k1, k.tRowB, k.tColB);
+      else productKernel(k.Lx, ob, w, Math.max(rLo, c0), rHi, c0, c1, k0, k1, k.tRow, k.tCol);
     }
   }
 }

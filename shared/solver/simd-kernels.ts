@@ -1,0 +1,213 @@
+/**
+ * Dense kernels of the supernodal factorisation in WebAssembly with 128-bit SIMD, built at
+ * load time by wasm-emitter.ts. All arguments are indices into one memory that holds the
+ * factor (Float64, element index = byte address / 8) and the scatter maps (Int32, given by
+ * their byte address). When WebAssembly SIMD is unavailable, `simdKernels()` returns null
+ * and the factorisation uses its plain TypeScript kernels instead.
+ *
+ * update(ob, w, rLo, rHi, cLo, cHi, kLo, kHi, tRowB, tColB):
+ *   for rLo ≤ r < rHi and cLo ≤ c < cHi, c ≤ r (rounded up to the 4-row block, so a few
+ *   entries just above the diagonal of the target are written too; callers never read them):
+ *   L[tRow[r] + tCol[c]] −= Σ_{kLo ≤ k < kHi} L[ob + r·w + k] · L[ob + c·w + k]
+ *   computed four rows by two columns at a time, two products per SIMD lane pair.
+ */
+import { assembleModule, F64, FunctionBuilder, I32, V128 } from './wasm-emitter.js';
+
+export interface SimdKernels {
+  memory: WebAssembly.Memory;
+  update(ob: number, w: number, rLo: number, rHi: number, cLo: number, cHi: number, kLo: number, kHi: number, tRowB: number, tColB: number): void;
+  trsm(os: number, nc: number, nr: number, j0: number, j1: number): void;
+}
+
+function buildUpdate(): FunctionBuilder {
+  const f = new FunctionBuilder('update', [I32, I32, I32, I32, I32, I32, I32, I32, I32, I32]);
+  const [ob, w, rLo, rHi, cLo, cHi, kLo, kHi, tRowB, tColB] = [0, 1, 2, 3, 4, 5, 6, 7, 8, 9];
+  const r = f.local(I32);
+  const c = f.local(I32);
+  const cEnd = f.local(I32);
+  const w8 = f.local(I32);
+  const odd = f.local(I32);
+  const len2 = f.local(I32);
+  const end = f.local(I32);
+  const addr = f.local(I32);
+  const pa = [f.local(I32), f.local(I32), f.local(I32), f.local(I32)];
+  const pb = [f.local(I32), f.local(I32)];
+  const va = [f.local(V128), f.local(V128), f.local(V128), f.local(V128)];
+  const vb = [f.local(V128), f.local(V128)];
+  const acc: number[] = [];
+  for (let i = 0; i < 8; i++) acc.push(f.local(V128));
+  const s: number[] = [];
+  for (let i = 0; i < 8; i++) s.push(f.local(F64));
+
+  /** byte address of L[ob + row·w + kLo] for the row held in local `row` */
+  const rowStart = (row: number, target: number): void => {
+    f.get(ob).get(row).get(w).mul().add().get(kLo).add().i32(3).shl().set(target);
+  };
+
+  const micro = (mr: number, nr: number): void => {
+    rowStart(r, pa[0]);
+    for (let i = 1; i < mr; i++) f.get(pa[i - 1]).get(w8).add().set(pa[i]);
+    rowStart(c, pb[0]);
+    for (let j = 1; j < nr; j++) f.get(pb[j - 1]).get(w8).add().set(pb[j]);
+    for (let q = 0; q < mr * nr; q++) f.v128Zero().set(acc[q]);
+    f.get(pa[0]).get(len2).add().set(end);
+    f.block().loop();
+    f.get(pa[0]).get(end).geU().brIf(1);
+    for (let i = 0; i < mr; i++) f.get(pa[i]).v128Load().set(va[i]);
+    for (let j = 0; j < nr; j++) f.get(pb[j]).v128Load().set(vb[j]);
+    for (let i = 0; i < mr; i++) {
+      for (let j = 0; j < nr; j++) {
+        const q = i * nr + j;
+        f.get(acc[q]).get(va[i]).get(vb[j]).vmul().vadd().set(acc[q]);
+      }
+    }
+    for (let i = 0; i < mr; i++) f.inc(pa[i], 16);
+    for (let j = 0; j < nr; j++) f.inc(pb[j], 16);
+    f.br(0).end().end();
+    for (let q = 0; q < mr * nr; q++) f.get(acc[q]).lane(0).get(acc[q]).lane(1).fadd().set(s[q]);
+    f.get(odd).if();
+    for (let i = 0; i < mr; i++) {
+      for (let j = 0; j < nr; j++) {
+        const q = i * nr + j;
+        f.get(s[q]).get(pa[i]).f64Load().get(pb[j]).f64Load().fmul().fadd().set(s[q]);
+      }
+    }
+    f.end();
+    for (let i = 0; i < mr; i++) {
+      for (let j = 0; j < nr; j++) {
+        const q = i * nr + j;
+        f.get(r).i32(2).shl().get(tRowB).add().i32Load(4 * i);
+        f.get(c).i32(2).shl().get(tColB).add().i32Load(4 * j);
+        f.add().i32(3).shl().tee(addr);
+        f.get(addr).f64Load().get(s[q]).fsub().f64Store();
+      }
+    }
+  };
+
+  /** column loop for a block of `mr` rows starting at r: columns cLo ≤ c < min(cHi, r + mr) */
+  const columns = (mr: number): void => {
+    f.get(cHi).get(r).i32(mr).add().get(cHi).get(r).i32(mr).add().ltS().select().set(cEnd);
+    f.get(cLo).set(c);
+    f.block().loop();
+    f.get(c).i32(2).add().get(cEnd).gtS().brIf(1);
+    micro(mr, 2);
+    f.inc(c, 2).br(0).end().end();
+    f.get(c).get(cEnd).ltS().if();
+    micro(mr, 1);
+    f.end();
+  };
+
+  f.get(w).i32(3).shl().set(w8);
+  f.get(kHi).get(kLo).sub().i32(1).and().set(odd);
+  f.get(kHi).get(kLo).sub().i32(-2).and().i32(3).shl().set(len2);
+  f.get(rLo).set(r);
+  f.block().loop();
+  f.get(r).i32(4).add().get(rHi).gtS().brIf(1);
+  columns(4);
+  f.inc(r, 4).br(0).end().end();
+  f.block().loop();
+  f.get(r).get(rHi).geS().brIf(1);
+  columns(1);
+  f.inc(r, 1).br(0).end().end();
+  return f;
+}
+
+/**
+ * trsm(os, nc, nr, j0, j1): in the row-major nr × nc block at os, for rows j1 ≤ r < nr and
+ * columns j0 ≤ j < j1 in turn, L[r, j] = (L[r, j] − Σ_{j0≤k<j} L[r, k]·L[j, k]) / L[j, j]
+ * (solving the rows below a factored diagonal panel), four rows at a time.
+ */
+function buildTrsm(): FunctionBuilder {
+  const f = new FunctionBuilder('trsm', [I32, I32, I32, I32, I32]);
+  const [os, nc, nr, j0, j1] = [0, 1, 2, 3, 4];
+  const r = f.local(I32);
+  const j = f.local(I32);
+  const nc8 = f.local(I32);
+  const pb = f.local(I32);
+  const end = f.local(I32);
+  const addr = f.local(I32);
+  const pa = [f.local(I32), f.local(I32), f.local(I32), f.local(I32)];
+  const va = [f.local(V128), f.local(V128), f.local(V128), f.local(V128)];
+  const vb = f.local(V128);
+  const acc = [f.local(V128), f.local(V128), f.local(V128), f.local(V128)];
+  const s = [f.local(F64), f.local(F64), f.local(F64), f.local(F64)];
+  const d = f.local(F64);
+
+  const rows = (mr: number): void => {
+    f.get(j0).set(j);
+    f.block().loop();
+    f.get(j).get(j1).geS().brIf(1);
+    // pa[0] = &L[r, j0], pb = &L[j, j0]
+    f.get(os).get(r).get(nc).mul().add().get(j0).add().i32(3).shl().set(pa[0]);
+    for (let i = 1; i < mr; i++) f.get(pa[i - 1]).get(nc8).add().set(pa[i]);
+    f.get(os).get(j).get(nc).mul().add().get(j0).add().i32(3).shl().set(pb);
+    f.get(pb).get(j).get(j0).sub().i32(-2).and().i32(3).shl().add().set(end);
+    for (let i = 0; i < mr; i++) f.v128Zero().set(acc[i]);
+    f.block().loop();
+    f.get(pb).get(end).geU().brIf(1);
+    f.get(pb).v128Load().set(vb);
+    for (let i = 0; i < mr; i++) f.get(pa[i]).v128Load().set(va[i]);
+    for (let i = 0; i < mr; i++) f.get(acc[i]).get(va[i]).get(vb).vmul().vadd().set(acc[i]);
+    for (let i = 0; i < mr; i++) f.inc(pa[i], 16);
+    f.inc(pb, 16);
+    f.br(0).end().end();
+    for (let i = 0; i < mr; i++) f.get(acc[i]).lane(0).get(acc[i]).lane(1).fadd().set(s[i]);
+    f.get(j).get(j0).sub().i32(1).and().if();
+    for (let i = 0; i < mr; i++) f.get(s[i]).get(pa[i]).f64Load().get(pb).f64Load().fmul().fadd().set(s[i]);
+    for (let i = 0; i < mr; i++) f.inc(pa[i], 8);
+    f.inc(pb, 8);
+    f.end();
+    // pb now points at L[j, j]; pa[i] at L[r + i, j]
+    f.get(pb).f64Load().set(d);
+    for (let i = 0; i < mr; i++) {
+      f.get(pa[i]).set(addr);
+      f.get(addr).get(addr).f64Load().get(s[i]).fsub().get(d).fdiv().f64Store();
+    }
+    f.inc(j, 1).br(0).end().end();
+  };
+
+  f.get(nc).i32(3).shl().set(nc8);
+  f.get(j1).set(r);
+  f.block().loop();
+  f.get(r).i32(4).add().get(nr).gtS().brIf(1);
+  rows(4);
+  f.inc(r, 4).br(0).end().end();
+  f.block().loop();
+  f.get(r).get(nr).geS().brIf(1);
+  rows(1);
+  f.inc(r, 1).br(0).end().end();
+  return f;
+}
+
+let compiled: WebAssembly.Module | null | undefined;
+
+function module(): WebAssembly.Module | null {
+  if (compiled !== undefined) return compiled;
+  compiled = null;
+  try {
+    if (typeof WebAssembly === 'object') {
+      const bytes = assembleModule([buildUpdate(), buildTrsm()]);
+      if (WebAssembly.validate(bytes)) compiled = new WebAssembly.Module(bytes);
+    }
+  } catch {
+    compiled = null;
+  }
+  return compiled;
+}
+
+/** largest memory asked for (bytes); beyond it the TypeScript kernels are used */
+const MAX_BYTES = 2 ** 32 - 2 ** 16;
+
+/** Kernels over a fresh memory of at least `bytes` bytes, or null when unavailable. */
+export function simdKernels(bytes: number): SimdKernels | null {
+  const mod = module();
+  if (mod === null || bytes > MAX_BYTES) return null;
+  try {
+    const memory = new WebAssembly.Memory({ initial: Math.max(1, Math.ceil(bytes / 65536)) });
+    const inst = new WebAssembly.Instance(mod, { env: { mem: memory } });
+    const ex = inst.exports as unknown as Pick<SimdKernels, 'update' | 'trsm'>;
+    return { memory, update: ex.update, trsm: ex.trsm };
+  } catch {
+    return null;
+  }
+}
