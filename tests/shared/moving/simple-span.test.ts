@@ -98,6 +98,27 @@ describe('simple span under a moving axle train', () => {
     expect(r.moving!.memberPosition(9, lmax, 'M_major', 10)!.direction).toBe('forward');
   });
 
+  it('the influence ordinates equal a static analysis of a unit point load (all station rows)', () => {
+    const { b, members } = simpleSpan(L, 20);
+    // continuity at the lane's members: a fixed-ended frame, unit load at a = 0.5 m on M10 (s = 9.5 m)
+    b.loadCase('UNIT').memberLoad('UNIT', 'M10', 'point', 'global_z', -1, { a: 0.5 });
+    const m = addMoving(b, [{ offset: 0, load: 1 }], members).build();
+    const r = analyse(m);
+    const unit = loadingIndex(r, 'UNIT');
+    for (const mi of [8, 9, 10]) {
+      const f = r.memberForces(mi, unit);
+      for (const key of ['N', 'V_major', 'M_major', 'd_major'] as const) {
+        for (let st = 0; st < f.x.length; st++) {
+          const line = r.moving!.influenceLine(0, { member: mi, key, station: st });
+          const k = line.s.findIndex((v) => Math.abs(v - 9.5) < 1e-9);
+          // superposition is exact: tolerance 1e-9 of the scale (1 N, 1 N·m, EI-scaled deflection)
+          const scale = key === 'd_major' ? 1 / (200e9 * 1e-4) : 1;
+          expect(Math.abs(line.value[k] - f[key][st])).toBeLessThan(1e-9 * scale);
+        }
+      }
+    }
+  });
+
   it('a combination with a moving case has max and min envelopes: static part plus the factored extreme', () => {
     const { b, members } = simpleSpan(L, 20);
     b.loadCase('D');
