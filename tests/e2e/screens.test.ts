@@ -14,6 +14,14 @@ import { apiFromPage, ARTIFACTS_DIR, chromiumAvailable, screenshot, signIn, star
 
 const enabled = chromiumAvailable('screens');
 
+// Browser globals used inside page.evaluate callbacks (the tests' tsconfig has no DOM library).
+/* eslint-disable @typescript-eslint/no-explicit-any */
+declare const document: any;
+declare const DataTransfer: any;
+declare const ClipboardEvent: any;
+declare const getComputedStyle: any;
+declare const requestAnimationFrame: any;
+
 /** A small demo model of our own (invented numbers: demo data): two-span beam, EN 1993-1-1. */
 const CSV: Record<string, string> = {
   'settings.csv': 'key,value\ntitle,Two-span demo beam\nunits,metric\ndesign_code,en1993-1-1\n',
@@ -43,7 +51,7 @@ function cell(page: Page, member: string, colId: string) {
 
 /** Rows rendered in a grid (a row split over pinned and centre parts counts once). */
 function rowCount(page: Page, scope: string): Promise<number> {
-  return page.evaluate((sel) => new Set([...document.querySelectorAll(`${sel} .ag-row`)].map((r) => r.getAttribute('row-id') ?? r.getAttribute('row-index'))).size, scope);
+  return page.evaluate((sel) => new Set(([...document.querySelectorAll(`${sel} .ag-row`)] as any[]).map((r) => r.getAttribute('row-id') ?? r.getAttribute('row-index'))).size, scope);
 }
 
 describe.skipIf(!enabled)('working screens in the browser', () => {
@@ -229,7 +237,7 @@ describe.skipIf(!enabled)('working screens in the browser', () => {
     const loadMs = Date.now() - t0;
     const frames = await page.evaluate(async () => {
       // the grid's scrolling body: the tallest scrollable element inside it
-      const all = [...document.querySelectorAll('[data-test=results-grid] *')] as HTMLElement[];
+      const all = [...document.querySelectorAll('[data-test=results-grid] *')] as any[];
       const vp = all
         .filter((e) => e.scrollHeight > e.clientHeight + 100 && ['auto', 'scroll'].includes(getComputedStyle(e).overflowY))
         .sort((a, b) => b.scrollHeight - a.scrollHeight)[0];
