@@ -11,6 +11,7 @@ import type { AnalysisResult } from '../../shared/engine/types.js';
 import type { CheckRecord, MemberUtilisation } from '../../shared/design/types.js';
 import type { LoadingInfo, RunPhase } from '../../shared/schemas/runs.js';
 import { analyse } from '../../shared/engine/index.js';
+import { factorise as factoriseSystem } from '../../shared/engine/solverBridge.js';
 import { checkModel } from '../../shared/design/index.js';
 
 export interface RunOutput {
@@ -53,8 +54,13 @@ const ENGINE_PHASES: Record<string, RunPhase> = {
 export function computeRun(
   modelJson: string,
   designCode: DesignCode,
-  onPhase: (phase: RunPhase) => void = () => {},
+  report: (phase: RunPhase) => void = () => {},
 ): { output: RunOutput; analysed: Analysed } {
+  let last: RunPhase | null = null;
+  const onPhase = (phase: RunPhase) => {
+    if (phase !== last) report(phase);
+    last = phase;
+  };
   const timings: Record<string, number> = {};
   let t = performance.now();
   const lap = (phase: string) => {
@@ -68,7 +74,26 @@ export function computeRun(
   lap('reading');
 
   onPhase('assembling');
-  const analysis = analyse(model);
+  // report the solver's phases through the engine's factorise hook
+  const analysis = analyse(model, {
+    factorise: (K, opts) => {
+      onPhase('factorising');
+      const f = factoriseSystem(K, opts);
+      let solving = false;
+      return {
+        n: f.n,
+        nnzFactor: f.nnzFactor,
+        timings: f.timings,
+        solve: (B, nrhs) => {
+          if (!solving) onPhase('solving');
+          solving = true;
+          const x = f.solve(B, nrhs);
+          onPhase('recovering');
+          return x;
+        },
+      };
+    },
+  });
   const analysisMs = performance.now() - t;
   t = performance.now();
   let engineSum = 0;

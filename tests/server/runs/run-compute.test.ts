@@ -1,0 +1,22 @@
+/** The work of one run, without a thread: phases in order and results packed for storage. */
+import { gunzipSync } from 'node:zlib';
+import { describe, expect, it } from 'vitest';
+import { readCsvFiles } from '../../../shared/reader/index.js';
+import type { RunPhase } from '../../../shared/schemas/runs.js';
+import { computeRun, packRun } from '../../../server/runs/run-compute.js';
+import { CSV } from '../models/fixture.js';
+
+describe('computeRun', () => {
+  it('reports each phase once, in order, and packs members, records and node results', async () => {
+    const read = await readCsvFiles(Object.entries(CSV).map(([name, text]) => ({ name, text })));
+    if (!read.ok) throw new Error('fixture does not read');
+    const phases: RunPhase[] = [];
+    const { output } = computeRun(JSON.stringify(read.model), 'en1993-1-1', (p) => phases.push(p));
+    expect(phases).toEqual(['reading', 'assembling', 'factorising', 'solving', 'recovering', 'checking']);
+    const packed = packRun(output);
+    expect(JSON.parse(gunzipSync(packed.membersData).toString())).toHaveLength(2);
+    expect(packed.counts.pass + packed.counts.fail + packed.counts.notChecked).toBe(2);
+    // 3 nodes × 6 freedoms × 4 loadings (2 cases + 2 combinations), displacements then reactions, 8 bytes each
+    expect(gunzipSync(packed.nodeData).byteLength).toBe(3 * 6 * 4 * 2 * 8);
+  });
+});
