@@ -1,7 +1,8 @@
 /**
- * EN 1993-1-1 6.3.1 flexural buckling of uniform members in compression (class 1–3):
+ * EN 1993-1-1 6.3.1 flexural buckling of uniform members in compression:
  * Nb,Rd = χ·A·fy/γM1 (6.47), χ = 1/(Φ + √(Φ² − λ̄²)) ≤ 1 (6.49),
- * Φ = 0.5[1 + α(λ̄ − 0.2) + λ̄²], λ̄ = √(A·fy/Ncr) (6.50), Ncr = π²EI/Lcr².
+ * Φ = 0.5[1 + α(λ̄ − 0.2) + λ̄²], λ̄ = √(A·fy/Ncr) (6.50), Ncr = π²EI/Lcr²;
+ * class 4: Nb,Rd = χ·Aeff·fy/γM1, λ̄ = √(Aeff·fy/Ncr) (6.51), Aeff of EN 1993-1-5 4.4.
  * Imperfection factors α from Table 6.1; buckling curves from Table 6.2 (rolled I by h/b
  * and tf, with the S460 column; welded I by tf; hollow sections hot finished a (S460 a0),
  * cold formed c — a hollow section counts as hot finished only when its catalogue source
@@ -10,7 +11,7 @@
 import { inp, notCheckedHead, type RecordHead } from '../record.js';
 import type { DesignGeometry } from '../geometry.js';
 import type { EnContext, Resistance } from './context.js';
-import { enCompressionScope } from './compression.js';
+import { compressionArea, enCompressionScope } from './compression.js';
 
 export type BucklingCurve = 'a0' | 'a' | 'b' | 'c' | 'd';
 /** Table 6.1 imperfection factors. */
@@ -52,12 +53,21 @@ export interface FlexuralBuckling extends Resistance {
   chiZ: number;
   lambdaY: number;
   lambdaZ: number;
+  /** the same with the gross area (for 6.3.3 when the section is class 1–3 under its loading) */
+  chiYA: number;
+  chiZA: number;
+  lambdaYA: number;
+  lambdaZA: number;
+  /** area used (A or Aeff) */
+  area: number;
 }
 
 export function flexuralBuckling(g: DesignGeometry, c: EnContext, LcrY: number, LcrZ: number): FlexuralBuckling {
   const scope = enCompressionScope(g, c);
-  if (scope) return { capacity: NaN, chiY: NaN, chiZ: NaN, lambdaY: NaN, lambdaZ: NaN, head: notCheckedHead('compression', 'en1993-1-1', '6.3.1', 'flexural buckling', scope) };
-  const NRk = g.A * c.fy;
+  if (scope) return { capacity: NaN, chiY: NaN, chiZ: NaN, lambdaY: NaN, lambdaZ: NaN, chiYA: NaN, chiZA: NaN, lambdaYA: NaN, lambdaZA: NaN, area: NaN, head: notCheckedHead('compression', 'en1993-1-1', '6.3.1', 'flexural buckling', scope) };
+  const area = compressionArea(g, c);
+  const eff = area !== g.A;
+  const NRk = area * c.fy;
   const NcrY = (Math.PI * Math.PI * c.E * g.Imaj) / (LcrY * LcrY);
   const NcrZ = (Math.PI * Math.PI * c.E * g.Imin) / (LcrZ * LcrZ);
   const lambdaY = Math.sqrt(NRk / NcrY);
@@ -66,11 +76,14 @@ export function flexuralBuckling(g: DesignGeometry, c: EnContext, LcrY: number, 
   const chiY = chi(lambdaY, ALPHA[curves.y]);
   const chiZ = chi(lambdaZ, ALPHA[curves.z]);
   const x = Math.min(chiY, chiZ);
+  const lambdaYA = Math.sqrt((g.A * c.fy) / NcrY), lambdaZA = Math.sqrt((g.A * c.fy) / NcrZ);
   const head: RecordHead = {
     family: 'compression', code: 'en1993-1-1', clause: '6.3.1', title: 'flexural buckling',
-    equation: 'Nb,Rd = χ·A·fy/γM1 (6.47), χ = 1/(Φ + √(Φ² − λ̄²)) ≤ 1 (6.49), Φ = 0.5[1 + α(λ̄ − 0.2) + λ̄²], λ̄ = √(A·fy/Ncr) (6.50)',
+    equation: eff
+      ? 'class 4: Nb,Rd = χ·Aeff·fy/γM1 (6.47), χ = 1/(Φ + √(Φ² − λ̄²)) ≤ 1 (6.49), Φ = 0.5[1 + α(λ̄ − 0.2) + λ̄²], λ̄ = √(Aeff·fy/Ncr) (6.51); Aeff per EN 1993-1-5 4.4'
+      : 'Nb,Rd = χ·A·fy/γM1 (6.47), χ = 1/(Φ + √(Φ² − λ̄²)) ≤ 1 (6.49), Φ = 0.5[1 + α(λ̄ − 0.2) + λ̄²], λ̄ = √(A·fy/Ncr) (6.50)',
     inputs: [
-      inp('A', 'area', g.A, 'area'), inp('fy', 'yield strength', c.fy, 'stress'), inp('γM1', 'partial factor', c.gammaM1, 'ratio'),
+      eff ? inp('Aeff', 'effective area (class 4)', area, 'area') : inp('A', 'area', g.A, 'area'), inp('fy', 'yield strength', c.fy, 'stress'), inp('γM1', 'partial factor', c.gammaM1, 'ratio'),
       inp('Lcr,y', 'buckling length, major', LcrY, 'length'), inp('Lcr,z', 'buckling length, minor', LcrZ, 'length'),
       inp('Ncr,y', 'elastic critical force, major', NcrY, 'force'), inp('Ncr,z', 'elastic critical force, minor', NcrZ, 'force'),
       inp('λ̄y', 'non-dimensional slenderness, major', lambdaY, 'ratio'), inp('λ̄z', 'non-dimensional slenderness, minor', lambdaZ, 'ratio'),
@@ -80,5 +93,8 @@ export function flexuralBuckling(g: DesignGeometry, c: EnContext, LcrY: number, 
     ],
     quantity: 'force',
   };
-  return { capacity: (x * NRk) / c.gammaM1, chiY, chiZ, lambdaY, lambdaZ, head };
+  return {
+    capacity: (x * NRk) / c.gammaM1, chiY, chiZ, lambdaY, lambdaZ, head, area,
+    chiYA: eff ? chi(lambdaYA, ALPHA[curves.y]) : chiY, chiZA: eff ? chi(lambdaZA, ALPHA[curves.z]) : chiZ, lambdaYA, lambdaZA,
+  };
 }

@@ -91,7 +91,7 @@ export function ltbPlan(g: DesignGeometry, c: EnContext, bend: EnBending, Lcr: n
         + (method === '6.3.2.3' ? 'χLT = 1/(ΦLT + √(ΦLT² − 0.75λ̄LT²)) ≤ 1, ≤ 1/λ̄LT² (6.57), ΦLT = 0.5[1 + αLT(λ̄LT − 0.4) + 0.75λ̄LT²], f = 1' : 'χLT = 1/(ΦLT + √(ΦLT² − λ̄LT²)) ≤ 1 (6.56), ΦLT = 0.5[1 + αLT(λ̄LT − 0.2) + λ̄LT²]')
         + '; Mcr = C1·π²EIz/L²·√(Iw/Iz + L²GIt/(π²EIz)), k = kw = 1, load at the shear centre',
       inputs: [
-        inp('Wy', `section modulus (${bend.cls <= 2 ? 'Wpl' : 'Wel'})`, bend.W, 'modulus'), inp('fy', 'yield strength', c.fy, 'stress'), inp('γM1', 'partial factor', c.gammaM1, 'ratio'),
+        inp('Wy', `section modulus (${bend.cls <= 2 ? 'Wpl' : bend.cls === 3 ? 'Wel' : 'Weff'})`, bend.W, 'modulus'), inp('fy', 'yield strength', c.fy, 'stress'), inp('γM1', 'partial factor', c.gammaM1, 'ratio'),
         inp('L', 'unbraced length', Lcr, 'length'), inp('Iz', 'second moment, minor', g.Imin, 'inertia'), inp('Iw', 'warping constant', Iw, 'warping'), inp('It', 'torsion constant', g.J, 'inertia'),
         inp('curve', `LTB curve (${method === '6.3.2.3' ? 'Table 6.5' : 'Table 6.4'})`, curve, 'text'), inp('αLT', 'imperfection factor (Table 6.3)', ALPHA[curve], 'ratio'),
       ],

@@ -4,17 +4,23 @@
  * 6.2.9 are evaluated at every station; 6.3.2 per unbraced segment (segments of length Lb
  * from the start node, each with Lcr = Lb) with C1 from the segment's moment diagram, or
  * the member's given cb used as C1; 6.3.3 with the member's largest forces.
- * Cross-section class for 6.2.9 at stations in compression and for 6.3.3: the worst of the
- * compression and bending classes (conservative); stations in tension use the bending class.
+ * Cross-section class for 6.2.9, station by station: I/H and RHS from the actual stress
+ * distribution of the web (Table 5.2 with α and ψ from N and My, stress-class.ts) and the
+ * flanges in compression; other shapes the worst of the compression and bending classes
+ * in compression (conservative), the bending class in tension. 6.3.3 uses the class for
+ * the largest compression together with the largest moments of the loading (class 1–2
+ * plastic, 3 elastic, 4 effective properties).
  */
 import type { StationForces } from '../../engine/types.js';
 import type { DesignGeometry } from '../geometry.js';
-import { finish, interactionRecord, notChecked, notCheckedHead, type RecordHead } from '../record.js';
+import { finish, inp, interactionRecord, notChecked, notCheckedHead, type RecordHead } from '../record.js';
 import type { CheckRecord } from '../types.js';
 import { absMax, negligibleTorsion, segmentCount, type MemberPlan, type MemberSetup, type Slot } from '../plan.js';
 import { cbF11, isLinearSegment, segmentMoments, SEG_M0, SEG_M1, SEG_MA, SEG_MB, SEG_MC, SEG_MMAX, SEG_MS, SEG_SIZE, SEG_XMAX } from '../moment-diagram.js';
 import type { EnContext, Resistance } from './context.js';
-import { enClass } from './classification.js';
+import { enClass, type EnClass } from './classification.js';
+import { effectiveScope, effectiveSection } from './effective.js';
+import { lastWeb, stationClass, stressClassPlan } from './stress-class.js';
 import { tensionGross, tensionNet } from './tension.js';
 import { compressionResistance } from './compression.js';
 import { flexuralBuckling } from './buckling.js';
@@ -58,17 +64,22 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
   const bMin = bendingResistance(g, cx, 'minor');
   const vMaj = shearResistance(g, cx, 'major');
   const vMin = shearResistance(g, cx, 'minor');
-  // 6.2.9: stations in tension (or without axial force) use the bending class, stations in
-  // compression the worse of the compression and bending classes (conservative)
-  const clsBend = g.hasDims ? Math.max(enClass(g, cx.fy, 'major'), g.shape === 'tee' ? 1 : enClass(g, cx.fy, 'minor')) : 4;
-  const clsComb = g.hasDims ? Math.max(clsBend, enClass(g, cx.fy, 'compression')) : 4;
-  const combScope = !g.hasDims || g.shape === 'angle' || g.shape === 'tee' || clsBend === 4 || Number.isNaN(bMaj.Mc) || Number.isNaN(bMin.Mc);
-  const compScope = combScope || clsComb === 4;
-  const Wy = clsComb <= 2 ? g.Zmaj : g.Smaj;
-  const Wz = clsComb <= 2 ? g.Zmin : g.Smin;
-  const NRd = (g.A * cx.fy) / cx.gammaM0;
-  const abT = axialBendingPlan(g, clsBend, NRd, ((clsBend <= 2 ? g.Zmaj : g.Smaj) * cx.fy) / cx.gammaM0, ((clsBend <= 2 ? g.Zmin : g.Smin) * cx.fy) / cx.gammaM0);
-  const abC = axialBendingPlan(g, clsComb, NRd, (Wy * cx.fy) / cx.gammaM0, (Wz * cx.fy) / cx.gammaM0);
+  // 6.2.9: class per station (see above); resistances for each class
+  const clsBend = g.hasDims ? Math.max(enClass(g, cx.fy, 'major'), g.shape === 'tee' ? 1 : enClass(g, cx.fy, 'minor')) as EnClass : 4;
+  const clsComb = g.hasDims ? Math.max(clsBend, enClass(g, cx.fy, 'compression')) as EnClass : 4;
+  const combScope = !g.hasDims || g.shape === 'angle' || g.shape === 'tee' || Number.isNaN(bMaj.Mc) || Number.isNaN(bMin.Mc);
+  const eff = g.hasDims ? effectiveSection(g, cx.fy) : null;
+  const scp = stressClassPlan(g, cx.fy);
+  const mzNoise = 1e-6 * cx.fy * g.Smin;
+  const clsAt = (Ni: number, My: number, Mz: number): EnClass => scp.applies ? stationClass(scp, -Ni, My, Mz > mzNoise) : Ni < 0 ? clsComb : clsBend;
+  const fyM0 = cx.fy / cx.gammaM0;
+  const NRd = g.A * fyM0;
+  const ab12 = axialBendingPlan(g, 1, NRd, g.Zmaj * fyM0, g.Zmin * fyM0);
+  const ab3 = axialBendingPlan(g, 3, NRd, g.Smaj * fyM0, g.Smin * fyM0);
+  const ab4C = eff ? axialBendingPlan(g, 4, eff.Aeff * fyM0, eff.major.W * fyM0, eff.minor.W * fyM0) : null;
+  const ab4T = eff ? axialBendingPlan(g, 4, NRd, eff.major.W * fyM0, eff.minor.W * fyM0) : null;
+  const abFor = (cl: EnClass, Ni: number) => cl <= 2 ? ab12 : cl === 3 ? ab3 : Ni < 0 ? ab4C : ab4T;
+  const noEff = effectiveScope(g) ?? '';
   const ltb = ltbPlan(g, cx, bMaj, m.Lb, m.cantilever);
   if (frame) {
     slots.push({ family: 'bending_major', key: '6.2.5 major' }, { family: 'bending_minor', key: '6.2.5 minor' },
@@ -86,13 +97,26 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
   const c1Source = m.cb !== undefined ? 'given cb used as C1' : 'from the moment diagram';
   const ltbNaN = ltb.applies && Number.isNaN(ltb.Mcr1);
   const ii: InteractionInput = {
-    NEd: 0, MyEd: 0, MzEd: 0, NRk: g.A * cx.fy, MyRk: Wy * cx.fy, MzRk: Wz * cx.fy, chiY: fb.chiY, chiZ: fb.chiZ, chiLT: 1,
-    lambdaY: fb.lambdaY, lambdaZ: fb.lambdaZ, Cmy: 1, Cmz: 1, CmLT: 1, gammaM1: cx.gammaM1, plastic: clsComb <= 2,
+    NEd: 0, MyEd: 0, MzEd: 0, NRk: g.A * cx.fy, MyRk: g.Zmaj * cx.fy, MzRk: g.Zmin * cx.fy, chiY: fb.chiYA, chiZ: fb.chiZA, chiLT: 1,
+    lambdaY: fb.lambdaYA, lambdaZ: fb.lambdaZA, Cmy: 1, Cmz: 1, CmLT: 1, gammaM1: cx.gammaM1, plastic: true,
     iSection: g.shape === 'i', susceptible: g.shape === 'i' || g.shape === 'channel',
   };
   const fac: InteractionFactors = { kyy: 0, kyz: 0, kzy: 0, kzz: 0, r61: 0, r62: 0 };
   const chiBuf = new Float64Array(1);
-  const r633NaN = compScope || Number.isNaN(fb.capacity) || ltbNaN;
+  const r633NaN = combScope || Number.isNaN(fb.capacity) || ltbNaN;
+  let cls633: EnClass = 1;
+  /** 6.3.3 resistances for the class of the loading; false when class 4 has no effective section */
+  function set633(cl: EnClass): boolean {
+    cls633 = cl;
+    if (cl <= 2) { ii.NRk = g.A * cx.fy; ii.MyRk = g.Zmaj * cx.fy; ii.MzRk = g.Zmin * cx.fy; ii.plastic = true; }
+    else if (cl === 3) { ii.NRk = g.A * cx.fy; ii.MyRk = g.Smaj * cx.fy; ii.MzRk = g.Smin * cx.fy; ii.plastic = false; }
+    else if (eff) { ii.NRk = eff.Aeff * cx.fy; ii.MyRk = eff.major.W * cx.fy; ii.MzRk = eff.minor.W * cx.fy; ii.plastic = false; }
+    else return false;
+    const e4 = cl === 4;
+    ii.chiY = e4 ? fb.chiY : fb.chiYA; ii.chiZ = e4 ? fb.chiZ : fb.chiZA;
+    ii.lambdaY = e4 ? fb.lambdaY : fb.lambdaYA; ii.lambdaZ = e4 ? fb.lambdaZ : fb.lambdaZA;
+    return true;
+  }
 
   function evaluate(sf: StationForces, ratio: Float64Array, xo: Float64Array): void {
     const xs = sf.x;
@@ -132,10 +156,14 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
         if (Ni !== 0 || My > 0 || Mz > 0) any629 = true;
         // outside scope: not checked when bending acts (axial force alone is 6.2.3 / 6.2.4)
         if (combScope) { if (My > 0 || Mz > 0) nan629 = true; }
-        else if (Ni < 0 && compScope) nan629 = true;
         else {
-          const r = axialBendingRatio(Ni < 0 ? abC : abT, Ni < 0 ? -Ni : Ni, My, Mz);
-          if (r > r629) { r629 = r; i629 = i; }
+          const cl = clsAt(Ni, My, Mz);
+          const ab = abFor(cl, Ni);
+          if (!ab) { if (Ni !== 0 || My > 0 || Mz > 0) nan629 = true; }
+          else {
+            const r = axialBendingRatio(ab, Ni < 0 ? -Ni : Ni, My, Mz);
+            if (r > r629) { r629 = r; i629 = i; }
+          }
         }
       }
     }
@@ -173,7 +201,7 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
     absMax(sf.M_major, xs, d, D_MY);
     absMax(sf.M_minor, xs, d, D_MZ);
     if (ncm === 0) { ratio[i633] = -1; xo[i633] = 0; }
-    else if (r633NaN || (Number.isNaN(bMaj.Mc) && d[D_MY] > 0)) { ratio[i633] = NaN; xo[i633] = xc; }
+    else if (r633NaN || nan629 || (Number.isNaN(bMaj.Mc) && d[D_MY] > 0) || !set633(clsAt(-ncm, d[D_MY], d[D_MZ]))) { ratio[i633] = NaN; xo[i633] = xc; }
     else {
       if (!wholeInSeg) segmentMoments(xs, sf.M_major, 0, m.length, seg);
       ii.Cmy = cmB3(seg[SEG_M0], seg[SEG_M1], seg[SEG_MS], isLinearSegment(seg));
@@ -233,11 +261,19 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
     if (!want || want[iFrame + 3]) out[iFrame + 3] = rec(id, combination, vMin.head, vMin.capacity, maxAbs(sf.V_minor), xo[iFrame + 3]);
     if (!want || want[iFrame + 4]) {
       if (Number.isNaN(ratio[iFrame + 4])) {
-        out[iFrame + 4] = notChecked(id, 'combined', code, '6.2.9', 'bending and axial force, cross-section', clsComb === 4 || clsBend === 4 ? 'class 4 cross-section: not implemented' : `${g.shape} section: a component resistance is not checked`, combination);
+        out[iFrame + 4] = notChecked(id, 'combined', code, '6.2.9', 'bending and axial force, cross-section', !combScope && noEff ? `${noEff} (class 4 under this loading)` : `${g.shape} section: a component resistance is not checked`, combination);
       } else {
         const i = d[D_I629];
         const Ni = sf.N[i];
-        out[iFrame + 4] = interactionRecord(axialBendingHead(Ni < 0 ? abC : abT, Math.abs(Ni), Math.abs(sf.M_major[i]), Math.abs(sf.M_minor[i])), id, combination, ratio[iFrame + 4], xs[i]);
+        const My = Math.abs(sf.M_major[i]), Mz = Math.abs(sf.M_minor[i]);
+        const cl = clsAt(Ni, My, Mz);
+        const h = axialBendingHead(abFor(cl, Ni)!, Math.abs(Ni), My, Mz);
+        h.inputs = [...h.inputs, inp('class', 'cross-section class at this station (Table 5.2)', cl, 'ratio')];
+        if (scp.applies) {
+          h.inputs.push(inp('α', 'compressed fraction of the web, plastic (Table 5.2)', lastWeb.alpha, 'ratio'),
+            inp('ψ', Number.isNaN(lastWeb.psi) ? 'web wholly in tension' : 'web edge stress ratio σ2/σ1, elastic (Table 5.2)', Number.isNaN(lastWeb.psi) ? 'n/a' : lastWeb.psi, Number.isNaN(lastWeb.psi) ? 'text' : 'ratio'));
+        }
+        out[iFrame + 4] = interactionRecord(h, id, combination, ratio[iFrame + 4], xs[i]);
       }
     }
     if (ltb.applies && (!want || want[iLtb])) {
@@ -247,7 +283,12 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
     const r633 = ratio[i633];
     if ((!want || want[i633]) && r633 !== -1) {
       if (Number.isNaN(r633)) out[i633] = notChecked(id, 'combined', code, '6.3.3', 'member buckling, bending and axial compression', 'a component resistance (class, buckling or LTB) is not checked for this member', combination);
-      else out[i633] = interactionRecord(interactionHead(ii, annexB(ii)), id, combination, r633, xo[i633]);
+      else {
+        const h = interactionHead(ii, annexB(ii));
+        h.inputs.push(inp('class', 'class for the largest NEd with the largest moments (Table 5.2)', cls633, 'ratio'));
+        if (cls633 === 4) h.equation += '; class 4: NRk = Aeff·fy, My,Rk = Weff,y·fy, Mz,Rk = Weff,z·fy, ΔM = eN·NEd = 0 (doubly symmetric)';
+        out[i633] = interactionRecord(h, id, combination, r633, xo[i633]);
+      }
     }
     if ((!want || want[iTor]) && Number.isNaN(ratio[iTor])) out[iTor] = notChecked(id, 'torsion', code, '6.2.7', 'torsion', `torsion present (|T| up to ${(d[D_T] / 1e3).toPrecision(3)} kNm): 6.2.7 not implemented`, combination);
     return out;
