@@ -13,8 +13,20 @@
  */
 import { assembleModule, F64, FunctionBuilder, I32, V128 } from './wasm-emitter.js';
 
+/** The parts of the WebAssembly JavaScript interface used here (not in every lib setting). */
+interface WasmMemory {
+  readonly buffer: ArrayBuffer;
+}
+interface WasmApi {
+  validate(bytes: Uint8Array): boolean;
+  Module: new (bytes: Uint8Array) => object;
+  Instance: new (module: object, imports: object) => { exports: Record<string, unknown> };
+  Memory: new (descriptor: { initial: number }) => WasmMemory;
+}
+const wasm = (globalThis as { WebAssembly?: WasmApi }).WebAssembly;
+
 export interface SimdKernels {
-  memory: WebAssembly.Memory;
+  memory: WasmMemory;
   update(ob: number, w: number, rLo: number, rHi: number, cLo: number, cHi: number, kLo: number, kHi: number, tRowB: number, tColB: number): void;
   trsm(os: number, nc: number, nr: number, j0: number, j1: number): void;
 }
@@ -179,32 +191,40 @@ function buildTrsm(): FunctionBuilder {
   return f;
 }
 
-let compiled: WebAssembly.Module | null | undefined;
+let compiled: object | null | undefined;
 
-function module(): WebAssembly.Module | null {
+function module(): object | null {
   if (compiled !== undefined) return compiled;
-  compiled = null;
+  let mod: object | null = null;
   try {
-    if (typeof WebAssembly === 'object') {
+    if (wasm) {
       const bytes = assembleModule([buildUpdate(), buildTrsm()]);
-      if (WebAssembly.validate(bytes)) compiled = new WebAssembly.Module(bytes);
+      if (wasm.validate(bytes)) mod = new wasm.Module(bytes);
     }
   } catch {
-    compiled = null;
+    mod = null;
   }
-  return compiled;
+  compiled = mod;
+  return mod;
 }
 
 /** largest memory asked for (bytes); beyond it the TypeScript kernels are used */
 const MAX_BYTES = 2 ** 32 - 2 ** 16;
 
+let enabled = true;
+
+/** Switches the SIMD kernels off (or back on), e.g. to test the TypeScript kernels. */
+export function useSimdKernels(on: boolean): void {
+  enabled = on;
+}
+
 /** Kernels over a fresh memory of at least `bytes` bytes, or null when unavailable. */
 export function simdKernels(bytes: number): SimdKernels | null {
-  const mod = module();
-  if (mod === null || bytes > MAX_BYTES) return null;
+  const mod = enabled ? module() : null;
+  if (!enabled || !wasm || mod === null || bytes > MAX_BYTES) return null;
   try {
-    const memory = new WebAssembly.Memory({ initial: Math.max(1, Math.ceil(bytes / 65536)) });
-    const inst = new WebAssembly.Instance(mod, { env: { mem: memory } });
+    const memory = new wasm.Memory({ initial: Math.max(1, Math.ceil(bytes / 65536)) });
+    const inst = new wasm.Instance(mod, { env: { mem: memory } });
     const ex = inst.exports as unknown as Pick<SimdKernels, 'update' | 'trsm'>;
     return { memory, update: ex.update, trsm: ex.trsm };
   } catch {
