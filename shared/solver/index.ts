@@ -8,7 +8,8 @@ import { blockSolve } from './block-solve.js';
 import { compressGraph, expandOrdering, graphFromLower } from './graph.js';
 import { nestedDissectionOrder } from './nested-dissection.js';
 import { factorNumeric } from './numeric.js';
-import { analyse, factorFlops } from './symbolic.js';
+import { orderingFlops } from './ordering-cost.js';
+import { analyse } from './symbolic.js';
 import type { Factorisation, FactorOptions, SymmetricCsc } from './types.js';
 
 export * from './types.js';
@@ -39,10 +40,12 @@ function chooseOrdering(K: SymmetricCsc, ordering: Ordering): { order: Int32Arra
   if (ordering === 'amd' || (ordering === 'auto' && n < NESTED_DISSECTION_FROM)) {
     return { order: expandOrdering(c, amdOrder(c.graph, c.weight)), used: 'amd' };
   }
-  const nd = expandOrdering(c, nestedDissectionOrder(c.graph, c.weight));
-  if (ordering === 'nested-dissection') return { order: nd, used: 'nested-dissection' };
-  const amd = expandOrdering(c, amdOrder(c.graph, c.weight));
-  return factorFlops(K, nd) < factorFlops(K, amd) ? { order: nd, used: 'nested-dissection' } : { order: amd, used: 'amd' };
+  const nd = nestedDissectionOrder(c.graph, c.weight);
+  if (ordering === 'nested-dissection') return { order: expandOrdering(c, nd), used: 'nested-dissection' };
+  const amd = amdOrder(c.graph, c.weight);
+  return orderingFlops(c.graph, c.weight, nd) < orderingFlops(c.graph, c.weight, amd)
+    ? { order: expandOrdering(c, nd), used: 'nested-dissection' }
+    : { order: expandOrdering(c, amd), used: 'amd' };
 }
 
 /** Checks the shape of a lower-triangle CSC matrix; throws an Error naming the fault. */
