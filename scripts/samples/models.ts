@@ -2,6 +2,8 @@
  * The demo models, as tables (header row first). All scenarios and numbers are invented
  * demo data of our own; they are not taken from any program's examples.
  */
+import { roadBridgeTruss } from './road-bridge.js';
+
 export type Value = string | number | null;
 export type Table = Value[][];
 export interface SampleModel {
@@ -307,4 +309,4 @@ export function plantStructure(): SampleModel {
   };
 }
 
-export const SAMPLES = [footbridgeTruss, portalFrameBuilding, plantStructure];
+export const SAMPLES = [footbridgeTruss, portalFrameBuilding, plantStructure, roadBridgeTruss];

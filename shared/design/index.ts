@@ -8,6 +8,7 @@
  * combinations at all, every load case (factor 1.0). Service loadings: combinations with
  * limit state `service`.
  */
+import { stampVehicle } from '../moving/governing.js';
 import type { DesignCode, Material, Member, Model, Section } from '../model/types.js';
 import type { AnalysisResult, StationForces } from '../engine/types.js';
 import { catalogueSection } from '../sections/index.js';
@@ -216,12 +217,13 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
         const li = pick[s];
         if (li < 0) continue;
         for (let t = 0; t < n; t++) want[t] = pick[t] === li ? 1 : 0;
-        const recs = plan.records(analysis.memberForces(mi, li), ids[li], want, p.member.id);
+        const sfl = analysis.memberForces(mi, li);
+        const recs = plan.records(sfl, ids[li], want, p.member.id);
         for (let t = 0; t < n; t++) {
           if (pick[t] !== li) continue;
           pick[t] = -1;
           const r = recs[t];
-          if (r) memberRecords.push(r);
+          if (r) memberRecords.push(analysis.moving ? stampVehicle(analysis, mi, li, sfl, r) : r);
         }
       }
       // slenderness (warning only) and bracing warning
@@ -248,7 +250,10 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
           }
           if (delta > worst) { worst = delta; worstL = li; worstX = x; }
         }
-        if (worstL >= 0) memberRecords.push(deflectionRecord(p.member.id, ctx.code, ids[worstL], worst, worstX, p.setup.length, p.deflectionLimit, p.setup.cantilever));
+        if (worstL >= 0) {
+          const rec = deflectionRecord(p.member.id, ctx.code, ids[worstL], worst, worstX, p.setup.length, p.deflectionLimit, p.setup.cantilever);
+          memberRecords.push(analysis.moving ? stampVehicle(analysis, mi, worstL, analysis.memberForces(mi, worstL), rec) : rec);
+        }
       }
     }
     const u = utilisation(p, memberRecords, warnings, sectionMaterial);
@@ -301,6 +306,7 @@ function utilisation(p: Prepared, recs: CheckRecord[], warnings: string[], sm: {
     families,
     familyStatus,
     warnings: status === 'not checked' && firstNc?.note ? [...warnings, `not checked: ${firstNc.note}`] : warnings,
+    ...(shown?.vehiclePosition !== undefined ? { vehiclePosition: shown.vehiclePosition } : {}),
   };
 }
 
@@ -326,7 +332,8 @@ export function checkMember(model: Model, analysis: AnalysisResult, memberIndex:
     return [deflectionRecord(member.id, ctx.code, loading.id, d[0], d[1], p.setup.length, p.deflectionLimit, false)];
   }
   const sf = analysis.memberForces(memberIndex, loadingIndex);
-  const out = p.plan.records(sf, loading.id, undefined, member.id).filter((r): r is CheckRecord => r !== null);
+  const out = p.plan.records(sf, loading.id, undefined, member.id).filter((r): r is CheckRecord => r !== null)
+    .map((r) => (analysis.moving ? stampVehicle(analysis, memberIndex, loadingIndex, sf, r) : r));
   const sl = slendernessOf(p);
   if (sl > 0) out.push(slendernessRecord(member.id, ctx.code, sl, hasCompression(sf), loading.id));
   return out;
