@@ -3,12 +3,12 @@
  * and a long truss; the solver alone when bench/solver.ts is present.
  * Targets (issue 3): 10k-member frame with 20 cases, assembly + factorisation + solve ≤ 2 s;
  * 50k members ≤ 40 s; a 10k-member truss ≤ 0.1 s.
- * Optional arguments pick models: `npm run bench -- frame1k frame10k frame50k truss10k solver`.
+ * Optional arguments pick models: `npm run bench -- frame1k frame10k frame50k truss10k solver api`.
  */
 import type { RawTable } from '../shared/reader/index.js';
 import { benchEngine, buildFrameModel, buildTrussModel, type EngineBenchRow, printEngineRow } from './engine.js';
 
-const ALL = ['frame1k', 'frame10k', 'frame50k', 'truss10k', 'solver'];
+const ALL = ['frame1k', 'frame10k', 'frame50k', 'truss10k', 'solver', 'api'];
 const wanted = process.argv.slice(2).filter((a) => ALL.includes(a));
 const pick = wanted.length ? wanted : ALL;
 
@@ -47,6 +47,14 @@ async function main(): Promise<void> {
     } catch (e) {
       console.log(`solver bench not run: ${(e as Error).message}`);
     }
+  }
+  if (pick.includes('api')) {
+    // bench/api.ts: upload, commit, run, edit-one-section rerun through the HTTP API (10k frame)
+    const { benchApi } = await import('./api.js');
+    console.log('\nHTTP API on the 10×10×30 frame (ms):');
+    const f = await benchApi();
+    console.log(`  upload→preview ${f.uploadToPreviewMs.toFixed(0)}, commit ${f.commitMs.toFixed(0)}, full run ${f.fullRunMs.toFixed(0)}, edit ${f.editMs.toFixed(0)}, rerun ${f.rerunMs.toFixed(0)}`);
+    console.log(`  bare analysis + checks ${f.bareAnalysisAndChecksMs?.toFixed(0) ?? '–'}; (edit + rerun) / bare = ${f.rerunOverBare?.toFixed(2) ?? '–'} (target ≤ 1.2)`);
   }
 }
 
