@@ -2,7 +2,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeRunPool } from '../../../server/runs/worker-pool.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
-import { importDemo, newProject } from '../models/fixture.js';
+import { CSV, importDemo, newProject, upload } from '../models/fixture.js';
 import { settle } from './poll.js';
 
 let t: TestApp;
@@ -103,6 +103,20 @@ describe('runs', () => {
     const row = cmp.body.rows.find((r: { member: string }) => r.member === 'M1');
     expect(row).toMatchObject({ sectionA: 'B300', sectionB: 'B400' });
     expect(row.delta).toBeCloseTo(row.ratioB - row.ratioA, 12);
+  });
+
+  it('fails an unstable model with a message naming a node, and refuses its results', async () => {
+    const projectId = await newProject(t, 'Unstable');
+    const preview = await upload(t, projectId, { ...CSV, 'supports.csv': 'node,ux,uy\nN1,1,1\n' });
+    expect(preview.body.canCommit).toBe(true);
+    const commit = await t.as('engineer').post(`/api/projects/${projectId}/imports/${preview.body.id}/commit`).send({});
+    const start = await t.as('engineer').post(`/api/models/${commit.body.model.id}/runs`).send({});
+    const run = await settle(t, start.body.id);
+    expect(run.status).toBe('failed');
+    expect(String(run.message)).toMatch(/N[123]/);
+    const members = await t.as('engineer').get(`/api/runs/${start.body.id}/members`);
+    expect(members.status).toBe(409);
+    expect(members.body.error.message).toMatch(/failed/);
   });
 
   it('refuses results of a run that is not done and runs of a missing version', async () => {
