@@ -1,13 +1,14 @@
 /**
  * AISC 360-22 Chapter E compressive strength for members without slender elements:
  * E3 flexural buckling; E4 torsional buckling of doubly symmetric I-shapes and
- * flexural-torsional buckling of singly symmetric tees and channels. Slender elements (E7),
- * unsymmetric shapes and single angles (E5) are `not checked`.
+ * flexural-torsional buckling of singly symmetric tees and channels; members with slender
+ * elements by E7 (Pn = Fcr·Ae, effective-area.ts) for I-shapes, channels, tees,
+ * rectangular and round HSS. Unsymmetric shapes and single angles (E5) are `not checked`.
  */
 import { inp, notCheckedHead } from '../record.js';
 import type { DesignGeometry } from '../geometry.js';
 import { AISC_FACTORS, factorOn, factorWords } from './factors.js';
-import { compressionClassOf, compressionElements } from './classification.js';
+import { e7Scope, e7Words, effectiveAreaE7, hasSlenderElement } from './effective-area.js';
 import type { AiscContext, Capacity } from './context.js';
 
 /** Critical stress from the elastic buckling stress, Eqs. E3-2 (Fy/Fe ≤ 2.25, i.e. Lc/r ≤ 4.71√(E/Fy)) and E3-3. */
@@ -19,12 +20,7 @@ export function fcrE3(Fy: number, Fe: number): number {
 export function compressionScope(g: DesignGeometry, c: AiscContext): string | null {
   if (!g.hasDims) return 'custom section: element slenderness unknown, Chapter E not evaluated';
   if (g.shape === 'angle') return 'single angle in compression: E5 not implemented';
-  const slender = compressionElements(g, c.E, c.Fy).filter((e) => compressionClassOf(e) === 'slender');
-  if (slender.length) {
-    const e = slender[0];
-    return `slender-element section in compression (${e.element} ${e.symbol} = ${e.ratio.toFixed(1)} > λr = ${e.lambdaR.toFixed(1)}, Table ${e.tableCase}): E7 not implemented`;
-  }
-  return null;
+  return e7Scope(g, c.E, c.Fy);
 }
 
 /** E3 flexural buckling about both principal axes; Lc = K·L for each axis (m). */
@@ -36,25 +32,29 @@ export function compressionE3(g: DesignGeometry, c: AiscContext, LcMajor: number
   const s = Math.max(sMaj, sMin);
   const Fe = (Math.PI * Math.PI * c.E) / (s * s);
   const Fcr = fcrE3(c.Fy, Fe);
-  const Pn = Fcr * g.A;
+  const slender = hasSlenderElement(g, c.E, c.Fy);
+  const Ae = slender ? effectiveAreaE7(g, c.E, c.Fy, Fcr) : g.A;
+  const Pn = Fcr * Ae;
   const f = AISC_FACTORS.compression;
   const limit = 4.71 * Math.sqrt(c.E / c.Fy);
   const inelastic = c.Fy / Fe <= 2.25;
   return {
     capacity: factorOn(c.method, f) * Pn,
     head: {
-      family: 'compression', code: c.code, clause: 'E3', title: 'flexural buckling',
-      equation: `${factorWords(c.method, f, c.method === 'lrfd' ? 'φc·Pn' : 'Pn/Ωc', 'Fcr·Ag')}; Fe = π²E/(Lc/r)²; `
-        + (inelastic ? 'Lc/r ≤ 4.71√(E/Fy): Fcr = 0.658^(Fy/Fe)·Fy (Eq. E3-2)' : 'Lc/r > 4.71√(E/Fy): Fcr = 0.877·Fe (Eq. E3-3)'),
+      family: 'compression', code: c.code, clause: slender ? 'E7' : 'E3', title: slender ? 'flexural buckling, slender elements' : 'flexural buckling',
+      equation: `${factorWords(c.method, f, c.method === 'lrfd' ? 'φc·Pn' : 'Pn/Ωc', slender ? 'Fcr·Ae (E7-1)' : 'Fcr·Ag')}; Fe = π²E/(Lc/r)²; `
+        + (inelastic ? 'Lc/r ≤ 4.71√(E/Fy): Fcr = 0.658^(Fy/Fe)·Fy (Eq. E3-2)' : 'Lc/r > 4.71√(E/Fy): Fcr = 0.877·Fe (Eq. E3-3)')
+        + (slender ? `; ${e7Words(g)}` : ''),
       inputs: [
         inp('Fy', 'yield stress', c.Fy, 'stress'), inp('E', 'elastic modulus', c.E, 'stress'), inp('Ag', 'gross area', g.A, 'area'),
         inp('Lc,major', 'effective length, major axis', LcMajor, 'length'), inp('r_major', 'radius of gyration, major axis', g.rmaj, 'section_dim'),
         inp('Lc,minor', 'effective length, minor axis', LcMinor, 'length'), inp('r_minor', 'radius of gyration, minor axis', g.rmin, 'section_dim'),
         inp('Lc/r', 'governing slenderness', s, 'ratio'), inp('4.71√(E/Fy)', 'inelastic/elastic limit', limit, 'ratio'),
-        inp('Fe', 'elastic buckling stress', Fe, 'stress'), inp('Fcr', 'critical stress', Fcr, 'stress'), inp('Pn', 'nominal compressive strength', Pn, 'force'),
+        inp('Fe', 'elastic buckling stress', Fe, 'stress'), inp('Fcr', 'critical stress', Fcr, 'stress'),
+        ...(slender ? [inp('Ae', 'effective area (E7)', Ae, 'area')] : []), inp('Pn', 'nominal compressive strength', Pn, 'force'),
       ],
       quantity: 'force',
-      note: 'nonslender elements (Table B4.1a)',
+      note: slender ? 'slender elements (Table B4.1a): effective area per E7' : 'nonslender elements (Table B4.1a)',
     },
   };
 }
@@ -75,19 +75,21 @@ export function compressionE4(g: DesignGeometry, c: AiscContext, Lcz: number, Lc
   if (g.shape === 'tee' || g.shape === 'channel') return compressionE4Singly(g, c, Lcz, LcMajor, LcMinor);
   const Fe = ((Math.PI * Math.PI * c.E * g.Cw) / (Lcz * Lcz) + c.G * g.J) / (g.Imaj + g.Imin);
   const Fcr = fcrE3(c.Fy, Fe);
-  const Pn = Fcr * g.A;
+  const slender = hasSlenderElement(g, c.E, c.Fy);
+  const Ae = slender ? effectiveAreaE7(g, c.E, c.Fy, Fcr) : g.A;
+  const Pn = Fcr * Ae;
   const f = AISC_FACTORS.compression;
   return {
     capacity: factorOn(c.method, f) * Pn,
     head: {
       family: 'compression', code: c.code, clause: 'E4', title: 'torsional buckling',
-      equation: `${factorWords(c.method, f, c.method === 'lrfd' ? 'φc·Pn' : 'Pn/Ωc', 'Fcr·Ag')}; Fe = (π²E·Cw/Lcz² + G·J)/(Ix + Iy) (Eq. E4-2); Fcr by Eq. E3-2/E3-3`,
+      equation: `${factorWords(c.method, f, c.method === 'lrfd' ? 'φc·Pn' : 'Pn/Ωc', slender ? 'Fcr·Ae (E7-1)' : 'Fcr·Ag')}; Fe = (π²E·Cw/Lcz² + G·J)/(Ix + Iy) (Eq. E4-2); Fcr by Eq. E3-2/E3-3${slender ? `; ${e7Words(g)}` : ''}`,
       inputs: [
         inp('Fy', 'yield stress', c.Fy, 'stress'), inp('E', 'elastic modulus', c.E, 'stress'), inp('G', 'shear modulus', c.G, 'stress'),
         inp('Cw', 'warping constant', g.Cw, 'warping'), inp('J', 'torsion constant', g.J, 'inertia'),
         inp('Ix', 'second moment, major', g.Imaj, 'inertia'), inp('Iy', 'second moment, minor', g.Imin, 'inertia'),
         inp('Lcz', 'torsional effective length', Lcz, 'length'), inp('Fe', 'elastic buckling stress', Fe, 'stress'),
-        inp('Fcr', 'critical stress', Fcr, 'stress'), inp('Pn', 'nominal compressive strength', Pn, 'force'),
+        inp('Fcr', 'critical stress', Fcr, 'stress'), ...(slender ? [inp('Ae', 'effective area (E7)', Ae, 'area')] : []), inp('Pn', 'nominal compressive strength', Pn, 'force'),
       ],
       quantity: 'force',
       note: 'Lcz taken equal to the minor-axis effective length',
@@ -132,19 +134,22 @@ export function compressionE4Singly(g: DesignGeometry, c: AiscContext, Lcz: numb
   const sum = Fes + Fez;
   const Fe = (sum / (2 * H)) * (1 - Math.sqrt(1 - (4 * Fes * Fez * H) / (sum * sum)));
   const Fcr = fcrE3(c.Fy, Fe);
-  const Pn = Fcr * g.A;
+  const slender = hasSlenderElement(g, c.E, c.Fy);
+  const Ae = slender ? effectiveAreaE7(g, c.E, c.Fy, Fcr) : g.A;
+  const Pn = Fcr * Ae;
   const f = AISC_FACTORS.compression;
   return {
     capacity: factorOn(c.method, f) * Pn,
     head: {
       family: 'compression', code: c.code, clause: 'E4', title: 'flexural-torsional buckling',
-      equation: `${factorWords(c.method, f, c.method === 'lrfd' ? 'φc·Pn' : 'Pn/Ωc', 'Fcr·Ag')}; Fe = (Fes + Fez)/(2H)·[1 − √(1 − 4FesFezH/(Fes + Fez)²)] (Eq. E4-3); Fcr by Eq. E3-2/E3-3`,
+      equation: `${factorWords(c.method, f, c.method === 'lrfd' ? 'φc·Pn' : 'Pn/Ωc', slender ? 'Fcr·Ae (E7-1)' : 'Fcr·Ag')}; Fe = (Fes + Fez)/(2H)·[1 − √(1 − 4FesFezH/(Fes + Fez)²)] (Eq. E4-3); Fcr by Eq. E3-2/E3-3${slender ? `; ${e7Words(g)}` : ''}`,
       inputs: [
         inp('Fy', 'yield stress', c.Fy, 'stress'), inp('Fes', `flexural buckling stress about the axis of symmetry (${tee ? 'minor' : 'major'})`, Fes, 'stress'),
         inp('Fez', 'torsional buckling stress (Eq. E4-9)', Fez, 'stress'), inp('ro', 'polar radius of gyration about the shear centre (Eq. E4-11)', Math.sqrt(ro2), 'section_dim'),
         inp('y0', 'centroid to shear centre', y0, 'section_dim'), inp('H', 'flexural constant (Eq. E4-10)', H, 'ratio'),
         inp('Cw', 'warping constant', g.Cw, 'warping'), inp('J', 'torsion constant', g.J, 'inertia'), inp('Lcz', 'torsional effective length', Lcz, 'length'),
-        inp('Fe', 'elastic buckling stress', Fe, 'stress'), inp('Fcr', 'critical stress', Fcr, 'stress'), inp('Pn', 'nominal compressive strength', Pn, 'force'),
+        inp('Fe', 'elastic buckling stress', Fe, 'stress'), inp('Fcr', 'critical stress', Fcr, 'stress'),
+        ...(slender ? [inp('Ae', 'effective area (E7)', Ae, 'area')] : []), inp('Pn', 'nominal compressive strength', Pn, 'force'),
       ],
       quantity: 'force',
       note: 'Lcz taken equal to the minor-axis effective length; shear centre from thin-walled dimensions without fillets',

@@ -20,6 +20,7 @@ import { h1 } from '../../../shared/design/aisc360/interaction.js';
 import { compressionElements, flexureElements, flexureClassOf } from '../../../shared/design/aisc360/classification.js';
 import { cbF11, segmentMoments, SEG_MA, SEG_MB, SEG_MC, SEG_MMAX, SEG_SIZE } from '../../../shared/design/moment-diagram.js';
 import { aiscPlan } from '../../../shared/design/aisc360/member.js';
+import { effectiveAreaE7 } from '../../../shared/design/aisc360/effective-area.js';
 import { close, FT, IN, KIP, KIPFT, KIPIN, KSI, section, stations, W14X90, W18X50 } from './helpers.js';
 
 const E = 29000 * KSI, G = 11200 * KSI, Fy = 50 * KSI, Fu = 65 * KSI;
@@ -106,11 +107,17 @@ describe('Table B4.1 classification', () => {
     expect(flexureClassOf(web)).toBe('compact');
     expect(close(fl.lambdaP, 9.15, 0.002)).toBe(true);
   });
-  it('W18x50 web h/tw = 45.2 (Manual Table 1-1, from memory) from d − 2kdes: slender in compression (> 1.49√(E/Fy) = 35.9, Table B4.1a case 5) so E3 is not checked (E7)', () => {
+  it('W18x50 web h/tw = 45.2 (Manual Table 1-1, from memory) from d − 2kdes: slender in compression (> 1.49√(E/Fy) = 35.9, Table B4.1a case 5), so compression goes by E7', () => {
     const g = designGeometry(W18X50());
     const [, web] = compressionElements(g, E, Fy);
     expect(close(web.ratio, 45.2, 0.005)).toBe(true);
-    expect(compressionE3(g, lrfd, 3, 3).head.note).toMatch(/E7 not implemented/);
+    expect(compressionE3(g, lrfd, 3, 3).head.clause).toBe('E7');
+  });
+  it('E7.1 W18x50, Lc = 3 m both axes: Lc/ry = 118.11/1.6516 = 71.51, Fe = 55.97 ksi, Fcr = 0.658^(50/55.97)·50 = 34.40 ksi (E3-2); web λ = 45.23 > λr√(Fy/Fcr) = 35.88·1.2056 = 43.26, Fel = (1.31·35.88/45.23)²·50 = 54.01 ksi (E7-5), √(Fel/Fcr) = 1.2530, be = 16.056(1 − 0.18·1.2530)·1.2530 = 15.581 in (E7-3); flanges 6.58 < λr: be = b; Ae = 14.7 − 0.475·0.355 = 14.531 in², φPn = 0.9·34.40·14.531 = 449.9 kips', () => {
+    const g = designGeometry(W18X50());
+    const c = compressionE3(g, lrfd, 3, 3);
+    expect(close(c.capacity / KIP, 449.9, 0.002)).toBe(true);
+    expect(close(Number(c.head.inputs.find((i) => i.symbol === 'Ae')!.value) / (IN * IN), 14.531, 0.001)).toBe(true);
   });
 });
 
@@ -290,11 +297,26 @@ describe('out of scope is never pass', () => {
     expect(Number.isNaN(c.capacity)).toBe(true);
     expect(c.head.note).toMatch(/E5/);
   });
-  it('slender web in compression (h/tw = 60 > 1.49√(E/Fy) = 35.9): E7 not implemented → not checked', () => {
+  it('slender web in compression (h/tw = 60 > 1.49√(E/Fy) = 35.9): E7 gives Ae < Ag, never more than the E3 strength with Ag', () => {
     const s = section('i', { d: 12.5, bf: 8, tf: 0.25, tw: 0.2 }, { A: 6.4, I_major: 170, I_minor: 21, J: 0.1, Cw: 700, S_major: 27, S_minor: 5.3, Z_major: 30, Z_minor: 8 }, IN);
     const c = compressionE3(designGeometry(s), lrfd, 2, 2);
+    expect(c.head.clause).toBe('E7');
+    const Fcr = Number(c.head.inputs.find((i) => i.symbol === 'Fcr')!.value);
+    expect(c.capacity).toBeLessThan(0.9 * Fcr * 6.4 * IN * IN);
+  });
+  it('E7.2 round HSS D = 20 in, t = 0.233 in, Fy = 50 ksi: D/t = 85.84 between 0.11E/Fy = 63.8 and 0.45E/Fy = 261; Ae = [0.038·29000/(50·85.84) + 2/3]·Ag = 0.92343·Ag (E7-7)', () => {
+    const s = section('chs', { D: 20, t: 0.233 }, { A: 14.47, I_major: 700, I_minor: 700, J: 1400, S_major: 70, S_minor: 70, Z_major: 91, Z_minor: 91 }, IN);
+    expect(close(effectiveAreaE7(designGeometry(s), E, Fy, 30 * KSI) / (IN * IN), 0.92343 * 14.47, 0.001)).toBe(true);
+  });
+  it('E7.2 round HSS with D/t ≥ 0.45E/Fy stays not checked', () => {
+    const s = section('chs', { D: 30, t: 0.1 }, { A: 9.4, I_major: 1000, I_minor: 1000, J: 2000, S_major: 70, S_minor: 70, Z_major: 91, Z_minor: 91 }, IN);
+    const c = compressionE3(designGeometry(s), lrfd, 2, 2);
     expect(Number.isNaN(c.capacity)).toBe(true);
-    expect(c.head.note).toMatch(/E7/);
+    expect(c.head.note).toMatch(/E7\.2/);
+  });
+  it('E7.1(b) rectangular HSS walls 12×12×0.174 in at Fcr = 40 ksi: b/t = (12 − 0.522)/0.174 = 65.97 > 33.72·√(50/40) = 37.70; Fel = (1.38·33.72/65.97)²·50 = 24.88 ksi, √(Fel/Fcr) = 0.7886, be = 11.478(1 − 0.2·0.7886)·0.7886 = 7.624 in; Ae = Ag − 4·3.854·0.174 = Ag − 2.682 in²', () => {
+    const s = section('rhs', { h: 12, b: 12, t: 0.174 }, { A: 8.23, I_major: 190, I_minor: 190, J: 300, S_major: 31.6, S_minor: 31.6, Z_major: 36, Z_minor: 36 }, IN);
+    expect(close(effectiveAreaE7(designGeometry(s), E, Fy, 40 * KSI) / (IN * IN), 8.23 - 2.682, 0.001)).toBe(true);
   });
   it('torsion present: H3 not checked', () => {
     const g = designGeometry(W18X50());
