@@ -25,7 +25,7 @@ export function storedNodeResults(
   const view = {
     nodeIds: model.nodes.map((x) => x.id),
     memberIds: model.members.map((m) => m.id),
-    loadings: chosen.map((l) => ({ id: loadings[l].id, kind: loadings[l].kind, limitState: loadings[l].limitState, terms: [] })),
+    loadings: chosen.map((l) => ({ id: loadings[l].id, kind: loadings[l].kind, limitState: loadings[l].limitState, terms: [], ...(loadings[l].envelope ? { envelope: loadings[l].envelope } : {}) })),
     displacements: (l: number) => displacements.subarray(chosen[l] * n, (chosen[l] + 1) * n),
     reactions: (l: number) => reactions.subarray(chosen[l] * n, (chosen[l] + 1) * n),
     supportedNodes: supported,

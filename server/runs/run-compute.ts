@@ -39,7 +39,7 @@ export function readRunModel(modelJson: string, designCode: DesignCode): Model {
 }
 
 export function loadingInfos(analysis: AnalysisResult): LoadingInfo[] {
-  return analysis.loadings.map((l) => ({ id: l.id, kind: l.kind, limitState: l.limitState }));
+  return analysis.loadings.map((l) => ({ id: l.id, kind: l.kind, limitState: l.limitState, ...(l.envelope ? { envelope: l.envelope } : {}) }));
 }
 
 /** Engine timing keys → our phase names. */

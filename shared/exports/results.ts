@@ -33,14 +33,24 @@ export function headerWithUnit(name: string, quantity: Quantity, system: UnitSys
 const NODE_DISP: [string, Quantity][] = [['ux', 'displacement'], ['uy', 'displacement'], ['uz', 'displacement'], ['rx', 'rotation'], ['ry', 'rotation'], ['rz', 'rotation']];
 const NODE_REACT: [string, Quantity][] = [['fx', 'force'], ['fy', 'force'], ['fz', 'force'], ['mx', 'moment'], ['my', 'moment'], ['mz', 'moment']];
 
+/**
+ * Moving loads: when some loading is an envelope (issue 7), an `envelope` column after
+ * `loading` holds `max` or `min` on its rows and stays blank on the others.
+ */
+function envelopeColumn(analysis: AnalysisResult): boolean {
+  return analysis.loadings.some((l) => l.envelope !== undefined);
+}
+
 function nodeTable(name: string, model: Model, analysis: AnalysisResult, cols: [string, Quantity][], values: (l: number) => Float64Array, nodes: number[]): ResultTable {
   const sys = model.settings.units;
-  const header = ['loading', 'node', ...cols.map(([c, q]) => headerWithUnit(c, q, sys))];
+  const env = envelopeColumn(analysis);
+  const header = ['loading', ...(env ? ['envelope'] : []), 'node', ...cols.map(([c, q]) => headerWithUnit(c, q, sys))];
   const rows: ResultCell[][] = [];
   analysis.loadings.forEach((loading, l) => {
     const v = values(l);
+    const lead: ResultCell[] = env ? [loading.id, loading.envelope ?? ''] : [loading.id];
     for (const i of nodes) {
-      rows.push([loading.id, analysis.nodeIds[i], ...cols.map(([, q], k) => fromSI(v[i * 6 + k], q, sys))]);
+      rows.push([...lead, analysis.nodeIds[i], ...cols.map(([, q], k) => fromSI(v[i * 6 + k], q, sys))]);
     }
   });
   return { name, header, rows };
@@ -65,13 +75,15 @@ const FORCE_COLS: [keyof Omit<import('../engine/types.js').StationForces, 'x'>, 
 /** Internal forces and local deflections at every station of every member, every loading. */
 export function memberForceTable(model: Model, analysis: AnalysisResult): ResultTable {
   const sys = model.settings.units;
-  const header = ['loading', 'member', headerWithUnit('x', 'length', sys), ...FORCE_COLS.map(([c, q]) => headerWithUnit(c, q, sys))];
+  const env = envelopeColumn(analysis);
+  const header = ['loading', ...(env ? ['envelope'] : []), 'member', headerWithUnit('x', 'length', sys), ...FORCE_COLS.map(([c, q]) => headerWithUnit(c, q, sys))];
   const rows: ResultCell[][] = [];
   analysis.loadings.forEach((loading, l) => {
+    const lead: ResultCell[] = env ? [loading.id, loading.envelope ?? ''] : [loading.id];
     analysis.memberIds.forEach((id, m) => {
       const f = analysis.memberForces(m, l);
       for (let s = 0; s < f.x.length; s++) {
-        rows.push([loading.id, id, fromSI(f.x[s], 'length', sys), ...FORCE_COLS.map(([c, q]) => fromSI(f[c][s], q, sys))]);
+        rows.push([...lead, id, fromSI(f.x[s], 'length', sys), ...FORCE_COLS.map(([c, q]) => fromSI(f[c][s], q, sys))]);
       }
     });
   });
@@ -87,10 +99,14 @@ function familiesIn(members: MemberUtilisation[]): CheckFamily[] {
 export function utilisationTable(model: Model, design: DesignResultLike): ResultTable {
   const sys = model.settings.units;
   const fams = familiesIn(design.members);
-  const header = ['member', 'group', 'section', 'material', headerWithUnit('length', 'length', sys), 'ratio', 'check', 'clause', 'combination', 'status', ...fams];
+  // moving loads: where the vehicle's leading axle stood when the governing check governed
+  const moving = design.members.some((m) => m.vehiclePosition !== undefined);
+  const header = ['member', 'group', 'section', 'material', headerWithUnit('length', 'length', sys), 'ratio', 'check', 'clause', 'combination', 'status', ...fams,
+    ...(moving ? [headerWithUnit('vehicle_position', 'length', sys)] : [])];
   const rows = design.members.map((m): ResultCell[] => [
     m.member, m.group, m.section, m.material, fromSI(m.length, 'length', sys), m.ratio, m.check, m.clause, m.combination, m.status,
     ...fams.map((f) => m.families[f] ?? null),
+    ...(moving ? [m.vehiclePosition === undefined ? null : fromSI(m.vehiclePosition, 'length', sys)] : []),
   ]);
   return { name: 'utilisation', header, rows };
 }
@@ -101,7 +117,9 @@ export function utilisationTable(model: Model, design: DesignResultLike): Result
  */
 export function checksTable(model: Model, design: DesignResultLike): ResultTable {
   const sys = model.settings.units;
-  const header = ['member', 'combination', 'check', 'clause', 'demand', 'capacity', 'ratio', 'status', 'note', 'unit'];
+  const moving = design.records.some((r) => r.envelope !== undefined);
+  const header = ['member', 'combination', 'check', 'clause', 'demand', 'capacity', 'ratio', 'status', 'note', 'unit',
+    ...(moving ? ['envelope', headerWithUnit('vehicle_position', 'length', sys)] : [])];
   const rows = design.records.map((r): ResultCell[] => {
     const unit = r.quantity === 'ratio' || r.quantity === 'text' ? '' : unitOf(r.quantity, sys);
     return [
@@ -109,6 +127,7 @@ export function checksTable(model: Model, design: DesignResultLike): ResultTable
       r.demand === null ? null : fromSI(r.demand, r.quantity, sys),
       r.capacity === null ? null : fromSI(r.capacity, r.quantity, sys),
       r.ratio, r.status, r.note ?? '', unit === '-' ? '' : unit,
+      ...(moving ? [r.envelope ?? '', r.vehiclePosition === undefined ? null : fromSI(r.vehiclePosition, 'length', sys)] : []),
     ];
   });
   return { name: 'checks', header, rows };

@@ -142,6 +142,8 @@ export const loadingInfoSchema = z.object({
   id: z.string(),
   kind: z.enum(['case', 'combination']),
   limitState: z.enum(['strength', 'service']).nullable(),
+  /** moving loads: the loading's max or min envelope (the same id appears twice) */
+  envelope: z.enum(['max', 'min']).optional(),
 });
 export type LoadingInfo = z.infer<typeof loadingInfoSchema>;
 
