@@ -4,9 +4,15 @@
  * are adjacent); the products with the rows below each diagonal block are accumulated in
  * registers two factor rows (or columns) by four load cases at a time.
  */
+import type { NumericFactor } from './numeric.js';
 import type { SymbolicFactor } from './symbolic.js';
 
-export function blockSolve(sym: SymbolicFactor, Lx: Float64Array, B: Float64Array, nrhs: number): Float64Array {
+export function blockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float64Array, nrhs: number): Float64Array {
+  if (factor.simd && nrhs > 0) {
+    const X = simdBlockSolve(sym, factor, B, nrhs);
+    if (X) return X;
+  }
+  const Lx = factor.Lx;
   const { n, perm, nsuper, superFirst, superRowPtr, superRows, superValPtr } = sym;
   const X = new Float64Array(n * nrhs);
   for (let q = 0; q < nrhs; q++) {
@@ -129,6 +135,76 @@ export function blockSolve(sym: SymbolicFactor, Lx: Float64Array, B: Float64Arra
     }
   }
 
+  const out = new Float64Array(n * nrhs);
+  for (let q = 0; q < nrhs; q++) {
+    const bq = q * n;
+    for (let k = 0; k < n; k++) out[bq + perm[k]] = X[k * nrhs + q];
+  }
+  return out;
+}
+
+/**
+ * The same substitution with the SIMD gather kernel, the work array placed in the kernels'
+ * memory after the factor (grown when needed). Returns null if the memory cannot grow.
+ */
+function simdBlockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float64Array, nrhs: number): Float64Array | null {
+  const simd = factor.simd!;
+  const { n, perm, nsuper, superFirst, superRowPtr, superValPtr } = sym;
+  const xB = factor.freeB;
+  const need = xB + n * nrhs * 8;
+  const have = simd.memory.buffer.byteLength;
+  if (need > have) {
+    try {
+      simd.memory.grow(Math.ceil((need - have) / 65536));
+    } catch {
+      return null;
+    }
+    // growing detaches the old views
+    factor.Lx = new Float64Array(simd.memory.buffer, 0, factor.Lx.length);
+  }
+  const X = new Float64Array(simd.memory.buffer, xB, n * nrhs);
+  for (let q = 0; q < nrhs; q++) {
+    const bq = q * n;
+    for (let k = 0; k < n; k++) X[k * nrhs + q] = B[bq + perm[k]];
+  }
+  const row8 = nrhs * 8;
+  const gather = simd.gather;
+  const rowsB = factor.rowsB;
+  for (let s = 0; s < nsuper; s++) {
+    const f = superFirst[s];
+    const nc = superFirst[s + 1] - f;
+    const r0 = superRowPtr[s];
+    const nr = superRowPtr[s + 1] - r0;
+    const o8 = superValPtr[s] * 8;
+    const xf = xB + f * row8;
+    // L11 y1 = b1, row by row
+    for (let i = 0; i < nc; i++) {
+      gather(xf + i * row8, nrhs, o8 + i * nc * 8, 8, xf, row8, 0, 0, i, 1, o8 + (i * nc + i) * 8);
+    }
+    // b2 −= L21 y1, row by row of L21 (scattered rows of X)
+    for (let r = nc; r < nr; r++) {
+      const row = sym.superRows[r0 + r];
+      gather(xB + row * row8, nrhs, o8 + r * nc * 8, 8, xf, row8, 0, 0, nc, 0, 0);
+    }
+  }
+  for (let s = nsuper - 1; s >= 0; s--) {
+    const f = superFirst[s];
+    const nc = superFirst[s + 1] - f;
+    const r0 = superRowPtr[s];
+    const nr = superRowPtr[s + 1] - r0;
+    const o8 = superValPtr[s] * 8;
+    const xf = xB + f * row8;
+    // x1 −= L21ᵀ x2, column by column of L21 (its rows gathered through the row list)
+    if (nr > nc) {
+      for (let k = 0; k < nc; k++) {
+        gather(xf + k * row8, nrhs, o8 + (nc * nc + k) * 8, nc * 8, xB, row8, rowsB + (r0 + nc) * 4, 1, nr - nc, 0, 0);
+      }
+    }
+    // L11ᵀ x1 = y1, last row first
+    for (let i = nc - 1; i >= 0; i--) {
+      gather(xf + i * row8, nrhs, o8 + ((i + 1) * nc + i) * 8, nc * 8, xf + (i + 1) * row8, row8, 0, 0, nc - 1 - i, 1, o8 + (i * nc + i) * 8);
+    }
+  }
   const out = new Float64Array(n * nrhs);
   for (let q = 0; q < nrhs; q++) {
     const bq = q * n;

@@ -99,7 +99,7 @@ export function factorise(K: SymmetricCsc, options: FactorOptions = {}): Superno
   const tSymbolic = performance.now() - t;
 
   t = performance.now();
-  const Lx = factorNumeric(K.values, sym, pivotTolerance);
+  const factor = factorNumeric(K.values, sym, pivotTolerance);
   const tNumeric = performance.now() - t;
 
   return {
@@ -114,7 +114,7 @@ export function factorise(K: SymmetricCsc, options: FactorOptions = {}): Superno
     solve(B: Float64Array, nrhs: number): Float64Array {
       if (!Number.isInteger(nrhs) || nrhs < 0) throw new Error(`solver: nrhs ${nrhs} is not a non-negative integer`);
       if (B.length !== n * nrhs) throw new Error(`solver: right-hand side has ${B.length} values, expected ${n * nrhs}`);
-      return blockSolve(sym, Lx, B, nrhs);
+      return blockSolve(sym, factor, B, nrhs);
     },
   };
 }

@@ -27,13 +27,28 @@ interface Kernel {
 /** reciprocals of the diagonal of the current column block */
 const inv = new Float64Array(NB);
 
-export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTolerance: number): Float64Array {
+/**
+ * The factor: Lx holds the supernode blocks. With SIMD kernels it lives in their memory,
+ * followed by a copy of the supernode row lists at byte rowsB; bytes from freeB are free for
+ * the substitution's work array.
+ */
+export interface NumericFactor {
+  Lx: Float64Array;
+  simd: SimdKernels | null;
+  rowsB: number;
+  freeB: number;
+}
+
+export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTolerance: number): NumericFactor {
   const { n, perm, cPtr, cRow, cVal, nsuper, superFirst, superRowPtr, superRows, superValPtr, colToSuper } = sym;
   let maxRows = 0;
   for (let s = 0; s < nsuper; s++) maxRows = Math.max(maxRows, superRowPtr[s + 1] - superRowPtr[s]);
   // the factor and the scatter maps share one WebAssembly memory when SIMD kernels exist
   const nL = superValPtr[nsuper];
-  const simd = simdKernels(nL * 8 + 3 * 4 * maxRows + 64);
+  const nRows = superRowPtr[nsuper];
+  const rowsB = nL * 8 + 3 * 4 * maxRows;
+  const freeB = Math.ceil((rowsB + 4 * nRows) / 16) * 16;
+  const simd = simdKernels(freeB);
   const buf = simd ? simd.memory.buffer : null;
   const Lx = buf ? new Float64Array(buf, 0, nL) : new Float64Array(nL);
   const tRowB = nL * 8;
@@ -42,6 +57,7 @@ export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTo
   const tRow = buf ? new Int32Array(buf, tRowB, maxRows) : new Int32Array(maxRows);
   const tCol = buf ? new Int32Array(buf, tColB, maxRows) : new Int32Array(maxRows);
   const ident = buf ? new Int32Array(buf, identB, maxRows) : new Int32Array(maxRows);
+  if (buf) new Int32Array(buf, rowsB, nRows).set(superRows.subarray(0, nRows));
   const k: Kernel = { Lx, simd, tRow, tCol, tRowB, tColB };
   const kd: Kernel = { Lx, simd, tRow, tCol: ident, tRowB, tColB: identB };
   const origDiag = new Float64Array(n);
@@ -103,7 +119,7 @@ export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTo
       head[t] = s;
     }
   }
-  return Lx;
+  return { Lx, simd, rowsB, freeB };
 }
 
 /**

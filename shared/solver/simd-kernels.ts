@@ -16,6 +16,7 @@ import { assembleModule, F64, FunctionBuilder, I32, V128 } from './wasm-emitter.
 /** The parts of the WebAssembly JavaScript interface used here (not in every lib setting). */
 interface WasmMemory {
   readonly buffer: ArrayBuffer;
+  grow(pages: number): number;
 }
 interface WasmApi {
   validate(bytes: Uint8Array): boolean;
@@ -29,6 +30,19 @@ export interface SimdKernels {
   memory: WasmMemory;
   update(ob: number, w: number, rLo: number, rHi: number, cLo: number, cHi: number, kLo: number, kHi: number, tRowB: number, tColB: number): void;
   trsm(os: number, nc: number, nr: number, j0: number, j1: number): void;
+  gather(
+    dstB: number,
+    nrhs: number,
+    lB: number,
+    lStride8: number,
+    srcB: number,
+    srcStride8: number,
+    rowsB: number,
+    indirect: number,
+    count: number,
+    scale: number,
+    diagB: number,
+  ): void;
 }
 
 function buildUpdate(): FunctionBuilder {
@@ -191,6 +205,93 @@ function buildTrsm(): FunctionBuilder {
   return f;
 }
 
+/**
+ * gather(dstB, nrhs, lB, lStride8, srcB, srcStride8, rowsB, indirect, count, scale, diagB):
+ * one row of a block substitution over all load cases. With x_t the row of nrhs values at
+ * srcB + t·srcStride8 (or, when `indirect`, at srcB + rows[t]·srcStride8 with rows at rowsB)
+ * and l_t the value at lB + t·lStride8:
+ *   dst ← (dst − Σ_{t<count} l_t · x_t) / (scale ? L at diagB : 1)
+ * with the load cases eight (then two, then one) at a time in registers.
+ */
+function buildGather(): FunctionBuilder {
+  const f = new FunctionBuilder('gather', [I32, I32, I32, I32, I32, I32, I32, I32, I32, I32, I32]);
+  const [dstB, nrhs, lB, lStride8, srcB, srcStride8, rowsB, indirect, count, scale, diagB] = [0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10];
+  const q8 = f.local(I32);
+  const nrhs8 = f.local(I32);
+  const t = f.local(I32);
+  const pl = f.local(I32);
+  const ps = f.local(I32);
+  const pr = f.local(I32);
+  const l = f.local(V128);
+  const acc = [f.local(V128), f.local(V128), f.local(V128), f.local(V128)];
+  const ls = f.local(F64);
+  const as = f.local(F64);
+
+  /** acc −= l_t · x_t over t, for `nv` vectors (0: one scalar) at byte offset q8 of each row */
+  const terms = (nv: number): void => {
+    const step = (src: () => void): void => {
+      if (nv === 0) {
+        f.get(pl).f64Load().set(ls);
+        f.get(as);
+        f.get(ls);
+        src();
+        f.f64Load().fmul().fsub().set(as);
+        return;
+      }
+      f.get(pl).f64Load().splat().set(l);
+      for (let c = 0; c < nv; c++) {
+        f.get(acc[c]).get(l);
+        src();
+        f.v128Load(16 * c).vmul().vsub().set(acc[c]);
+      }
+    };
+    f.get(lB).set(pl);
+    f.i32(0).set(t);
+    f.get(indirect).if();
+    f.get(rowsB).set(pr);
+    f.block().loop();
+    f.get(t).get(count).geS().brIf(1);
+    step(() => f.get(srcB).get(pr).i32Load().get(srcStride8).mul().add().get(q8).add());
+    f.get(pl).get(lStride8).add().set(pl);
+    f.inc(pr, 4).inc(t, 1).br(0).end().end();
+    f.else();
+    f.get(srcB).get(q8).add().set(ps);
+    f.block().loop();
+    f.get(t).get(count).geS().brIf(1);
+    step(() => f.get(ps));
+    f.get(pl).get(lStride8).add().set(pl);
+    f.get(ps).get(srcStride8).add().set(ps);
+    f.inc(t, 1).br(0).end().end();
+    f.end();
+  };
+
+  const chunk = (nv: number): void => {
+    const width = nv === 0 ? 8 : 16 * nv;
+    f.block().loop();
+    f.get(q8).i32(width).add().get(nrhs8).gtS().brIf(1);
+    if (nv === 0) f.get(dstB).get(q8).add().f64Load().set(as);
+    for (let c = 0; c < nv; c++) f.get(dstB).get(q8).add().v128Load(16 * c).set(acc[c]);
+    terms(nv);
+    f.get(scale).if();
+    if (nv === 0) f.get(as).get(diagB).f64Load().fdiv().set(as);
+    else {
+      f.get(diagB).f64Load().splat().set(l);
+      for (let c = 0; c < nv; c++) f.get(acc[c]).get(l).vdiv().set(acc[c]);
+    }
+    f.end();
+    if (nv === 0) f.get(dstB).get(q8).add().get(as).f64Store();
+    for (let c = 0; c < nv; c++) f.get(dstB).get(q8).add().get(acc[c]).v128Store(16 * c);
+    f.inc(q8, width).br(0).end().end();
+  };
+
+  f.get(nrhs).i32(3).shl().set(nrhs8);
+  f.i32(0).set(q8);
+  chunk(4);
+  chunk(1);
+  chunk(0);
+  return f;
+}
+
 let compiled: object | null | undefined;
 
 function module(): object | null {
@@ -198,7 +299,7 @@ function module(): object | null {
   let mod: object | null = null;
   try {
     if (wasm) {
-      const bytes = assembleModule([buildUpdate(), buildTrsm()]);
+      const bytes = assembleModule([buildUpdate(), buildTrsm(), buildGather()]);
       if (wasm.validate(bytes)) mod = new wasm.Module(bytes);
     }
   } catch {
@@ -225,8 +326,8 @@ export function simdKernels(bytes: number): SimdKernels | null {
   try {
     const memory = new wasm.Memory({ initial: Math.max(1, Math.ceil(bytes / 65536)) });
     const inst = new wasm.Instance(mod, { env: { mem: memory } });
-    const ex = inst.exports as unknown as Pick<SimdKernels, 'update' | 'trsm'>;
-    return { memory, update: ex.update, trsm: ex.trsm };
+    const ex = inst.exports as unknown as Pick<SimdKernels, 'update' | 'trsm' | 'gather'>;
+    return { memory, update: ex.update, trsm: ex.trsm, gather: ex.gather };
   } catch {
     return null;
   }

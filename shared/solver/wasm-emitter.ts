@@ -215,6 +215,9 @@ export class FunctionBuilder {
   vmul(): this {
     return this.simd(0xf2);
   }
+  vdiv(): this {
+    return this.simd(0xf3);
+  }
 
   /** local l += amount (i32) */
   inc(l: number, amount: number): this {
