@@ -7,12 +7,13 @@ export function commentMarkerCell(counts: Record<string, number>) {
     const n = counts[id] ?? 0;
     if (n > 0) {
       const mark = document.createElement('span');
-      mark.className = 'comment-marker';
+      mark.className = 'comment-marker mdi mdi-comment-text-outline';
       mark.dataset.test = 'comment-marker';
       mark.title = `${n} comment${n === 1 ? '' : 's'}`;
-      mark.textContent = ` 💬${n}`;
-      mark.style.fontSize = '0.75em';
-      mark.style.opacity = '0.8';
+      mark.textContent = String(n);
+      mark.style.marginLeft = '4px';
+      mark.style.fontSize = '0.8em';
+      mark.style.color = 'rgb(var(--v-theme-secondary))';
       span.appendChild(mark);
     }
     return span;
