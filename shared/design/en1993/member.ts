@@ -26,6 +26,7 @@ import { compressionResistance } from './compression.js';
 import { flexuralBuckling } from './buckling.js';
 import { bendingResistance, momentWithShear, type EnBending } from './bending.js';
 import { shearResistance } from './shear.js';
+import { torsionHead, torsionLast, torsionPlan, torsionRatio } from './torsion.js';
 import { axialBendingHead, axialBendingPlan, axialBendingRatio } from './axial-bending.js';
 import { c1Linear, ltbHead, ltbMb, ltbPlan, ltbResistance } from './ltb.js';
 import { annexB, cmB3, interactionHead, type InteractionFactors, type InteractionInput } from './interaction.js';
@@ -94,6 +95,7 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
   const seg = new Float64Array(SEG_SIZE);
   const d = new Float64Array(D_SIZE);
   const tThreshold = negligibleTorsion(g, cx.fy);
+  const tor = torsionPlan(g, cx.fy, cx.gammaM0, vMaj.capacity, vMin.capacity);
   const c1Source = m.cb !== undefined ? 'given cb used as C1' : 'from the moment diagram';
   const ltbNaN = ltb.applies && Number.isNaN(ltb.Mcr1);
   const ii: InteractionInput = {
@@ -215,7 +217,8 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
       ratio[i633] = f.r61 > f.r62 ? f.r61 : f.r62; xo[i633] = d[D_MY] > 0 ? d[D_XMY] : xc;
     }
     absMax(sf.T, xs, d, D_T);
-    ratio[iTor] = d[D_T] > tThreshold ? NaN : -1; xo[iTor] = d[D_T + 1];
+    if (d[D_T] > tThreshold && tor.applies) { ratio[iTor] = torsionRatio(tor, sf); xo[iTor] = xs[torsionLast.i]; }
+    else { ratio[iTor] = d[D_T] > tThreshold ? NaN : -1; xo[iTor] = d[D_T + 1]; }
   }
 
   const ratio = new Float64Array(slots.length);
@@ -290,6 +293,7 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
         out[i633] = interactionRecord(h, id, combination, r633, xo[i633]);
       }
     }
+    if ((!want || want[iTor]) && ratio[iTor] >= 0) out[iTor] = interactionRecord(torsionHead(tor, sf), id, combination, ratio[iTor], xo[iTor]);
     if ((!want || want[iTor]) && Number.isNaN(ratio[iTor])) out[iTor] = notChecked(id, 'torsion', code, '6.2.7', 'torsion', `torsion present (|T| up to ${(d[D_T] / 1e3).toPrecision(3)} kNm): 6.2.7 not implemented`, combination);
     return out;
   }

@@ -160,3 +160,23 @@ describe('class 4 effective sections (EN 1993-1-5 4.4)', () => {
     expect(r.head.note).toMatch(/channel.*not implemented/);
   });
 });
+
+describe('6.2.7 torsion of closed hollow sections', () => {
+  // SHS 100×100×5 S235 (A = 1836 mm², stated input): Am = 95·95 = 9025 mm², 2·Am·t = 90 250 mm³
+  const shs = () => section('rhs', { h: 100, b: 100, t: 5 }, { A: 1836, I_major: 2.72e6, I_minor: 2.72e6, J: 4.4e6, S_major: 5.44e4, S_minor: 5.44e4, Z_major: 6.4e4, Z_minor: 6.4e4 }, 0.001);
+  const plan = () => enPlan(designGeometry(shs()), S235, { id: 'T', length: 2, truss: false, LcMajor: 2, LcMinor: 2, Lb: 2, cantilever: false });
+  it('T = 5 kNm alone: τt = 5e6/90250 = 55.40 MPa, τt/(235/√3) = 0.4083 (Bredt; 6.2.7)', () => {
+    const r = plan().records(stations(2, { T: () => 5e3 }), 'ULS1').find((q) => q?.family === 'torsion')!;
+    expect(r.status).toBe('pass');
+    expect(close(r.ratio!, 0.4083, 0.001)).toBe(true);
+  });
+  it('T = 5 kNm with V = 50 kN: Av = A·h/(b + h) = 918 mm², (6.28) Vpl,T,Rd = 0.5917·124.55 = 73.70 kN → 0.6785; (6.1) τ = 55.40 + 54.47 = 109.87 MPa, √3·109.87/235 = 0.8098 governs', () => {
+    const r = plan().records(stations(2, { T: () => 5e3, V_major: () => 50e3 }), 'ULS1').find((q) => q?.family === 'torsion')!;
+    expect(close(r.ratio!, 0.8098, 0.001)).toBe(true);
+  });
+  it('torsion on an open I-section stays not checked', () => {
+    const p = enPlan(designGeometry(IPE300()), S235, { id: 'I', length: 2, truss: false, LcMajor: 2, LcMinor: 2, Lb: 2, cantilever: false });
+    const r = p.records(stations(2, { T: () => 5e3 }), 'ULS1').find((q) => q?.family === 'torsion')!;
+    expect(r.status).toBe('not checked');
+  });
+});
