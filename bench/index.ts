@@ -37,6 +37,7 @@ async function main(): Promise<void> {
   if (pick.includes('frame50k')) run('frame 20×20×40 (~51k)', () => buildFrameModel(20, 20, 40), true);
   console.log('\ntargets: 10k frame core ≤ 2000 ms; 50k frame core ≤ 40000 ms; 10k truss core ≤ 100 ms (core = assembly + loads + ordering + factorisation + solve)');
   for (const r of rows) console.log(`  ${r.name.padEnd(26)} core ${r.coreMs.toFixed(0)} ms`);
+  if (pick.includes('moving')) (await import('./moving.js')).benchMoving();
   if (pick.includes('solver')) {
     try {
       const mod = (await import('./solver.js')) as { benchSolver?: () => unknown };

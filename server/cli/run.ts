@@ -124,6 +124,12 @@ export async function runCli(args: string[], io: CliIO): Promise<number> {
     await mkdir(out, { recursive: true });
     for (const t of texts) await writeFile(join(out, t.file), t.text, 'utf8');
     io.out(`${model.settings.title}: ${model.nodes.length} nodes, ${model.members.length} members, ${analysis.loadings.length} loadings`);
+    if (analysis.moving) {
+      // moving loads (issue 7): say what crossed which lane, and how often it stopped
+      const d = analysis.moving.diagnostics;
+      const lanes = analysis.moving.lanes.map((l) => `${l.lane} (${l.length.toPrecision(6)} m)`).join(', ');
+      io.out(`moving loads: ${model.movingLoads.map((ml) => `${ml.vehicle} on ${ml.lane}`).join(', ')}; lanes ${lanes}; ${d.positions} vehicle positions, ${d.milliseconds.toFixed(0)} ms; envelope loadings in rows marked max/min`);
+    }
     io.out(`wrote ${texts.map((t) => t.file).join(', ')} to ${out}`);
     return EXIT.ok;
   } catch (e) {

@@ -456,6 +456,13 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
     const entries = lanes.filter((l) => l.lane === lane).sort((p, q) => p.seq - q.seq);
     const path = lanePath(entries, members);
     if (!path.ok) problems.error('lanes', entries[path.index].row, lab('lanes', 'member'), `lane ${lane}: ${path.message}`);
+    // the moving-load engine needs prismatic lane members (shared/moving/influence.ts)
+    for (const e of entries) {
+      const m = members.get(e.member);
+      if (m?.sectionEnd !== undefined && m.sectionEnd !== m.section) {
+        problems.error('lanes', e.row, lab('lanes', 'member'), `lane ${lane}: member ${m.id} is tapered (section_end); a vehicle cannot run on a tapered member`);
+      }
+    }
   }
   const vehicleIds = new Set(vehicles.map((v) => v.vehicle));
   const movingLoads: MovingLoad[] = [];
