@@ -5,14 +5,13 @@
  */
 import type { Model } from '../model/types.js';
 import { type FactorOptions, type Factorisation, SingularMatrixError, type SymmetricCsc } from '../solver/types.js';
-import { vecToLocal12 } from './axes.js';
 import { appliedTotals, reactionTotals } from './equilibrium.js';
 import { instabilityAt } from './instability.js';
-import type { LoadSet } from './loadSet.js';
 import { computeReactions } from './reactions.js';
-import { caseStations, memberStations, ROWS } from './recovery.js';
+import { memberResults } from './memberResults.js';
+import { memberStations } from './recovery.js';
 import { factorise as defaultFactorise } from './solverBridge.js';
-import { buildSystem, elementLocal } from './system.js';
+import { buildSystem } from './system.js';
 import type { AnalysisResult, EquilibriumCheck, Loading, StationForces } from './types.js';
 import { addMovingPart, computeMoving, expandLoadings, type MovingComputation, type MovingInput, movingResults } from '../moving/index.js';
 
@@ -41,7 +40,6 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
   const sys = buildSystem(model, taperSegments, timings);
   const { mesh, nCases, loadSets, eq, nEq, eqDof, pat, F, presc, fefOf, nodeIndex, caseIndex } = sys;
   const nNodes = mesh.nNodes, nDofAll = nNodes * 6;
-  const kl = new Float64Array(144), ue = new Float64Array(12);
   t = now();
 
   // factorise once, solve all cases as one block
@@ -135,37 +133,11 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
     return loadings[l];
   };
 
-  // member recovery: all cases of the last member asked for
-  let cacheMember = -1;
-  let cacheX: Float64Array = new Float64Array(0);
-  let cacheData: Float64Array = new Float64Array(0);
-  const f1 = new Float64Array(6), ul = new Float64Array(12);
-  const memberCases = (mi: number) => {
-    if (mi === cacheMember) return;
-    const m = mesh.members[mi];
-    const sets = Array.from({ length: nCases }, (_, c) => loadSets[mi * nCases + c]);
-    const xs = memberStations(m.L, sets);
-    const nSt = xs.length;
-    const data = new Float64Array(nCases * ROWS * nSt);
-    const e0 = m.firstElement;
-    elementLocal(mesh, e0, kl);
-    const ni = mesh.elStart[e0], nj = mesh.elEnd[e0];
-    for (let c = 0; c < nCases; c++) {
-      const uo = c * nDofAll;
-      for (let k = 0; k < 6; k++) { ue[k] = U[uo + ni * 6 + k]; ue[6 + k] = U[uo + nj * 6 + k]; }
-      vecToLocal12(m.R, ue, ul);
-      const fef = fefOf(e0, c);
-      for (let i = 0; i < 6; i++) {
-        let s = fef ? fef[i] : 0;
-        for (let j = 0; j < 12; j++) s += kl[i * 12 + j] * ul[j];
-        f1[i] = s;
-      }
-      caseStations(m, sets[c] as LoadSet | undefined, f1, xs, data, c * ROWS * nSt);
-    }
-    cacheMember = mi;
-    cacheX = xs;
-    cacheData = data;
-  };
+  // member recovery: station values per case of the member asked for, loadings by superposition
+  const forcesOf = memberResults({
+    mesh, nCases, loadSets, U, fefOf,
+    addMoving: moving ? (mi, ld, rows) => addMovingPart(moving!, ld, moving!.basis.memberOff[mi], rows) : undefined,
+  });
 
   const dispCache = new Map<number, Float64Array>();
   const reactCache = new Map<number, Float64Array>();
@@ -196,23 +168,7 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
     },
     memberForces(mi: number, l: number): StationForces {
       if (!(mi >= 0 && mi < mesh.members.length)) throw new Error(`member index ${mi} out of range`);
-      const ld = checkLoading(l);
-      memberCases(mi);
-      const nSt = cacheX.length;
-      const buf = new Float64Array(ROWS * nSt);
-      const rows = Array.from({ length: ROWS }, (_, r) => buf.subarray(r * nSt, (r + 1) * nSt));
-      for (const { caseIndex: c, factor } of ld.terms) {
-        const o = c * ROWS * nSt;
-        for (let r = 0; r < ROWS; r++) {
-          const dst = rows[r];
-          for (let i = 0; i < nSt; i++) dst[i] += factor * cacheData[o + r * nSt + i];
-        }
-      }
-      if (moving && ld.envelope) addMovingPart(moving, ld, moving.basis.memberOff[mi], buf);
-      return {
-        x: cacheX.slice(), N: rows[0], V_major: rows[1], V_minor: rows[2], T: rows[3],
-        M_major: rows[4], M_minor: rows[5], d_major: rows[6], d_minor: rows[7],
-      };
+      return forcesOf(mi, checkLoading(l));
     },
     memberLength: (mi: number) => mesh.members[mi].L,
     diagnostics: {
