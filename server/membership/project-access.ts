@@ -140,3 +140,15 @@ export function projectGuards(ds: DataSource) {
     },
   };
 }
+
+/** For viewers, a model's `lastRun` is shown only when that run is approved (else null). */
+export async function forViewer<T extends { lastRun: { id: number } | null }>(ds: DataSource, role: Role, models: T[]): Promise<T[]> {
+  if (role !== 'viewer') return models;
+  const repo = ds.getRepository(RunEntity);
+  const out: T[] = [];
+  for (const m of models) {
+    const run = m.lastRun ? await repo.findOne({ where: { id: m.lastRun.id }, select: { id: true, reviewStatus: true } }) : null;
+    out.push(run && run.reviewStatus === 'approved' ? m : { ...m, lastRun: null });
+  }
+  return out;
+}

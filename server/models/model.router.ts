@@ -9,7 +9,7 @@ import { currentUser, requireRole } from '../middleware/auth.js';
 import { parseId } from '../middleware/params.js';
 import { listRuns, startRun } from '../runs/run.service.js';
 import { editMembers, getEditableMembers, getModelDetail, listModels, listVersions, renameModel } from './model.service.js';
-import { projectGuards, runVisibleTo } from '../membership/project-access.js';
+import { forViewer, projectGuards, runVisibleTo } from '../membership/project-access.js';
 import { assertModelEditable } from '../reviews/lock.js';
 
 export const MODEL_READERS = rolesAtLeast('viewer');
@@ -24,7 +24,7 @@ export function projectModelsRouter({ dataSource }: AppContext): Router {
   const router = Router({ mergeParams: true });
   const guard = projectGuards(dataSource);
   router.get('/', requireRole(...MODEL_READERS), guard.project('projectId'), async (req, res) => {
-    res.json(await listModels(dataSource, parseId((req.params as Record<string, string>).projectId, 'Project')));
+    res.json(await forViewer(dataSource, req.access!.role, await listModels(dataSource, parseId((req.params as Record<string, string>).projectId, 'Project'))));
   });
   return router;
 }
@@ -33,7 +33,7 @@ export function modelsRouter({ dataSource }: AppContext): Router {
   const router = Router();
   const guard = projectGuards(dataSource);
   router.get('/:id', requireRole(...MODEL_READERS), guard.model('id'), async (req, res) => {
-    res.json(await getModelDetail(dataSource, parseId(req.params.id, 'Model')));
+    res.json((await forViewer(dataSource, req.access!.role, [await getModelDetail(dataSource, parseId(req.params.id, 'Model'))]))[0]);
   });
   router.patch('/:id', requireRole(...MODEL_EDITORS), guard.model('id', 'engineer'), async (req, res) => {
     res.json(await renameModel(dataSource, parseId(req.params.id, 'Model'), req.body ?? {}));

@@ -11,6 +11,7 @@ import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import { CSV, importDemo, upload } from '../models/fixture.js';
 import { makeTeam, type Team } from '../membership/fixture.js';
 import { runInState } from './fixture.js';
+import { RunEntity } from '../../../server/runs/run.entity.js';
 
 let t: TestApp;
 let team: Team;
@@ -107,6 +108,24 @@ describe('what viewers see', () => {
     expect(list.length).toBeGreaterThan(0);
     expect(list.every((r) => r.reviewStatus === 'approved')).toBe(true);
     expect((await t.as('engineer').get(`/api/models/${modelId}/runs`)).body.some((r: { id: number }) => r.id === draft)).toBe(true);
+  });
+
+  it("hides a model's last run from viewers unless it is approved", async () => {
+    const project = await t.as('lead').post('/api/projects').send({ name: 'Viewer sight' });
+    const pid = project.body.id as number;
+    for (const [email, role] of [['engineer@example.com', 'engineer'], ['viewer@example.com', 'viewer']]) {
+      await t.as('lead').post(`/api/projects/${pid}/members`).send({ email, role });
+    }
+    const mid = await importDemo(t, pid);
+    const draft = await runInState(t, mid, 'draft', null);
+    // the model list reads its last run from the runs table
+    const asViewer = (await t.as('viewer').get(`/api/projects/${pid}/models`)).body as { lastRun: { id: number } | null }[];
+    const asEngineer = (await t.as('engineer').get(`/api/projects/${pid}/models`)).body as { lastRun: { id: number } | null }[];
+    expect(asEngineer[0]!.lastRun?.id).toBe(draft);
+    expect(asViewer[0]!.lastRun).toBeNull();
+    expect((await t.as('viewer').get(`/api/models/${mid}`)).body.lastRun).toBeNull();
+    await t.dataSource.getRepository(RunEntity).update({ id: draft }, { reviewStatus: 'approved' });
+    expect((await t.as('viewer').get(`/api/projects/${pid}/models`)).body[0].lastRun.id).toBe(draft);
   });
 });
 
