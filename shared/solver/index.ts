@@ -5,10 +5,10 @@
  */
 import { amdOrder } from './amd.js';
 import { blockSolve } from './block-solve.js';
-import { compressGraph, expandOrdering, graphFromLower } from './graph.js';
+import { compressGraph, graphFromLower } from './graph.js';
 import { nestedDissectionOrder } from './nested-dissection.js';
 import { factorNumeric } from './numeric.js';
-import { orderingFlops } from './ordering-cost.js';
+import { expandPostordered, orderingFlops, type PostorderedOrdering } from './supervariable-tree.js';
 import { analyse } from './symbolic.js';
 import type { Factorisation, FactorOptions, SymmetricCsc } from './types.js';
 
@@ -33,19 +33,26 @@ export function fillReducingOrder(K: SymmetricCsc, ordering: Ordering = 'auto'):
   return chooseOrdering(K, ordering).order;
 }
 
-function chooseOrdering(K: SymmetricCsc, ordering: Ordering): { order: Int32Array; used: Exclude<Ordering, 'auto'> } {
+interface Chosen {
+  order: Int32Array;
+  used: Exclude<Ordering, 'auto'>;
+  /** the order postordered, with elimination tree and column counts (from the supervariables) */
+  tree?: PostorderedOrdering;
+}
+
+function chooseOrdering(K: SymmetricCsc, ordering: Ordering): Chosen {
   const n = K.n;
   if (ordering === 'natural') return { order: Int32Array.from({ length: n }, (_, i) => i), used: 'natural' };
   const c = compressGraph(graphFromLower(K));
-  if (ordering === 'amd' || (ordering === 'auto' && n < NESTED_DISSECTION_FROM)) {
-    return { order: expandOrdering(c, amdOrder(c.graph, c.weight)), used: 'amd' };
-  }
+  const chosen = (order: Int32Array, used: Exclude<Ordering, 'auto'>): Chosen => {
+    const tree = expandPostordered(c, order);
+    return { order: tree.perm, used, tree };
+  };
+  if (ordering === 'amd' || (ordering === 'auto' && n < NESTED_DISSECTION_FROM)) return chosen(amdOrder(c.graph, c.weight), 'amd');
   const nd = nestedDissectionOrder(c.graph, c.weight);
-  if (ordering === 'nested-dissection') return { order: expandOrdering(c, nd), used: 'nested-dissection' };
+  if (ordering === 'nested-dissection') return chosen(nd, 'nested-dissection');
   const amd = amdOrder(c.graph, c.weight);
-  return orderingFlops(c.graph, c.weight, nd) < orderingFlops(c.graph, c.weight, amd)
-    ? { order: expandOrdering(c, nd), used: 'nested-dissection' }
-    : { order: expandOrdering(c, amd), used: 'amd' };
+  return orderingFlops(c.graph, c.weight, nd) < orderingFlops(c.graph, c.weight, amd) ? chosen(nd, 'nested-dissection') : chosen(amd, 'amd');
 }
 
 /** Checks the shape of a lower-triangle CSC matrix; throws an Error naming the fault. */
@@ -91,11 +98,11 @@ export function factorise(K: SymmetricCsc, options: FactorOptions = {}): Superno
   const n = K.n;
 
   let t = performance.now();
-  const { order, used } = chooseOrdering(K, ordering);
+  const { order, used, tree } = chooseOrdering(K, ordering);
   const tOrder = performance.now() - t;
 
   t = performance.now();
-  const sym = analyse(K, order);
+  const sym = analyse(K, order, undefined, tree);
   const tSymbolic = performance.now() - t;
 
   t = performance.now();

@@ -3,6 +3,7 @@
  * (Liu's algorithm with path compression), postorder, column counts (row subtrees), and
  * supernodes (fundamental ones merged by relaxed amalgamation) with their row structures.
  */
+import type { PostorderedOrdering } from './supervariable-tree.js';
 import type { SymmetricCsc } from './types.js';
 
 export interface SymbolicFactor {
@@ -157,6 +158,25 @@ export function factorFlops(K: SymmetricCsc, order: Int32Array): number {
   return flops;
 }
 
+/** column counts of L by row subtrees */
+function columnCounts(n: number, uPtr: Int32Array, uRow: Int32Array, parent: Int32Array): Int32Array {
+  const count = new Int32Array(n);
+  const mark = new Int32Array(n).fill(-1);
+  for (let i = 0; i < n; i++) {
+    mark[i] = i;
+    count[i]++;
+    for (let p = uPtr[i]; p < uPtr[i + 1]; p++) {
+      let j = uRow[p];
+      while (mark[j] !== i) {
+        mark[j] = i;
+        count[j]++;
+        j = parent[j];
+      }
+    }
+  }
+  return count;
+}
+
 export interface AmalgamationOptions {
   /** merge freely while a supernode has at most this many columns */
   smallColumns: number;
@@ -177,36 +197,38 @@ export function analyse(
   K: SymmetricCsc,
   order: Int32Array,
   amalgamation: AmalgamationOptions = defaultAmalgamation,
+  tree?: PostorderedOrdering,
 ): SymbolicFactor {
   const n = K.n;
-  // etree of the ordered matrix, then postorder it (same fill, contiguous subtrees)
-  let pinv = new Int32Array(n);
-  for (let k = 0; k < n; k++) pinv[order[k]] = k;
-  const first = permute(K, pinv, false);
-  const parent0 = etree(n, first.uPtr, first.uRow);
-  const post = postorder(parent0);
-  const perm = new Int32Array(n);
-  for (let k = 0; k < n; k++) perm[k] = order[post[k]];
-  pinv = new Int32Array(n);
-  for (let k = 0; k < n; k++) pinv[perm[k]] = k;
-  const { cPtr, cRow, cVal, uPtr, uRow } = permute(K, pinv, true);
-  const parent = etree(n, uPtr, uRow);
-
-  // column counts by row subtrees
-  const count = new Int32Array(n);
-  const mark = new Int32Array(n).fill(-1);
-  for (let i = 0; i < n; i++) {
-    mark[i] = i;
-    count[i]++;
-    for (let p = uPtr[i]; p < uPtr[i + 1]; p++) {
-      let j = uRow[p];
-      while (mark[j] !== i) {
-        mark[j] = i;
-        count[j]++;
-        j = parent[j];
-      }
-    }
+  let perm: Int32Array;
+  let parent: Int32Array;
+  let count: Int32Array;
+  let permuted: Permuted;
+  if (tree) {
+    // ordering already postordered, with its tree and counts (supervariable-tree.ts)
+    perm = tree.perm;
+    const pinv = new Int32Array(n);
+    for (let k = 0; k < n; k++) pinv[perm[k]] = k;
+    permuted = permute(K, pinv, true);
+    parent = tree.parent;
+    count = tree.count;
+  } else {
+    // etree of the ordered matrix, then postorder it (same fill, contiguous subtrees)
+    let pinv = new Int32Array(n);
+    for (let k = 0; k < n; k++) pinv[order[k]] = k;
+    const first = permute(K, pinv, false);
+    const parent0 = etree(n, first.uPtr, first.uRow);
+    const post = postorder(parent0);
+    perm = new Int32Array(n);
+    for (let k = 0; k < n; k++) perm[k] = order[post[k]];
+    pinv = new Int32Array(n);
+    for (let k = 0; k < n; k++) pinv[perm[k]] = k;
+    permuted = permute(K, pinv, true);
+    parent = etree(n, permuted.uPtr, permuted.uRow);
+    count = columnCounts(n, permuted.uPtr, permuted.uRow, parent);
   }
+  const { cPtr, cRow, cVal, uPtr, uRow } = permuted;
+
   let nnzL = 0;
   let flops = 0;
   for (let j = 0; j < n; j++) {

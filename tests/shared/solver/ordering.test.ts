@@ -89,3 +89,37 @@ describe('automatic ordering choice', () => {
     expect(factorise(gridLaplacian([20, 20])).ordering).toBe('amd');
   });
 });
+
+describe('symbolic analysis from the supervariable tree', () => {
+  it('gives the same factor structure as the analysis of the full matrix', async () => {
+    const { analyse } = await import('../../../shared/solver/symbolic.js');
+    const { expandPostordered, orderingFlops } = await import('../../../shared/solver/supervariable-tree.js');
+    const { planeFrame } = await import('./fixtures.js');
+    // a 2D grid of frame nodes (3 freedoms each, identical neighbourhoods → supervariables of 3)
+    const nx = 9;
+    const ny = 7;
+    const coords: Array<[number, number]> = [];
+    for (let j = 0; j < ny; j++) for (let i = 0; i < nx; i++) coords.push([i * 4, j * 3]);
+    const members = [];
+    for (let j = 0; j < ny; j++) {
+      for (let i = 0; i < nx; i++) {
+        const a = j * nx + i;
+        if (i + 1 < nx) members.push({ a, b: a + 1, E: 2e11, A: 1e-2, I: 1e-4 });
+        if (j + 1 < ny) members.push({ a, b: a + nx, E: 2e11, A: 1e-2, I: 1e-4 });
+      }
+    }
+    const { K } = planeFrame(coords, members, new Set([0, 1, 2]));
+    const c = compressGraph(graphFromLower(K));
+    for (const order of [amdOrder(c.graph, c.weight), nestedDissectionOrder(c.graph, c.weight)]) {
+      const tree = expandPostordered(c, order);
+      const fast = analyse(K, tree.perm, undefined, tree);
+      const full = analyse(K, tree.perm);
+      expect(Array.from(fast.perm)).toEqual(Array.from(full.perm));
+      expect(fast.nnzL).toBe(full.nnzL);
+      expect(fast.flops).toBe(full.flops);
+      expect(orderingFlops(c.graph, c.weight, order)).toBe(full.flops);
+      expect(Array.from(fast.superFirst)).toEqual(Array.from(full.superFirst));
+      expect(Array.from(fast.superRows)).toEqual(Array.from(full.superRows));
+    }
+  });
+});
