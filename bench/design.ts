@@ -73,7 +73,7 @@ function patterns(L: number): StationForces[] {
   return out;
 }
 
-function standIn(model: Model, combinations: number): AnalysisResult {
+export function standIn(model: Model, combinations: number): AnalysisResult {
   const nodeIds = model.nodes.map((n) => n.id);
   const pos = new Map(model.nodes.map((n) => [n.id, n]));
   const len = Float64Array.from(model.members, (m) => {

@@ -20,7 +20,7 @@ import { cbF11, isLinearSegment, segmentMoments, SEG_M0, SEG_M1, SEG_MA, SEG_MB,
 import type { EnContext, Resistance } from './context.js';
 import { enClass, type EnClass } from './classification.js';
 import { effectiveScope, effectiveSection } from './effective.js';
-import { lastWeb, stationClass, stressClassPlan } from './stress-class.js';
+import { lastWeb, stationClass, stressClassPlan, webAlpha, webPsi } from './stress-class.js';
 import { tensionGross, tensionNet } from './tension.js';
 import { compressionResistance } from './compression.js';
 import { flexuralBuckling } from './buckling.js';
@@ -273,6 +273,7 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
         const h = axialBendingHead(abFor(cl, Ni)!, Math.abs(Ni), My, Mz);
         h.inputs = [...h.inputs, inp('class', 'cross-section class at this station (Table 5.2)', cl, 'ratio')];
         if (scp.applies) {
+          lastWeb.alpha = webAlpha(scp, -Ni, My); lastWeb.psi = webPsi(scp, -Ni, My);
           h.inputs.push(inp('α', 'compressed fraction of the web, plastic (Table 5.2)', lastWeb.alpha, 'ratio'),
             inp('ψ', Number.isNaN(lastWeb.psi) ? 'web wholly in tension' : 'web edge stress ratio σ2/σ1, elastic (Table 5.2)', Number.isNaN(lastWeb.psi) ? 'n/a' : lastWeb.psi, Number.isNaN(lastWeb.psi) ? 'text' : 'ratio'));
         }

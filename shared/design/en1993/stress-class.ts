@@ -88,7 +88,7 @@ export function internalClass(ct: number, eps: number, alpha: number, psi: numbe
   return ct <= l3 ? 3 : 4;
 }
 
-/** Scratch of the last stationClass call: α and ψ of the web. */
+/** Scratch of the last stationClass call that evaluated the web: α and ψ. */
 export const lastWeb = { alpha: 0.5, psi: -1 };
 
 /**
@@ -96,11 +96,14 @@ export const lastWeb = { alpha: 0.5, psi: -1 };
  * (RHS: the depth walls then count in compression, conservative).
  */
 export function stationClass(p: StressClassPlan, N: number, My: number, minorActs: boolean): EnClass {
+  const compressed = N > 0 || My > 0 || minorActs;
+  // the limits under any α ≤ 1, ψ ≤ 1 are not below the pure-compression ones: a web of
+  // class 1 in compression is class 1 under every loading (α, ψ then not needed)
+  if (p.webCompression === 1) return compressed ? p.flange : 1;
   const a = webAlpha(p, N, My);
   const psi = webPsi(p, N, My);
   lastWeb.alpha = a; lastWeb.psi = psi;
   let c = internalClass(p.ct, p.eps, a, psi);
   if (minorActs && p.rhs && p.webCompression > c) c = p.webCompression;
-  const compressed = N > 0 || My > 0 || minorActs;
   return compressed && p.flange > c ? p.flange : c;
 }
