@@ -127,6 +127,14 @@ describe.skipIf(!enabled)('review and sign-off in the browser', () => {
     expect(await page.locator('[data-test^=review-submit]').count()).toBe(0);
     await screenshot(page, 'review-07-engineer-locked');
 
+    // The 3D picture and the audit trail also work under the content security policy.
+    await app.goto(page, `/models/${modelId}?tab=picture&run=${runId}`);
+    await page.locator('canvas').first().waitFor();
+    await signIn(page, app.baseUrl, 'lead@example.com');
+    await app.goto(page, '/audit');
+    await expect.poll(() => page.locator('[data-test=audit-table]').textContent()).toContain('approve');
+    await screenshot(page, 'review-08-lead-audit');
+
     expect(cspViolations).toEqual([]);
     expect(app.serverErrors).toEqual([]);
     expect(app.externalRequests).toEqual([]);
