@@ -354,6 +354,7 @@ export async function getMemberDetail(ds: DataSource, id: number, memberId: stri
     stations: detail.stations,
     governingRecords: detail.governingRecords as MemberDetail['governingRecords'],
     loadingRecords: detail.loadingRecords as MemberDetail['loadingRecords'],
+    ...(detail.moving ? { moving: detail.moving } : {}),
   };
 }
 

@@ -1,4 +1,5 @@
 /** Messages between the HTTP thread and the run workers. */
+import type { MemberMovingDetail } from '../../shared/moving/detail.js';
 import type { DesignCode, ReadResult } from '../../shared/model/types.js';
 import type { CheckRecord } from '../../shared/design/types.js';
 import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
@@ -50,6 +51,8 @@ export interface MemberTaskResult {
   stations: Stations;
   governingRecords: CheckRecord[];
   loadingRecords: CheckRecord[];
+  /** moving loads (shared/moving/detail.ts) */
+  moving?: MemberMovingDetail[];
 }
 
 /** The member-forces export table (shared/exports/results.ts) for the requested loadings. */

@@ -1,4 +1,5 @@
 /** What a worker does for each task; kept apart from the thread plumbing so tests can call it. */
+import { memberMovingDetail } from '../../shared/moving/detail.js';
 import type { AnalysisResult, StationForces } from '../../shared/engine/types.js';
 import { checkMember, checkModel } from '../../shared/design/index.js';
 import { checksTable, memberForceTable } from '../../shared/exports/results.js';
@@ -67,6 +68,10 @@ export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => vo
         governingRecords: task.governing >= 0 ? checkMember(model, analysis, task.member, task.governing) : [],
         loadingRecords:
           analysis.loadings[task.loading]?.kind === 'combination' ? checkMember(model, analysis, task.member, task.loading) : [],
+        ...(analysis.moving ? {
+          moving: memberMovingDetail(analysis, task.member, model.members[task.member].type === 'truss',
+            model.movingLoads.map((ml, j) => ({ movingLoad: j, vehicle: ml.vehicle, lane: ml.lane }))),
+        } : {}),
       };
       return result;
     }

@@ -161,6 +161,20 @@ export const stationsSchema = z.object({
 });
 export type Stations = z.infer<typeof stationsSchema>;
 
+/** Moving loads on the member-detail screen (shared/moving/detail.ts), SI. */
+export const memberMovingSchema = z.object({
+  movingLoad: z.number().int(),
+  vehicle: z.string(),
+  lane: z.string(),
+  laneLength: z.number(),
+  key: z.string(),
+  station: z.number().int(),
+  x: z.number(),
+  influence: z.object({ s: z.array(z.number()), value: z.array(z.number()) }),
+  envelope: z.object({ x: z.array(z.number()), max: z.array(z.number()), min: z.array(z.number()) }),
+});
+export type MemberMoving = z.infer<typeof memberMovingSchema>;
+
 export const memberDetailSchema = z.object({
   runId: z.number().int(),
   units: z.enum(['metric', 'us']),
@@ -178,6 +192,8 @@ export const memberDetailSchema = z.object({
   governingRecords: z.array(checkRecordSchema),
   /** every check record of the chosen loading (empty for a load case) */
   loadingRecords: z.array(checkRecordSchema),
+  /** moving loads: influence line and envelope per moving load (absent without moving loads) */
+  moving: z.array(memberMovingSchema).optional(),
 });
 export type MemberDetail = z.infer<typeof memberDetailSchema>;
 

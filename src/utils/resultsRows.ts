@@ -31,6 +31,8 @@ export interface GridRow {
   lb: number | null;
   cb: number | null;
   deflection_limit: number | null;
+  /** moving loads: the leading axle's position along the lane when the governing check governed, in the model's length unit */
+  vehiclePosition?: number;
 }
 
 /**
@@ -68,6 +70,7 @@ export function buildGridRows(
     lb: e?.lb ?? null,
     cb: e?.cb ?? null,
     deflection_limit: e?.deflection_limit ?? null,
+    ...(r.vehiclePosition !== undefined ? { vehiclePosition: runLength(r.vehiclePosition) } : {}),
   });
   if (!editable) return (runRows ?? []).map((r) => fromRun(r));
   return editable.map((e) => {
