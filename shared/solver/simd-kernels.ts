@@ -58,6 +58,8 @@ function buildUpdate(): FunctionBuilder {
   const addr = f.local(I32);
   const pa = [f.local(I32), f.local(I32), f.local(I32), f.local(I32)];
   const pb = [f.local(I32), f.local(I32)];
+  const tr = [f.local(I32), f.local(I32), f.local(I32), f.local(I32)];
+  const tc = [f.local(I32), f.local(I32)];
   const va = [f.local(V128), f.local(V128), f.local(V128), f.local(V128)];
   const vb = [f.local(V128), f.local(V128)];
   const acc: number[] = [];
@@ -99,12 +101,11 @@ function buildUpdate(): FunctionBuilder {
       }
     }
     f.end();
+    for (let j = 0; j < nr; j++) f.get(c).i32(2).shl().get(tColB).add().i32Load(4 * j).i32(3).shl().set(tc[j]);
     for (let i = 0; i < mr; i++) {
       for (let j = 0; j < nr; j++) {
         const q = i * nr + j;
-        f.get(r).i32(2).shl().get(tRowB).add().i32Load(4 * i);
-        f.get(c).i32(2).shl().get(tColB).add().i32Load(4 * j);
-        f.add().i32(3).shl().tee(addr);
+        f.get(tr[i]).get(tc[j]).add().tee(addr);
         f.get(addr).f64Load().get(s[q]).fsub().f64Store();
       }
     }
@@ -112,6 +113,8 @@ function buildUpdate(): FunctionBuilder {
 
   /** column loop for a block of `mr` rows starting at r: columns cLo ≤ c < min(cHi, r + mr) */
   const columns = (mr: number): void => {
+    // byte offsets of the target rows, loaded once per row block
+    for (let i = 0; i < mr; i++) f.get(r).i32(2).shl().get(tRowB).add().i32Load(4 * i).i32(3).shl().set(tr[i]);
     f.get(cHi).get(r).i32(mr).add().get(cHi).get(r).i32(mr).add().ltS().select().set(cEnd);
     f.get(cLo).set(c);
     f.block().loop();
