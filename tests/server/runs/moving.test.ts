@@ -1,0 +1,41 @@
+/** Moving loads through the API: the road-bridge demo run serves vehicle positions, envelopes and influence lines. */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestApp, type TestApp } from '../helpers/test-app.js';
+
+let t: TestApp;
+let runId = 0;
+beforeAll(async () => {
+  t = await createTestApp({ seed: 'demo' });
+  const rows: { id: number }[] = await t.dataSource.query(
+    "SELECT runs.id AS id FROM runs JOIN models ON models.id = runs.modelId WHERE models.name LIKE '%road%' OR models.name LIKE '%Mill Lane%'",
+  );
+  runId = rows[0]?.id ?? 0;
+}, 180_000);
+afterAll(() => t.close());
+
+describe('moving loads over the API', () => {
+  it('grid rows carry the vehicle position; member detail has influence line and envelope', async () => {
+    expect(runId).toBeGreaterThan(0);
+    const members = await t.as('engineer').get(`/api/runs/${runId}/members`);
+    expect(members.status).toBe(200);
+    const v2 = members.body.members.find((m: { member: string }) => m.member === 'V2');
+    expect(typeof v2.vehiclePosition).toBe('number');
+    const detail = await t.as('engineer').get(`/api/runs/${runId}/members/BC4`);
+    expect(detail.status).toBe(200);
+    expect(detail.body.loadings.filter((l: { envelope?: string }) => l.envelope).length).toBe(6);
+    const mv = detail.body.moving[0];
+    expect(mv).toMatchObject({ vehicle: 'TRX-4', lane: 'DECK', key: 'M_major' });
+    expect(mv.laneLength).toBeCloseTo(48, 9);
+    expect(mv.influence.s.length).toBe(mv.influence.value.length);
+    expect(Math.max(...mv.envelope.max)).toBeGreaterThan(0);
+  });
+
+  it('exports reactions with the envelope column', async () => {
+    const res = await t.as('engineer').get(`/api/runs/${runId}/exports/reactions.csv`);
+    expect(res.status).toBe(200);
+    const text = res.text.replace(/^\uFEFF/, '');
+    const header = text.split(/\r?\n/).find((l) => l.startsWith('loading'))!;
+    expect(header.startsWith('loading,envelope,node')).toBe(true);
+    expect(text).toMatch(/\nTRAFFIC,max,L0,/);
+  });
+});
