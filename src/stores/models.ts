@@ -1,6 +1,6 @@
 /** Models: a project's list, the model being shown, its editable members and pending grid edits. */
 import { defineStore } from 'pinia';
-import { computed, ref } from 'vue';
+import { computed, ref, shallowRef } from 'vue';
 import * as modelsApi from '../api/models.js';
 import { ApiError } from '../api/http.js';
 import type {
@@ -31,7 +31,8 @@ export function saveErrorMessage(err: unknown): string {
 export const useModelsStore = defineStore('models', () => {
   const byProject = ref<Record<number, ModelSummary[]>>({});
   const current = ref<ModelDetail | null>(null);
-  const members = ref<EditableMembers | null>(null);
+  /** big (one row per member): shallow, replaced whole on every load, never mutated */
+  const members = shallowRef<EditableMembers | null>(null);
   const versions = ref<ModelVersionSummary[]>([]);
   const pending = ref<Map<string, PendingEdit>>(new Map());
   const loading = ref(false);
@@ -41,6 +42,7 @@ export const useModelsStore = defineStore('models', () => {
   const stale = ref(false);
 
   const pendingCount = computed(() => pending.value.size);
+  const memberIndex = computed(() => new Map((members.value?.members ?? []).map((m) => [m.member, m])));
 
   async function loadForProject(projectId: number): Promise<void> {
     loading.value = true;
@@ -81,7 +83,7 @@ export const useModelsStore = defineStore('models', () => {
 
   function setEdit(member: string, field: EditableMemberField, value: EditValue): void {
     const next = new Map(pending.value);
-    const original = members.value?.members.find((m) => m.member === member);
+    const original = memberIndex.value.get(member);
     const before = original ? (original[field] as EditValue) : undefined;
     if (original && (before === value || (before === null && value === '') || String(before ?? '') === String(value ?? ''))) {
       next.delete(editKey(member, field));
