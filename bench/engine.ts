@@ -10,7 +10,8 @@
  */
 import { performance } from 'node:perf_hooks';
 import { analyse } from '../shared/engine/index.js';
-import type { Combination, LoadCase, Member, MemberLoad, Model, NodeLoad, Section, Support } from '../shared/model/types.js';
+import type { AnalysisResult } from '../shared/engine/types.js';
+import type { Combination, DesignCode, LoadCase, Member, MemberLoad, Model, NodeLoad, Section, Support } from '../shared/model/types.js';
 import type { RawTable } from '../shared/reader/index.js';
 
 const BAY = 6, STOREY = 3.5;
@@ -65,10 +66,33 @@ function combinations30(cases: LoadCase[]): Combination[] {
   return out;
 }
 
-/** A 3D building frame: nx × ny bays of 6 m, storeys of 3.5 m, Z up, fixed bases. */
-export function buildFrameModel(nx: number, ny: number, storeys: number): Model {
+/**
+ * Rolled shapes with the same ids, so the design checks have something to check (demo data;
+ * properties of about HEB 300, IPE 400 and a 100×100×5 hollow section, recalled, not quoted).
+ */
+function shapedSections(): Section[] {
+  const sec = (id: string, shape: Section['shape'], dims: Section['dims'], p: Partial<Section['props']>): Section => ({
+    id, shape, dims, given: [],
+    props: { A: 0, I_major: 0, I_minor: 0, J: 0, Cw: 0, S_major: 0, S_minor: 0, Z_major: 0, Z_minor: 0, Av_major: 0, Av_minor: 0, depth: 0, ...p },
+  });
+  return [
+    sec('COL', 'i', { d: 0.3, bf: 0.3, tf: 0.019, tw: 0.011, r: 0.027 }, { A: 14910e-6, I_major: 25170e-8, I_minor: 8563e-8, J: 185e-8, Cw: 1688e-9, S_major: 1678e-6, S_minor: 570.9e-6, Z_major: 1869e-6, Z_minor: 870.1e-6, Av_major: 4743e-6, Av_minor: 11400e-6, depth: 0.3 }),
+    sec('BEAM', 'i', { d: 0.4, bf: 0.18, tf: 0.0135, tw: 0.0086, r: 0.021 }, { A: 8446e-6, I_major: 23130e-8, I_minor: 1318e-8, J: 51.08e-8, Cw: 490e-9, S_major: 1156e-6, S_minor: 146.4e-6, Z_major: 1307e-6, Z_minor: 229e-6, Av_major: 4269e-6, Av_minor: 4860e-6, depth: 0.4 }),
+    sec('BR', 'rhs', { h: 0.1, b: 0.1, t: 0.005 }, { A: 1836e-6, I_major: 271e-8, I_minor: 271e-8, J: 441e-8, S_major: 54.2e-6, S_minor: 54.2e-6, Z_major: 64.6e-6, Z_minor: 64.6e-6, Av_major: 918e-6, Av_minor: 918e-6, depth: 0.1 }),
+  ];
+}
+
+/**
+ * A 3D building frame: nx × ny bays of 6 m, storeys of 3.5 m, Z up, fixed bases. With a design
+ * code the sections are rolled shapes (shapedSections) and the model asks for that code's checks.
+ */
+export function buildFrameModel(nx: number, ny: number, storeys: number, code: DesignCode = 'none'): Model {
   const m = baseModel('Z', null);
-  m.sections.push(customSection('COL', 1.5e-2, 2.5e-4, 8e-5, 2e-6, 0.35), customSection('BEAM', 8e-3, 1.6e-4, 6e-6, 4e-7, 0.45), customSection('BR', 3e-3, 1e-6, 1e-6, 1e-7, 0.1));
+  if (code === 'none') m.sections.push(customSection('COL', 1.5e-2, 2.5e-4, 8e-5, 2e-6, 0.35), customSection('BEAM', 8e-3, 1.6e-4, 6e-6, 4e-7, 0.45), customSection('BR', 3e-3, 1e-6, 1e-6, 1e-7, 0.1));
+  else {
+    m.sections.push(...shapedSections());
+    m.settings.designCode = code;
+  }
   const id = (i: number, j: number, k: number) => `N${i}_${j}_${k}`;
   for (let k = 0; k <= storeys; k++)
     for (let j = 0; j <= ny; j++)
@@ -141,6 +165,8 @@ export function buildTrussModel(panels: number): Model {
   return m;
 }
 
+const DIMS = ['d', 'bf', 'tf', 'tw', 'r', 'h', 'b', 't'];
+
 /** The model written back as raw tables (SI units in the headers), for timing the reader. */
 export function modelTables(m: Model): RawTable[] {
   const t = (name: string, header: string[], rows: (string | number)[][]): RawTable => ({ name, rows: [header, ...rows], source: 'csv' });
@@ -149,8 +175,11 @@ export function modelTables(m: Model): RawTable[] {
     t('settings', ['key', 'value'], [['units', 'metric'], ['vertical_axis', m.settings.verticalAxis]]),
     t('materials', ['material', 'E [Pa]', 'nu', 'fy [Pa]', 'fu [Pa]', 'density [kg/m3]', 'alpha [1/C]'],
       m.materials.map((x) => [x.id, x.E, x.nu, x.fy ?? '', x.fu ?? '', x.density, x.alpha])),
-    t('sections', ['section', 'shape', 'A [m2]', 'I_major [m4]', 'I_minor [m4]', 'J [m4]', 'depth [m]'],
-      m.sections.map((s) => [s.id, s.shape, s.props.A, s.props.I_major, s.props.I_minor, s.props.J, s.props.depth])),
+    // custom sections by their properties, rolled shapes by their dimensions
+    t('sections', ['section', 'shape', 'A [m2]', 'I_major [m4]', 'I_minor [m4]', 'J [m4]', 'depth [m]', ...DIMS.map((d) => `${d} [m]`)],
+      m.sections.map((s) => s.shape === 'custom'
+        ? [s.id, s.shape, s.props.A, s.props.I_major, s.props.I_minor, s.props.J, s.props.depth, ...DIMS.map(() => '')]
+        : [s.id, s.shape, '', '', '', '', '', ...DIMS.map((d) => (s.dims as Record<string, number | undefined>)[d] ?? '')])),
     t('nodes', ['node', 'x [m]', 'y [m]', 'z [m]'], m.nodes.map((n) => [n.id, n.x, n.y, n.z])),
     t('supports', ['node', 'ux', 'uy', 'uz', 'rx', 'ry', 'rz'], m.supports.map((s) => [s.node, ...s.restrained.map(b)])),
     t('members', ['member', 'start', 'end', 'section', 'material', 'type', 'group'],
@@ -165,18 +194,33 @@ export function modelTables(m: Model): RawTable[] {
   ];
 }
 
+const cpuNow = (): number => {
+  const c = process.cpuUsage();
+  return (c.user + c.system) / 1000;
+};
+
+/** CPU and wall milliseconds of one phase. */
+export interface PhaseTime {
+  cpu: number;
+  wall: number;
+}
+
 export interface EngineBenchRow {
   name: string;
   members: number;
   freedoms: number;
   cases: number;
   loadings: number;
-  buildMs: number;
-  readMs: number | null;
-  timings: Record<string, number>;
-  /** assembly + ordering + factorisation + solve */
-  coreMs: number;
-  recoveryAllMs: number;
+  phases: Record<string, PhaseTime>;
+  /** the analysis' own finer phases on the CPU clock (AnalyseOptions.clock) */
+  finePhases: Record<string, number>;
+  /** the solver's own wall split */
+  orderingWallMs: number;
+  factorisationWallMs: number;
+  /** assembly + loads + ordering + factorisation + solve */
+  core: PhaseTime;
+  recoveryCalls: number;
+  checkEvaluations: number;
   nnzK: number;
   nnzFactor: number;
   peakRssMb: number;
@@ -184,50 +228,94 @@ export interface EngineBenchRow {
 }
 
 type ReadTables = (tables: RawTable[]) => { ok: boolean };
+type CheckModel = (model: Model, analysis: AnalysisResult) => { diagnostics: { evaluations: number } };
 
-/** Analyse one synthetic model and time every phase. `read` = the reader, when available. */
-export function benchEngine(name: string, build: () => Model, read: ReadTables | null, recover = true): EngineBenchRow {
-  let t = performance.now();
+export interface EngineBenchOptions {
+  /** the reader, to time read/validate on the model written back as tables */
+  read?: ReadTables | null;
+  /** recover every member for every loading */
+  recover?: boolean;
+  /** the design checks (checkModel), when the model has a design code */
+  check?: CheckModel | null;
+}
+
+/** Analyse one synthetic model and time every phase, CPU (user + system, all threads) and wall. */
+export function benchEngine(name: string, build: () => Model, opts: EngineBenchOptions = {}): EngineBenchRow {
+  const phases: Record<string, PhaseTime> = {};
+  let c0 = cpuNow(), w0 = performance.now();
+  const lap = (phase: string) => {
+    const c = cpuNow(), w = performance.now();
+    phases[phase] = { cpu: c - c0, wall: w - w0 };
+    c0 = c; w0 = w;
+  };
   const model = build();
-  const buildMs = performance.now() - t;
-  let readMs: number | null = null;
-  if (read) {
+  lap('build (synthetic model)');
+  if (opts.read) {
     const tables = modelTables(model);
-    t = performance.now();
-    const res = read(tables);
-    readMs = performance.now() - t;
+    c0 = cpuNow(); w0 = performance.now();
+    const res = opts.read(tables);
+    lap('read/validate');
     if (!res.ok) throw new Error(`${name}: the generated tables did not read: ${JSON.stringify((res as { problems?: unknown[] }).problems?.slice(0, 3))}`);
   }
-  const r = analyse(model);
+  const fine: Record<string, number> = {};
+  c0 = cpuNow(); w0 = performance.now();
+  const r = analyse(model, { clock: { now: cpuNow, timings: fine } });
+  lap('analyse');
   const tm = r.diagnostics.timings;
-  let recoveryAllMs = 0;
-  if (recover) {
-    t = performance.now();
+  const cpuOf = (...keys: string[]) => keys.reduce((a, k) => a + (fine[k] ?? 0), 0);
+  const wallOf = (...keys: string[]) => keys.reduce((a, k) => a + (tm[k] ?? 0), 0);
+  const eng = (label: string, cpuKeys: string[], wallKeys: string[]) => { phases[label] = { cpu: cpuOf(...cpuKeys), wall: wallOf(...wallKeys) }; };
+  eng('mesh + load sets', ['mesh', 'model'], ['model']);
+  eng('assembly', ['element matrices', 'free freedoms', 'spin modes', 'pattern', 'assembly'], ['assembly']);
+  eng('loads (fixed-end forces, load block)', ['loads'], ['loads']);
+  eng('ordering + factorisation', ['ordering+factorisation'], ['ordering', 'factorisation']);
+  eng(`solve (${r.diagnostics.cases} cases, one block)`, ['solve'], ['solve']);
+  eng('displacements, reactions, equilibrium', ['displacements', 'reactions', 'recovery'], ['recovery']);
+  if (tm.moving !== undefined) eng('moving loads', ['moving'], ['moving']);
+  const core = {
+    cpu: cpuOf('element matrices', 'free freedoms', 'spin modes', 'pattern', 'assembly', 'loads', 'ordering+factorisation', 'solve'),
+    wall: wallOf('assembly', 'loads', 'ordering', 'factorisation', 'solve'),
+  };
+  let recoveryCalls = 0;
+  if (opts.recover !== false) {
+    c0 = cpuNow(); w0 = performance.now();
     let sink = 0;
     for (let mi = 0; mi < r.memberIds.length; mi++) {
       for (let l = 0; l < r.loadings.length; l++) sink += r.memberForces(mi, l).M_major[0];
     }
-    recoveryAllMs = performance.now() - t;
+    recoveryCalls = r.memberIds.length * r.loadings.length;
+    lap('recovery (every member × every loading)');
     if (!Number.isFinite(sink)) throw new Error('non-finite member forces');
+  }
+  let checkEvaluations = 0;
+  if (opts.check && model.settings.designCode !== 'none') {
+    c0 = cpuNow(); w0 = performance.now();
+    checkEvaluations = opts.check(model, r).diagnostics.evaluations;
+    lap(`checks (${model.settings.designCode})`);
   }
   return {
     name, members: model.members.length, freedoms: r.diagnostics.freedoms, cases: r.diagnostics.cases, loadings: r.loadings.length,
-    buildMs, readMs, timings: tm,
-    coreMs: (tm.assembly ?? 0) + (tm.loads ?? 0) + (tm.ordering ?? 0) + (tm.factorisation ?? 0) + (tm.solve ?? 0),
-    recoveryAllMs, nnzK: r.diagnostics.nnzK, nnzFactor: r.diagnostics.nnzFactor,
+    phases, finePhases: fine, orderingWallMs: tm.ordering ?? 0, factorisationWallMs: tm.factorisation ?? 0, core,
+    recoveryCalls, checkEvaluations, nnzK: r.diagnostics.nnzK, nnzFactor: r.diagnostics.nnzFactor,
     peakRssMb: process.resourceUsage().maxRSS / 1024,
     maxResidual: Math.max(...r.diagnostics.equilibrium.map((e) => e.residual)),
   };
 }
 
+const ms = (v: number) => v.toFixed(0).padStart(8);
+
 export function printEngineRow(r: EngineBenchRow): void {
-  const f = (v: number | null | undefined) => (v === null || v === undefined ? '   -' : v.toFixed(0).padStart(6));
-  const tm = r.timings;
-  console.log(
-    `${r.name.padEnd(26)} members ${String(r.members).padStart(6)}  freedoms ${String(r.freedoms).padStart(7)}  ` +
-    `build ${f(r.buildMs)}  read ${f(r.readMs)}  model ${f(tm.model)}  assembly ${f(tm.assembly)}  loads ${f(tm.loads)}  ` +
-    `ordering ${f(tm.ordering)}  factor ${f(tm.factorisation)}  solve(${r.cases}) ${f(tm.solve)}  reactions/eq ${f(tm.recovery)}  ` +
-    `core ${f(r.coreMs)} ms  recovery(all members × ${r.loadings}) ${f(r.recoveryAllMs)} ms  nnzK ${r.nnzK}  nnzL ${r.nnzFactor}  ` +
-    `peak RSS ${r.peakRssMb.toFixed(0)} MB  max equilibrium residual ${r.maxResidual.toExponential(1)}`,
-  );
+  console.log(`\n${r.name}: ${r.members} members, ${r.freedoms} freedoms, ${r.cases} cases, ${r.loadings} loadings`);
+  console.log(`  ${'phase'.padEnd(42)}${'CPU ms'.padStart(8)}${'wall ms'.padStart(9)}`);
+  const skip = new Set(['analyse']);
+  for (const [k, v] of Object.entries(r.phases)) {
+    if (skip.has(k)) continue;
+    let note = '';
+    if (k.startsWith('ordering')) note = `   solver's wall split: ordering ${r.orderingWallMs.toFixed(0)}, factorisation ${r.factorisationWallMs.toFixed(0)}`;
+    if (k.startsWith('recovery') && r.recoveryCalls) note = `   ${r.recoveryCalls} calls, ${((v.cpu * 1000) / r.recoveryCalls).toFixed(2)} µs CPU per call`;
+    if (k.startsWith('checks') && r.checkEvaluations) note = `   ${r.checkEvaluations} member-loading checks, ${Math.round(r.checkEvaluations / (v.cpu / 1000)).toLocaleString('en-US')} per CPU second`;
+    console.log(`  ${k.padEnd(42)}${ms(v.cpu)} ${ms(v.wall)}${note}`);
+  }
+  console.log(`  ${'core (assembly → solve)'.padEnd(42)}${ms(r.core.cpu)} ${ms(r.core.wall)}`);
+  console.log(`  nnz K ${r.nnzK}, nnz L ${r.nnzFactor}, peak RSS so far ${r.peakRssMb.toFixed(0)} MB, max equilibrium residual ${r.maxResidual.toExponential(1)}`);
 }

@@ -11,10 +11,10 @@ import { localStiffness, toGlobalStiffness, trussGlobalStiffness } from './eleme
 import { fixedEndForces } from './fixedEnd.js';
 import { instabilityAt } from './instability.js';
 import { findSpinModes } from './spinModes.js';
+import { Stopwatch } from './stopwatch.js';
 import { clipLoadSet, type LoadSet } from './loadSet.js';
 import { buildLoadSets } from './memberLoads.js';
 
-const now = () => performance.now();
 
 export interface LinearSystem {
   mesh: Mesh;
@@ -47,10 +47,11 @@ export function elementLocal(mesh: Mesh, e: number, kl: Float64Array): Float64Ar
   );
 }
 
-export function buildSystem(model: Model, taperSegments: number, timings: Record<string, number>): LinearSystem {
-  let t = now();
+export function buildSystem(model: Model, taperSegments: number, timing: Stopwatch | Record<string, number>): LinearSystem {
+  const sw = timing instanceof Stopwatch ? timing : new Stopwatch(timing);
 
   const mesh = buildMesh(model, { taperSegments });
+  sw.fine('mesh');
   const nodeIndex = new Map<string, number>(model.nodes.map((n, i) => [n.id, i]));
   const caseIndex = new Map<string, number>();
   model.cases.forEach((c, i) => {
@@ -60,8 +61,7 @@ export function buildSystem(model: Model, taperSegments: number, timings: Record
   const nCases = model.cases.length;
   const loadSets = buildLoadSets(model, mesh.members, caseIndex);
   const nNodes = mesh.nNodes, nDofAll = nNodes * 6, nEl = mesh.nElements;
-  timings.model = now() - t;
-  t = now();
+  sw.lap('model');
 
   // element matrices in global axes
   const kgAll = new Float64Array(nEl * 144);
@@ -75,6 +75,7 @@ export function buildSystem(model: Model, taperSegments: number, timings: Record
       toGlobalStiffness(kl, m.R, kgAll, tmp, e * 144);
     }
   }
+  sw.fine('element matrices');
   // freedoms without any stiffness
   const diag = Float64Array.from(mesh.springs);
   for (let e = 0; e < nEl; e++) {
@@ -104,9 +105,12 @@ export function buildSystem(model: Model, taperSegments: number, timings: Record
     if (g % 6 >= 3) status[g] = NO_STIFFNESS;
     else throw instabilityAt(mesh.nodeNames[Math.floor(g / 6)], g % 6);
   }
+  sw.fine('free freedoms');
   const spins = findSpinModes(mesh, kgAll, status);
+  sw.fine('spin modes');
   const { eq, nEq, eqDof } = numberEquations(status);
   const pat = buildPattern(nNodes, mesh.elStart, mesh.elEnd, eq, nEq);
+  sw.fine('pattern');
   for (let e = 0; e < nEl; e++) addElement(pat, eq, e, mesh.elStart[e], mesh.elEnd[e], kgAll, e * 144);
   addSprings(pat, eq, mesh.springs);
   for (const sp of spins) {
@@ -119,8 +123,7 @@ export function buildSystem(model: Model, taperSegments: number, timings: Record
       });
     });
   }
-  timings.assembly = now() - t;
-  t = now();
+  sw.lap('assembly');
 
   // fixed-end forces (local) per loaded element and case
   const fefCache: (Float64Array | undefined)[] = new Array(nEl * nCases);
@@ -219,6 +222,6 @@ export function buildSystem(model: Model, taperSegments: number, timings: Record
       }
     }
   }
-  timings.loads = now() - t;
+  sw.lap('loads');
   return { mesh, nodeIndex, caseIndex, nCases, loadSets, kgAll, status, eq, nEq, eqDof, pat, F, presc, fefOf };
 }
