@@ -195,3 +195,15 @@ describe('import files and run display', () => {
     expect(formatDuration(75_000)).toBe('1 min 15 s');
   });
 });
+
+describe('breadcrumbs of the model pages', () => {
+  it('leads from the projects through the project and the model to the member', async () => {
+    const { breadcrumbsFor } = await import('../../src/utils/breadcrumbs.js');
+    const model = { id: 4, name: 'Beam', projectId: 2 };
+    const member = breadcrumbsFor({ routeName: 'member', params: { runId: '9', member: 'M1' }, projectName: 'Bridge', model });
+    expect(member.map((c) => c.title)).toEqual(['Projects', 'Bridge', 'Beam', 'Member M1']);
+    expect(member[2].to).toEqual({ name: 'model', params: { id: 4 } });
+    expect(breadcrumbsFor({ routeName: 'model', params: { id: '4' }, model }).map((c) => c.title)).toEqual(['Projects', 'Project 2', 'Beam']);
+    expect(breadcrumbsFor({ routeName: 'import', params: { id: '2' }, projectName: 'Bridge' }).map((c) => c.title)).toEqual(['Projects', 'Bridge', 'Import']);
+  });
+});
