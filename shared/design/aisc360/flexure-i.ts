@@ -1,8 +1,8 @@
 /**
  * AISC 360-22 F2 (doubly symmetric compact I-shaped members and channels, major axis) and
  * F3 (doubly symmetric I-shaped members with compact webs and noncompact or slender
- * flanges, major axis). Noncompact or slender webs (F4, F5) and noncompact channels are
- * `not checked`.
+ * flanges, major axis). Noncompact or slender webs of doubly symmetric I-shapes: F4 / F5
+ * (flexure-i-web.ts); channels outside F2 are `not checked`.
  */
 import { inp, notCheckedHead } from '../record.js';
 import type { DesignGeometry } from '../geometry.js';
@@ -10,6 +10,7 @@ import { AISC_FACTORS, factorOn } from './factors.js';
 import { flexureClassOf, flexureElements, kcOf } from './classification.js';
 import type { AiscContext } from './context.js';
 import type { FlexureCapacity } from './flexure.js';
+import { flexureWebF4F5 } from './flexure-i-web.js';
 
 export interface LtbLengths {
   Lp: number;
@@ -39,7 +40,10 @@ export function flexureMajorI(g: DesignGeometry, cx: AiscContext, Lb: number): F
   const fl = flexureClassOf(flange);
   const wc = flexureClassOf(web);
   const nc = (clause: string, reason: string): FlexureCapacity => ({ head: notCheckedHead('bending_major', cx.code, clause, 'flexure, major axis', reason), factor, Mcap: NaN, M1: Infinity, ltb: '' });
-  if (wc !== 'compact') return nc(wc === 'noncompact' ? 'F4' : 'F5', `${wc} web (h/tw = ${web.ratio.toFixed(1)}): ${wc === 'noncompact' ? 'F4' : 'F5'} not implemented`);
+  if (wc !== 'compact') {
+    if (g.shape === 'i') return flexureWebF4F5(g, cx, Lb, flange, web, nc);
+    return nc(wc === 'noncompact' ? 'F4' : 'F5', `channel with a ${wc} web (h/tw = ${web.ratio.toFixed(1)}): outside F2, not implemented`);
+  }
   if (g.shape === 'channel' && fl !== 'compact') return nc('F2', `channel with ${fl} flanges (bf/tf = ${flange.ratio.toFixed(1)}): outside F2, not implemented`);
   const clause = fl === 'compact' ? 'F2' : 'F3';
   const Mp = Fy * g.Zmaj;
