@@ -3,6 +3,7 @@
  * supports, the loads of that loading (factored and summed for a combination) and node
  * displacements. Pure.
  */
+import { pictureVehicles } from '../moving/picture.js';
 import type { CheckStatus } from '../design/types.js';
 import type { Model } from '../model/types.js';
 import type { LoadingInfo, RunGeometry } from '../schemas/runs.js';
@@ -54,6 +55,7 @@ export function runGeometry(input: GeometryInput): RunGeometry {
     const d = Math.hypot(displacements[i * 6] ?? 0, displacements[i * 6 + 1] ?? 0, displacements[i * 6 + 2] ?? 0);
     if (d > maxDisplacement) maxDisplacement = d;
   }
+  const moving = pictureVehicles(model);
   return {
     runId: input.runId,
     units: model.settings.units,
@@ -79,5 +81,6 @@ export function runGeometry(input: GeometryInput): RunGeometry {
     memberLoads,
     displacements: Array.from(displacements.subarray(0, model.nodes.length * 6)),
     maxDisplacement,
+    ...(moving ? { moving } : {}),
   };
 }

@@ -219,6 +219,12 @@ export const runGeometrySchema = z.object({
   /** per node ux, uy, uz, rx, ry, rz of the chosen loading (flattened, m and rad) */
   displacements: z.array(z.number()),
   maxDisplacement: z.number(),
+  /** moving loads (shared/moving/picture.ts): lanes, vehicles, which vehicle runs where; SI */
+  moving: z.object({
+    lanes: z.array(z.object({ lane: z.string(), length: z.number(), points: z.array(z.tuple([z.number(), z.number(), z.number()])), s: z.array(z.number()) })),
+    vehicles: z.array(z.object({ vehicle: z.string(), axles: z.array(z.object({ offset: z.number(), load: z.number() })) })),
+    movingLoads: z.array(z.object({ case: z.string(), vehicle: z.string(), lane: z.string() })),
+  }).optional(),
 });
 export type RunGeometry = z.infer<typeof runGeometrySchema>;
 
