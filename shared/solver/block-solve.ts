@@ -2,7 +2,8 @@
  * Forward and back substitution with a supernodal Cholesky factor for a block of
  * right-hand sides at once. The work array is row-major (the nrhs values of one freedom
  * are adjacent); the products with the rows below each diagonal block are accumulated in
- * registers two factor rows (or columns) by four load cases at a time.
+ * registers two factor rows (or columns) by four load cases at a time. With the SIMD kernels
+ * every row of the substitution is one call of their gather kernel instead.
  */
 import type { NumericFactor } from './numeric.js';
 import type { SymbolicFactor } from './symbolic.js';

@@ -4,8 +4,10 @@
  * as dense products and scattered through a row map. Pivots are checked against the
  * original diagonal so that mechanisms are reported instead of producing garbage.
  *
- * The dense kernels are dot products over rows held contiguously, blocked two rows by two
- * columns so that each loaded value is used twice, and tiled so the reused rows stay in cache.
+ * The dense kernels are dot products over rows held contiguously, tiled so the reused rows
+ * stay in cache. They run as WebAssembly SIMD (simd-kernels.ts: four rows by two columns,
+ * two products per instruction) with the factor in the kernels' memory; where that is not
+ * available, the TypeScript kernels below (two rows by two columns) do the same work.
  */
 import { simdKernels, type SimdKernels } from './simd-kernels.js';
 import type { SymbolicFactor } from './symbolic.js';
