@@ -5,8 +5,9 @@
  * d − tf − r treated as an outstand in compression (conservative); RHS walls outside − 3t;
  * CHS d/t with limits 50ε², 70ε², 90ε². Solid bars are class 1. Limits: internal parts in
  * compression 33ε/38ε/42ε, in bending 72ε/83ε/124ε; outstands in compression 9ε/10ε/14ε.
- * Combined axial force and bending use the worse of the compression and bending classes
- * (conservative simplification of the stress-distribution rows of Table 5.2).
+ * These are the pure-compression and pure-bending classes; under combined axial force and
+ * bending, I/H and RHS webs are classified station by station from α and ψ
+ * (stress-class.ts), other shapes take the worse of the two (conservative).
  */
 import type { DesignGeometry } from '../geometry.js';
 import { epsilon } from './context.js';

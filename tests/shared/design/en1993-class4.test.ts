@@ -180,3 +180,47 @@ describe('6.2.7 torsion of closed hollow sections', () => {
     expect(r.status).toBe('not checked');
   });
 });
+
+describe('class 4 flanges (welded I 400×400, tf = 10, tw = 8, S355)', () => {
+  // closed form: A = 2·400·10 + 380·8 = 11 040 mm²; Iy = 2(400·10³/12 + 4000·195²) + 8·380³/12 = 3.40848e8 mm⁴;
+  // Iz = 2·10·400³/12 + 380·8³/12 = 1.0668288e8 mm⁴; flange outstand c = 196, c/t = 19.6 > 14ε = 11.39 (class 4)
+  const s = () => section('i', { d: 400, bf: 400, tf: 10, tw: 8 }, { A: 11040, I_major: 3.40848e8, I_minor: 1.0668288e8, J: 3.3e5, Cw: 3.9e12, S_major: 1.70424e6, S_minor: 5.334144e5, Z_major: 1.9e6, Z_minor: 8.1e5 }, 0.001);
+  it('compression: flange λ̄p = 19.6/(28.4·0.8136·√0.43) = 1.2936, ρ = (1.2936 − 0.188)/1.2936² = 0.6607 (4.3); web c/t = 47.5, λ̄p = 1.0278, ρ = (1.0278 − 0.22)/1.0278² = 0.7647; Aeff = 11040 − 4·0.3393·196·10 − 0.2353·380·8 = 7664.6 mm²', () => {
+    expect(close(effectiveSection(designGeometry(s()), 355e6)!.Aeff * 1e6, 7664.6, 0.001)).toBe(true);
+  });
+  it('major bending: compression flange loses 2·0.3393·196·10 = 1330.0 mm² at z = 195; centroid with gross web −26.71 mm, web ψ = −163.29/216.71 = −0.7535, kσ = 18.10, λ̄p = 0.483 → ρ = 1; zc = −26.71, Ieff = 3.40848e8 − 1330.0·195² − 9710·26.71² = 2.8335e8 mm⁴, Weff,y = Ieff/226.71 = 1.2498e6 mm³', () => {
+    const e = effectiveSection(designGeometry(s()), 355e6)!;
+    expect(e.major.rhoWeb).toBe(1);
+    expect(close(e.major.psiWeb, -0.7535, 0.001)).toBe(true);
+    expect(close(e.major.W * 1e9, 1.2498e6, 0.001)).toBe(true);
+    expect(close(bendingResistance(designGeometry(s()), S355, 'major').Mc / 1e3, (1.2498e6 * 355) / 1e6, 0.001)).toBe(true);
+  });
+  it('minor bending: outstands with the free edge in compression, ψ = 4/200 = 0.02, kσ = 0.57 − 0.0042 + 0.00003 = 0.5658 (Table 4.2), λ̄p = 1.1277, ρ = 0.7390; tips of 51.17 mm removed from both flanges on the compression side: yc = −17.82 mm, Ieff = 7.2149e7 mm⁴, Weff,z = Ieff/217.82 = 3.3123e5 mm³', () => {
+    const e = effectiveSection(designGeometry(s()), 355e6)!;
+    expect(close(e.minor.rhoFlange, 0.739, 0.001)).toBe(true);
+    expect(close(e.minor.W * 1e9, 3.3123e5, 0.001)).toBe(true);
+  });
+  it('a member of this section is checked in compression, bending and 6.3.3 (no class 4 gap); LTB uses Weff,y', () => {
+    const L = 5;
+    const plan = enPlan(designGeometry(s()), S355, { id: 'H', length: L, truss: false, LcMajor: L, LcMinor: L, Lb: L, cantilever: false });
+    const recs = plan.records(stations(L, { N: () => -300e3, M_major: (x) => 50e3 * x * (L - x) / 2, V_major: (x) => 50e3 * (L / 2 - x), M_minor: () => 5e3 }), 'ULS1').filter((r) => r);
+    for (const r of recs) expect(r!.status).not.toBe('not checked');
+    const ltb = recs.find((r) => r!.title === 'lateral-torsional buckling')!;
+    expect(close(Number(ltb.inputs.find((i) => i.symbol === 'Wy')!.value) * 1e9, 1.2498e6, 0.001)).toBe(true);
+  });
+});
+
+describe('RHS webs under N + My (Table 5.2 with α, ψ)', () => {
+  // RHS 300×100×6 S355: width walls c/t = (100 − 18)/6 = 13.7 ≤ 33ε = 26.8 (class 1); depth walls c/t = (300 − 18)/6 = 47.0 > 42ε = 34.2 (class 4 in compression)
+  const s = () => section('rhs', { h: 300, b: 100, t: 6 }, { A: 4656, I_major: 4.9e7, I_minor: 8.9e6, J: 2.6e7, S_major: 3.27e5, S_minor: 1.78e5, Z_major: 4.1e5, Z_minor: 2.0e5 }, 0.001);
+  it('pure compression class 4; with My = 50 kNm and N = 20 kN: zn = N·(Wpl/2t)/(M + √(M² + N²·Wpl/2t)) = 6.82 mm, α = 0.5 + 6.82/282 = 0.5242, 396ε/(13α − 1) = 322.2/5.815 = 55.4 ≥ 47.0 → class 1', () => {
+    const g = designGeometry(s());
+    const p = stressClassPlan(g, 355e6);
+    expect(stationClass(p, 20e3, 0, false)).toBe(4);
+    // Wpl/2t = 4.1e5/12 = 34 167 mm²: zn = 20e3·34167/(50e6 + √(2.5e15 + 4e8·34167)) = 6.83e8/(5e7 + 5.0137e7) = 6.82 mm
+    expect(close(webAlpha(p, 20e3, 50e3), 0.5 + 6.82 / 282, 0.002)).toBe(true);
+    expect(stationClass(p, 20e3, 50e3, false)).toBe(1);
+    // a minor-axis moment puts a depth wall in compression: conservative pure-compression class
+    expect(stationClass(p, 20e3, 50e3, true)).toBe(4);
+  });
+});
