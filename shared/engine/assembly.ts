@@ -118,20 +118,8 @@ export function addElement(
   const off = pat.elOffset[e];
   const nfLo = nFree[lo];
   // self blocks
-  for (const [node, base] of [[lo, loBase], [hi, hiBase]] as const) {
-    const f0 = firstEq[node];
-    for (let kc = 0; kc < 6; kc++) {
-      const ec = eq[node * 6 + kc];
-      if (ec < 0) continue;
-      const rc = ec - f0;
-      const cp = colPtr[ec];
-      for (let kr = kc; kr < 6; kr++) {
-        const er = eq[node * 6 + kr];
-        if (er < 0) continue;
-        values[cp + (er - f0) - rc] += kg[kgOff + (base + kr) * 12 + base + kc];
-      }
-    }
-  }
+  addSelfBlock(values, colPtr, eq, firstEq[lo], lo, loBase, kg, kgOff);
+  addSelfBlock(values, colPtr, eq, firstEq[hi], hi, hiBase, kg, kgOff);
   // coupling block: columns of lo, rows of hi
   const fLo = firstEq[lo], fHi = firstEq[hi];
   for (let kc = 0; kc < 6; kc++) {
@@ -142,6 +130,23 @@ export function addElement(
       const er = eq[hi * 6 + kr];
       if (er < 0) continue;
       values[start + (er - fHi)] += kg[kgOff + (hiBase + kr) * 12 + loBase + kc];
+    }
+  }
+}
+
+/** The lower triangle of one node's own 6×6 block of an element matrix (rows/columns base..base+5). */
+function addSelfBlock(
+  values: Float64Array, colPtr: Int32Array, eq: Int32Array, f0: number, node: number, base: number, kg: Float64Array, kgOff: number,
+): void {
+  for (let kc = 0; kc < 6; kc++) {
+    const ec = eq[node * 6 + kc];
+    if (ec < 0) continue;
+    const rc = ec - f0;
+    const cp = colPtr[ec];
+    for (let kr = kc; kr < 6; kr++) {
+      const er = eq[node * 6 + kr];
+      if (er < 0) continue;
+      values[cp + (er - f0) - rc] += kg[kgOff + (base + kr) * 12 + base + kc];
     }
   }
 }

@@ -56,15 +56,9 @@ export function symmetricEigen(a: number[], n: number): { values: number[]; vect
   return { values, vectors };
 }
 
-export function findSpinModes(mesh: Mesh, kgAll: Float64Array, status: Uint8Array): SpinMode[] {
+/** blocks: per node, the 3×3 rotation block (row-major) summed over its elements. */
+export function findSpinModes(mesh: Mesh, blocks: Float64Array, status: Uint8Array): SpinMode[] {
   const nNodes = mesh.nNodes;
-  const blocks = new Float64Array(nNodes * 9);
-  for (let e = 0; e < mesh.nElements; e++) {
-    const o = e * 144;
-    for (const [node, base] of [[mesh.elStart[e], 3], [mesh.elEnd[e], 9]] as const) {
-      for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) blocks[node * 9 + i * 3 + j] += kgAll[o + (base + i) * 12 + base + j];
-    }
-  }
   const modes: SpinMode[] = [];
   for (let n = 0; n < nNodes; n++) {
     const dofs = [3, 4, 5].filter((k) => status[n * 6 + k] === FREE);

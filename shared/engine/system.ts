@@ -22,8 +22,8 @@ export interface LinearSystem {
   caseIndex: Map<string, number>;
   nCases: number;
   loadSets: (LoadSet | undefined)[];
-  /** global element matrices, 144 per element, row-major */
-  kgAll: Float64Array;
+  /** global element matrices, 144 per element, row-major; computed on first use (elementGlobal gives one) */
+  readonly kgAll: Float64Array;
   status: Uint8Array;
   eq: Int32Array;
   nEq: number;
@@ -47,6 +47,16 @@ export function elementLocal(mesh: Mesh, e: number, kl: Float64Array): Float64Ar
   );
 }
 
+/** Global 12×12 stiffness (row-major) of element e into kg at off; kl and tmp are 144-long scratch. */
+export function elementGlobal(mesh: Mesh, e: number, kg: Float64Array, off: number, kl: Float64Array, tmp: Float64Array): void {
+  const m = mesh.members[mesh.elMember[e]];
+  if (m.truss) trussGlobalStiffness(mesh.elProps[e * 5] / mesh.elL[e], m.R, kg, off);
+  else {
+    elementLocal(mesh, e, kl);
+    toGlobalStiffness(kl, m.R, kg, tmp, off);
+  }
+}
+
 export function buildSystem(model: Model, taperSegments: number, timing: Stopwatch | Record<string, number>): LinearSystem {
   const sw = timing instanceof Stopwatch ? timing : new Stopwatch(timing);
 
@@ -63,28 +73,29 @@ export function buildSystem(model: Model, taperSegments: number, timing: Stopwat
   const nNodes = mesh.nNodes, nDofAll = nNodes * 6, nEl = mesh.nElements;
   sw.lap('model');
 
-  // element matrices in global axes
-  const kgAll = new Float64Array(nEl * 144);
-  const kl = new Float64Array(144), tmp = new Float64Array(144);
+  // element matrices in global axes, one at a time (never all stored: first touch of a large
+  // fresh array costs more than computing a matrix again): diagonal and rotation blocks here,
+  // the global matrix in a second pass once the freedoms are numbered
+  const kl = new Float64Array(144), tmp = new Float64Array(144), ke = new Float64Array(144);
+  const diag = Float64Array.from(mesh.springs);
+  const rotBlocks = new Float64Array(nNodes * 9);
   for (let e = 0; e < nEl; e++) {
-    const m = mesh.members[mesh.elMember[e]];
-    if (m.truss) {
-      trussGlobalStiffness(mesh.elProps[e * 5] / mesh.elL[e], m.R, kgAll, e * 144);
-    } else {
-      elementLocal(mesh, e, kl);
-      toGlobalStiffness(kl, m.R, kgAll, tmp, e * 144);
+    elementGlobal(mesh, e, ke, 0, kl, tmp);
+    const a = mesh.elStart[e] * 6, b = mesh.elEnd[e] * 6;
+    for (let k = 0; k < 6; k++) {
+      diag[a + k] += ke[k * 13];
+      diag[b + k] += ke[(6 + k) * 13];
+    }
+    if (mesh.members[mesh.elMember[e]].truss) continue;
+    const ra = mesh.elStart[e] * 9, rb = mesh.elEnd[e] * 9;
+    for (let i = 0; i < 3; i++) {
+      for (let j = 0; j < 3; j++) {
+        rotBlocks[ra + i * 3 + j] += ke[(3 + i) * 12 + 3 + j];
+        rotBlocks[rb + i * 3 + j] += ke[(9 + i) * 12 + 9 + j];
+      }
     }
   }
   sw.fine('element matrices');
-  // freedoms without any stiffness
-  const diag = Float64Array.from(mesh.springs);
-  for (let e = 0; e < nEl; e++) {
-    const a = mesh.elStart[e] * 6, b = mesh.elEnd[e] * 6, o = e * 144;
-    for (let k = 0; k < 6; k++) {
-      diag[a + k] += kgAll[o + k * 13];
-      diag[b + k] += kgAll[o + (6 + k) * 13];
-    }
-  }
   const status = mesh.status;
   // pin joints: every member meeting the node is a truss or has both bending moments released
   // there. Torsion cannot pass a pin, so the node's rotations carry nothing: they are removed
@@ -106,12 +117,15 @@ export function buildSystem(model: Model, taperSegments: number, timing: Stopwat
     else throw instabilityAt(mesh.nodeNames[Math.floor(g / 6)], g % 6);
   }
   sw.fine('free freedoms');
-  const spins = findSpinModes(mesh, kgAll, status);
+  const spins = findSpinModes(mesh, rotBlocks, status);
   sw.fine('spin modes');
   const { eq, nEq, eqDof } = numberEquations(status);
   const pat = buildPattern(nNodes, mesh.elStart, mesh.elEnd, eq, nEq);
   sw.fine('pattern');
-  for (let e = 0; e < nEl; e++) addElement(pat, eq, e, mesh.elStart[e], mesh.elEnd[e], kgAll, e * 144);
+  for (let e = 0; e < nEl; e++) {
+    elementGlobal(mesh, e, ke, 0, kl, tmp);
+    addElement(pat, eq, e, mesh.elStart[e], mesh.elEnd[e], ke, 0);
+  }
   addSprings(pat, eq, mesh.springs);
   for (const sp of spins) {
     // k·v·vᵀ on the node's free rotations (lower triangle of its own block)
@@ -212,16 +226,26 @@ export function buildSystem(model: Model, taperSegments: number, timing: Stopwat
       let any = false;
       for (let k = 0; k < 6; k++) { ue[k] = u[a + k]; ue[6 + k] = u[b + k]; any ||= ue[k] !== 0 || ue[6 + k] !== 0; }
       if (!any) continue;
-      const o = e * 144;
+      elementGlobal(mesh, e, ke, 0, kl, tmp);
       for (let i = 0; i < 12; i++) {
         const gi = i < 6 ? a + i : b + i - 6;
         if (eq[gi] < 0) continue;
         let s = 0;
-        for (let j = 0; j < 12; j++) s += kgAll[o + i * 12 + j] * ue[j];
+        for (let j = 0; j < 12; j++) s += ke[i * 12 + j] * ue[j];
         F[c * nEq + eq[gi]] -= s;
       }
     }
   }
   sw.lap('loads');
-  return { mesh, nodeIndex, caseIndex, nCases, loadSets, kgAll, status, eq, nEq, eqDof, pat, F, presc, fefOf };
+  let kgCache: Float64Array | undefined;
+  return {
+    mesh, nodeIndex, caseIndex, nCases, loadSets, status, eq, nEq, eqDof, pat, F, presc, fefOf,
+    get kgAll(): Float64Array {
+      if (!kgCache) {
+        kgCache = new Float64Array(nEl * 144);
+        for (let e = 0; e < nEl; e++) elementGlobal(mesh, e, kgCache, e * 144, kl, tmp);
+      }
+      return kgCache;
+    },
+  };
 }
