@@ -310,9 +310,15 @@ export async function getRunMembers(ds: DataSource, id: number): Promise<RunMemb
   };
 }
 
+/** A loading's key in `?loading=`: its id, with `@max` / `@min` for a moving-load envelope. */
+export function loadingKey(l: LoadingInfo): string {
+  return l.envelope ? `${l.id}@${l.envelope}` : l.id;
+}
+
 function loadingIndex(loadings: LoadingInfo[], wanted: string | undefined, fallback: number): number {
   if (wanted === undefined || wanted === '') return fallback;
-  const i = loadings.findIndex((l) => l.id === wanted);
+  let i = loadings.findIndex((l) => loadingKey(l) === wanted);
+  if (i < 0) i = loadings.findIndex((l) => l.id === wanted);
   if (i < 0) throw badRequest(`loading: "${wanted}" is neither a load case nor a combination of this run`);
   return i;
 }
@@ -349,8 +355,8 @@ export async function getMemberDetail(ds: DataSource, id: number, memberId: stri
     end: m.end,
     type: m.type,
     loadings,
-    loading: loadings[chosen]?.id ?? '',
-    governing: governing >= 0 ? loadings[governing].id : '',
+    loading: loadings[chosen] ? loadingKey(loadings[chosen]) : '',
+    governing: governing >= 0 ? loadingKey(loadings[governing]) : '',
     stations: detail.stations,
     governingRecords: detail.governingRecords as MemberDetail['governingRecords'],
     loadingRecords: detail.loadingRecords as MemberDetail['loadingRecords'],

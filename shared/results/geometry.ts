@@ -62,7 +62,7 @@ export function runGeometry(input: GeometryInput): RunGeometry {
     verticalAxis: model.settings.verticalAxis,
     planeFrame: model.inferred.planeFrame,
     loadings,
-    loading: loading.id,
+    loading: loading.envelope ? `${loading.id}@${loading.envelope}` : loading.id,
     nodes: model.nodes.map((n) => [n.id, n.x, n.y, n.z] as [string, number, number, number]),
     members: model.members.map((m) => {
       const r = ratios.get(m.id);

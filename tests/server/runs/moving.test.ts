@@ -39,3 +39,17 @@ describe('moving loads over the API', () => {
     expect(text).toMatch(/\nTRAFFIC,max,L0,/);
   });
 });
+
+describe('choosing an envelope loading', () => {
+  it('takes `id@min` in ?loading= and answers with the same key', async () => {
+    const max = await t.as('engineer').get(`/api/runs/${runId}/members/BC4?loading=${encodeURIComponent('ULS-traffic@max')}`);
+    const min = await t.as('engineer').get(`/api/runs/${runId}/members/BC4?loading=${encodeURIComponent('ULS-traffic@min')}`);
+    expect(max.body.loading).toBe('ULS-traffic@max');
+    expect(min.body.loading).toBe('ULS-traffic@min');
+    // envelope definition: max ≥ min station by station (same static part, max/min of the moving part)
+    max.body.stations.M_major.forEach((v: number, i: number) => expect(v).toBeGreaterThanOrEqual(min.body.stations.M_major[i] - 1e-6));
+    const pic = await t.as('engineer').get(`/api/runs/${runId}/model?loading=${encodeURIComponent('TRAFFIC@min')}`);
+    expect(pic.body.loading).toBe('TRAFFIC@min');
+    expect(pic.body.moving.lanes[0].lane).toBe('DECK');
+  });
+});
