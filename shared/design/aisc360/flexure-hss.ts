@@ -2,8 +2,11 @@
  * AISC 360-22 F7 (square and rectangular HSS) and F8 (round HSS) flexure.
  * F7: yielding Mp = Fy·Z (F7-1); flange local buckling of noncompact flanges (F7-2);
  * web local buckling of noncompact webs (F7-6); lateral-torsional buckling of rectangular
- * HSS about the major axis (F7-10, F7-11, Lp F7-12, Lr F7-13). Slender flanges (F7-3,
- * effective section) and slender webs (F7-7..F7-9) are `not checked`.
+ * HSS about the major axis (F7-10, F7-11, Lp F7-12, Lr F7-13); slender flanges: Mn = Fy·Se
+ * (F7-3), Se from the effective width of the compression flange
+ * be = 1.92·t·√(E/Fy)·[1 − 0.38/(b/t)·√(E/Fy)] ≤ b (F7-4, from memory), the ineffective
+ * strip (b − be) removed at the middle of the flange, Se = Ieff / largest distance from the
+ * shifted centroid. Slender webs (F7.3(c)) are `not checked`.
  * F8: D/t < 0.45E/Fy; yielding (F8-1), local buckling of noncompact (F8-2) and slender
  * walls (F8-3, F8-4).
  */
@@ -26,7 +29,6 @@ export function flexureF7(g: DesignGeometry, cx: AiscContext, axis: 'major' | 'm
   const [flange, web] = flexureElements(g, E, Fy, axis);
   const fc = flexureClassOf(flange);
   const wc = flexureClassOf(web);
-  if (fc === 'slender') return { head: notCheckedHead(family, cx.code, 'F7', title, `slender HSS flange (b/t = ${flange.ratio.toFixed(1)}): F7.2(c) effective section not implemented`), factor, Mcap: NaN, M1: Infinity, ltb: '' };
   if (wc === 'slender') return { head: notCheckedHead(family, cx.code, 'F7', title, `slender HSS web (h/t = ${web.ratio.toFixed(1)}): F7.3(c) not implemented`), factor, Mcap: NaN, M1: Infinity, ltb: '' };
   const Z = axis === 'major' ? g.Zmaj : g.Zmin;
   const S = axis === 'major' ? g.Smaj : g.Smin;
@@ -37,6 +39,12 @@ export function flexureF7(g: DesignGeometry, cx: AiscContext, axis: 'major' | 'm
   if (fc === 'noncompact') {
     Mcap = Math.min(Mcap, Mp - (Mp - Fy * S) * (3.57 * flange.ratio * root - 4.0));
     words.push('flange local buckling Mn = Mp − (Mp − Fy·S)(3.57·(b/t)·√(Fy/E) − 4.0) ≤ Mp (Eq. F7-2)');
+  }
+  let Se = NaN;
+  if (fc === 'slender') {
+    Se = effectiveModulusF7(g, axis, E, Fy);
+    Mcap = Math.min(Mcap, Fy * Se);
+    words.push('flange local buckling Mn = Fy·Se (Eq. F7-3), be = 1.92t√(E/Fy)[1 − 0.38/(b/t)·√(E/Fy)] ≤ b (Eq. F7-4)');
   }
   if (wc === 'noncompact') {
     Mcap = Math.min(Mcap, Mp - (Mp - Fy * S) * (0.305 * web.ratio * root - 0.738));
@@ -49,6 +57,7 @@ export function flexureF7(g: DesignGeometry, cx: AiscContext, axis: 'major' | 'm
     inp('Fy', 'yield stress', Fy, 'stress'), inp('Z', 'plastic modulus', Z, 'modulus'), inp('S', 'elastic modulus', S, 'modulus'),
     inp('b/t', 'flange slenderness', flange.ratio, 'ratio'), inp('flange', 'flange class (Table B4.1b)', fc, 'text'),
     inp('h/t', 'web slenderness', web.ratio, 'ratio'), inp('web', 'web class (Table B4.1b)', wc, 'text'),
+    ...(fc === 'slender' ? [inp('Se', 'effective section modulus (F7.2(c))', Se, 'modulus')] : []),
   ];
   if (axis === 'major' && g.h > g.b) {
     const ry = g.rmin;
@@ -70,6 +79,23 @@ export function flexureF7(g: DesignGeometry, cx: AiscContext, axis: 'major' | 'm
     factor, Mcap, M1, ltb,
     head: { family, code: cx.code, clause: 'F7', title, equation: `${phiWords(cx)}; ${words.join('; ')}`, inputs, quantity: 'moment', note: 'flat widths b − 3t, h − 3t (corner radius unknown, B4.1b(d))' },
   };
+}
+
+/** Se of a rectangular HSS with the effective compression flange of F7-4 (see above). */
+export function effectiveModulusF7(g: DesignGeometry, axis: 'major' | 'minor', E: number, Fy: number): number {
+  const t = g.t;
+  const outF = axis === 'major' ? g.b : g.h; // flange: the wall parallel to the axis of bending
+  const depth = axis === 'major' ? g.h : g.b;
+  const I = axis === 'major' ? g.Imaj : g.Imin;
+  const b = outF - 3 * t;
+  const r = Math.sqrt(E / Fy);
+  const be = Math.min(b, 1.92 * t * r * (1 - (0.38 / (b / t)) * r));
+  const a = (b - be) * t;
+  const z = depth / 2 - t / 2;
+  const Ae = g.A - a;
+  const zc = (-a * z) / Ae;
+  const Ie = I - a * z * z - Ae * zc * zc;
+  return Ie / (depth / 2 + Math.abs(zc));
 }
 
 export function flexureF8(g: DesignGeometry, cx: AiscContext, axis: 'major' | 'minor'): FlexureCapacity {

@@ -234,9 +234,17 @@ describe('F6, F7, F8, F11 flexure', () => {
     const s = section('rhs', { h: 8, b: 8, t: 0.233 }, { A: 7.1, I_major: 70.7, I_minor: 70.7, J: 112, S_major: 17.7, S_minor: 17.7, Z_major: 20.5, Z_minor: 20.5 }, IN);
     expect(close(designMoment(flexureF7(designGeometry(s), lrfd, 'major', 10 * FT), 1) / KIPIN, 841.2, 0.002)).toBe(true);
   });
-  it('F7 slender flange HSS8x8x3/16 (b/t = 43 > 1.40√(E/Fy) = 33.7) is not checked (F7.2(c))', () => {
+  it('F7.2(c) slender flange HSS8x8x3/16 (A = 5.37 in², I = 54.4 in⁴, Manual Table 1-12, from memory): b/t = 7.478/0.174 = 42.98 > 1.40√(E/Fy) = 33.7; be = 1.92·0.174·24.083·(1 − 0.38/42.98·24.083) = 6.3324 in (F7-4); strip 1.1456 × 0.174 = 0.19933 in² removed at z = 3.913 in: zc = −0.1508 in, Ieff = 54.4 − 0.19933·3.913² − 5.1707·0.1508² = 51.230 in⁴, Se = 51.230/4.1508 = 12.342 in³; Mn = 50·12.342 = 617.1 kip-in (F7-3), φMn = 555.4 kip-in', () => {
     const s = section('rhs', { h: 8, b: 8, t: 0.174 }, { A: 5.37, I_major: 54.4, I_minor: 54.4, J: 86, S_major: 13.6, S_minor: 13.6, Z_major: 15.7, Z_minor: 15.7 }, IN);
-    expect(Number.isNaN(flexureF7(designGeometry(s), lrfd, 'major', 0).Mcap)).toBe(true);
+    const fc = flexureF7(designGeometry(s), lrfd, 'major', 0);
+    expect(close(designMoment(fc, 1) / KIPIN, 555.4, 0.001)).toBe(true);
+    expect(fc.head.equation).toMatch(/F7-3/);
+  });
+  it('F7.3(c) slender HSS web stays not checked', () => {
+    const s = section('rhs', { h: 20, b: 4, t: 0.116 }, { A: 5.6, I_major: 250, I_minor: 20, J: 60, S_major: 25, S_minor: 10, Z_major: 32, Z_minor: 11 }, IN);
+    const fc = flexureF7(designGeometry(s), lrfd, 'major', 0);
+    expect(Number.isNaN(fc.Mcap)).toBe(true);
+    expect(fc.head.note).toMatch(/F7\.3\(c\)/);
   });
   it('F8 compact round HSS D/t = 20 ≤ 0.07E/Fy = 40.6: φbMn = 0.9·50·Z, Z = 10 in³ → 450 kip-in (Eq. F8-1)', () => {
     const s = section('chs', { D: 6, t: 0.3 }, { A: 5.37, I_major: 22, I_minor: 22, S_major: 7.3, S_minor: 7.3, Z_major: 10, Z_minor: 10 }, IN);
