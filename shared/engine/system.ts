@@ -162,12 +162,15 @@ export function buildSystem(model: Model, taperSegments: number, timing: Stopwat
 
   // load block, column-major nEq × nCases
   const F = new Float64Array(nEq * nCases);
+  // spin modes by node (usually none)
+  const spinsAt = new Map<number, typeof spins>();
+  for (const sp of spins) spinsAt.set(sp.node, [...(spinsAt.get(sp.node) ?? []), sp]);
   for (const nl of model.nodeLoads) {
-    const where = `node load${nl.row !== undefined ? ` (row ${nl.row})` : ''} at node ${nl.node}`;
+    const where = () => `node load${nl.row !== undefined ? ` (row ${nl.row})` : ''} at node ${nl.node}`;
     const n = nodeIndex.get(nl.node);
-    if (n === undefined) throw new Error(`${where}: the node does not exist`);
+    if (n === undefined) throw new Error(`${where()}: the node does not exist`);
     const c = caseIndex.get(nl.case);
-    if (c === undefined) throw new Error(`${where}: case ${nl.case} does not exist`);
+    if (c === undefined) throw new Error(`${where()}: case ${nl.case} does not exist`);
     for (let k = 0; k < 6; k++) {
       const v = nl.values[k];
       if (v === 0) continue;
@@ -175,8 +178,8 @@ export function buildSystem(model: Model, taperSegments: number, timing: Stopwat
       if (eq[g] >= 0) F[c * nEq + eq[g]] += v;
       else if (status[g] === NO_STIFFNESS) throw instabilityAt(mesh.nodeNames[n], k);
     }
-    for (const sp of spins) {
-      if (sp.node !== n) continue;
+    const atNode = spins.length ? spinsAt.get(n) : undefined;
+    if (atNode) for (const sp of atNode) {
       let dot = 0, norm = 0, big = 0;
       sp.dofs.forEach((d, i) => {
         dot += nl.values[d] * sp.v[i];
