@@ -58,7 +58,7 @@ export function movingEnvelope(
   // effects of a unit load per path position, cached: axles of a vehicle whose offsets are
   // multiples of the step stand on the same positions one after another. Key: the position
   // rounded to 1 nm (the effect is then taken at a point within 1 nm, relative change ~1e-12).
-  const cache = new Map<number, { nb: Int32Array; nw: Float64Array; fi: Int32Array; fv: Float64Array }>();
+  const cache = new Map<number, { nb: Int32Array; nw: Float64Array; fi: Int32Array; fv: Float64Array; di: Int32Array; dv: Float64Array }>();
   let cached = 0;
   const CACHE_LIMIT = 4e6;
   const cb: number[] = [], cw: number[] = [], cf: number[] = [], cv: number[] = [];
@@ -71,16 +71,22 @@ export function movingEnvelope(
       if (!locate(path, s, pt)) return;
       cb.length = cw.length = cf.length = cv.length = 0;
       effect.apply(path.segments[pt.segment].member, pt.a, 1, true, recNodal, recFull);
-      e = { nb: Int32Array.from(cb), nw: Float64Array.from(cw), fi: Int32Array.from(cf), fv: Float64Array.from(cv) };
+      // split the direct entries into dense quantities (added to r) and local-only ones
+      const fi: number[] = [], fv: number[] = [], di: number[] = [], dv: number[] = [];
+      cf.forEach((f, i) => { if (denseOf[f] >= 0) { di.push(denseOf[f]); dv.push(cv[i]); } else { fi.push(f); fv.push(cv[i]); } });
+      e = { nb: Int32Array.from(cb), nw: Float64Array.from(cw), fi: Int32Array.from(fi), fv: Float64Array.from(fv), di: Int32Array.from(di), dv: Float64Array.from(dv) };
       if (cached < CACHE_LIMIT) { cache.set(key, e); cached += cb.length + cf.length + 4; }
     }
     for (let i = 0; i < e.nb.length; i++) nodal(e.nb[i], P * e.nw[i]);
     for (let i = 0; i < e.fi.length; i++) fullAdd(e.fi[i], P * e.fv[i]);
+    for (let i = 0; i < e.di.length; i++) { extraD.push(e.di[i]); extraV.push(P * e.dv[i]); }
   };
+  const extraD: number[] = [], extraV: number[] = [];
   const pt: PathPoint = { segment: 0, a: 0 };
   const targets = laneTargets(path, basis);
   const offsets = axles.map((a) => a.offset);
   let positions = 0;
+  let first = true;
 
   for (const direction of directions) {
     const dirCode = direction === 'forward' ? 0 : 1;
@@ -103,22 +109,27 @@ export function movingEnvelope(
         i += 2;
       }
       if (!started) r.fill(0);
-      for (const f of touched) {
-        const d = denseOf[f];
-        if (d >= 0) { r[d] += scratch[f]; scratch[f] = 0; }
-      }
+      for (let j = 0; j < extraD.length; j++) r[extraD[j]] += extraV[j];
+      extraD.length = extraV.length = 0;
       const oa = k - i >= 1 ? wIdx[i] * nDense : 0, wa = k - i >= 1 ? w[wIdx[i]] : 0;
       const ob = k - i >= 2 ? wIdx[i + 1] * nDense : 0, wb = k - i >= 2 ? w[wIdx[i + 1]] : 0;
-      for (let d = 0; d < nDense; d++) {
-        const v = r[d] + wa * QU[oa + d] + wb * QU[ob + d];
-        if (v > dMax[d]) { dMax[d] = v; dPosMax[d] = L0; dDirMax[d] = dirCode; }
-        if (v < dMin[d]) { dMin[d] = v; dPosMin[d] = L0; dDirMin[d] = dirCode; }
+      if (first) {
+        for (let d = 0; d < nDense; d++) {
+          const v = r[d] + wa * QU[oa + d] + wb * QU[ob + d];
+          dMax[d] = dMin[d] = v; dPosMax[d] = dPosMin[d] = L0; dDirMax[d] = dDirMin[d] = dirCode;
+        }
+        first = false;
+      } else {
+        for (let d = 0; d < nDense; d++) {
+          const v = r[d] + wa * QU[oa + d] + wb * QU[ob + d];
+          if (v > dMax[d]) { dMax[d] = v; dPosMax[d] = L0; dDirMax[d] = dirCode; }
+          else if (v < dMin[d]) { dMin[d] = v; dPosMin[d] = L0; dDirMin[d] = dirCode; }
+        }
       }
       for (const b of wIdx) w[b] = 0;
       wIdx.length = 0;
       for (const f of touched) {
         const v = scratch[f];
-        if (v === 0) continue; // dense, already taken
         scratch[f] = 0;
         if (v > max[f]) { max[f] = v; posMax[f] = L0; dirMax[f] = dirCode; }
         if (v < min[f]) { min[f] = v; posMin[f] = L0; dirMin[f] = dirCode; }
