@@ -140,4 +140,36 @@ describe.skipIf(!enabled)('review and sign-off in the browser', () => {
     expect(app.externalRequests).toEqual([]);
     await page.close();
   }, 240_000);
+
+  it('admin invites a new member by e-mail; the link sets a password and the new member signs in to that project', async () => {
+    const page = await app.newPage();
+    watchCsp(page);
+    await signIn(page, app.baseUrl, 'admin@example.com');
+    await app.goto(page, '/projects/2');
+    await page.locator('[data-test=invite-open]').click();
+    const form = page.locator('[data-test=invite-form]');
+    await form.locator('input').nth(0).fill('Nora Newcomer');
+    await form.locator('input').nth(1).fill('nora@example.com');
+    await page.locator('[data-test=invite-send]').click();
+    await page.locator('[data-test=invite-sent]').waitFor();
+    await expect.poll(() => page.locator('[data-test=member-row]', { hasText: 'nora@example.com' }).count()).toBe(1);
+    await screenshot(page, 'review-09-admin-invited');
+    const mail = await openMail(page, 'You are invited to Trestle');
+    const token = /set-password\?token=([A-Za-z0-9_-]+)/.exec(mail)?.[1];
+    expect(token).toBeTruthy();
+
+    await app.clearSession();
+    await app.goto(page, `/set-password?token=${token}`);
+    await page.locator('[data-test=set-password-new] input').fill('nora-chooses-this');
+    await page.locator('[data-test=set-password-repeat] input').fill('nora-chooses-this');
+    await page.locator('[data-test=set-password-submit]').click();
+    await page.locator('[data-test=set-password-done]').waitFor();
+    await screenshot(page, 'review-10-password-set');
+    await signIn(page, app.baseUrl, 'nora@example.com', 'nora-chooses-this');
+    const projects = (await apiFromPage(page, 'GET', '/api/projects')).body as { id: number }[];
+    expect(projects.map((p) => p.id)).toEqual([2]);
+    expect((await apiFromPage(page, 'GET', '/api/projects/1')).status).toBe(404);
+    expect(cspViolations).toEqual([]);
+    await page.close();
+  }, 120_000);
 });
