@@ -77,17 +77,19 @@ export function memberForceTable(model: Model, analysis: AnalysisResult): Result
   const sys = model.settings.units;
   const env = envelopeColumn(analysis);
   const header = ['loading', ...(env ? ['envelope'] : []), 'member', headerWithUnit('x', 'length', sys), ...FORCE_COLS.map(([c, q]) => headerWithUnit(c, q, sys))];
-  const rows: ResultCell[][] = [];
-  analysis.loadings.forEach((loading, l) => {
-    const lead: ResultCell[] = env ? [loading.id, loading.envelope ?? ''] : [loading.id];
-    analysis.memberIds.forEach((id, m) => {
+  // Member by member (the engine caches one member's case stations), rows kept grouped by loading.
+  const leads: ResultCell[][] = analysis.loadings.map((loading) => (env ? [loading.id, loading.envelope ?? ''] : [loading.id]));
+  const byLoading: ResultCell[][][] = analysis.loadings.map(() => []);
+  analysis.memberIds.forEach((id, m) => {
+    for (let l = 0; l < leads.length; l++) {
       const f = analysis.memberForces(m, l);
+      const out = byLoading[l];
       for (let s = 0; s < f.x.length; s++) {
-        rows.push([...lead, id, fromSI(f.x[s], 'length', sys), ...FORCE_COLS.map(([c, q]) => fromSI(f[c][s], q, sys))]);
+        out.push([...leads[l], id, fromSI(f.x[s], 'length', sys), ...FORCE_COLS.map(([c, q]) => fromSI(f[c][s], q, sys))]);
       }
-    });
+    }
   });
-  return { name: 'member_forces', header, rows };
+  return { name: 'member_forces', header, rows: byLoading.flat() };
 }
 
 /** Families that appear in the schedule, in the contract's order. */
