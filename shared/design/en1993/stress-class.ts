@@ -38,21 +38,34 @@ export interface StressClassPlan {
   flange: EnClass;
   /** class of the web in pure compression (used for RHS when Mz acts) */
   webCompression: EnClass;
+  /**
+   * fast test for a class 1 web: when c/t ≤ 72ε every α ≤ 0.5 is class 1, and α > 0.5 is
+   * class 1 up to α1 = (396ε/(c/t) + 1)/13, i.e. zn ≤ zn1 = (α1 − 0.5)·c (0 = no fast test)
+   */
+  zn1: number;
+}
+
+function withFastTest(p: StressClassPlan): StressClassPlan {
+  if (p.ct <= 72 * p.eps) {
+    const a1 = Math.min(1, ((396 * p.eps) / p.ct + 1) / 13);
+    p.zn1 = (a1 - 0.5) * p.c;
+  }
+  return p;
 }
 
 export function stressClassPlan(g: DesignGeometry, fy: number): StressClassPlan {
   const eps = epsilon(fy);
-  const base = { applies: false, rhs: false, c: 0, tw: 0, ct: 0, eps, A: g.A, I: g.Imaj, Wpl: g.Zmaj, flange: 1 as EnClass, webCompression: 1 as EnClass };
+  const base = { applies: false, rhs: false, c: 0, tw: 0, ct: 0, eps, A: g.A, I: g.Imaj, Wpl: g.Zmaj, flange: 1 as EnClass, webCompression: 1 as EnClass, zn1: 0 };
   if (!g.hasDims) return base;
   if (g.shape === 'i') {
     const el = enElements(g, fy, 'compression');
     const c = g.d - 2 * g.tf - 2 * g.r;
-    return { ...base, applies: true, c, tw: g.tw, ct: c / g.tw, flange: el[0].cls, webCompression: el[1].cls };
+    return withFastTest({ ...base, applies: true, c, tw: g.tw, ct: c / g.tw, flange: el[0].cls, webCompression: el[1].cls });
   }
   if (g.shape === 'rhs') {
     const el = enElements(g, fy, 'compression');
     const c = g.h - 3 * g.t;
-    return { ...base, applies: true, rhs: true, c, tw: 2 * g.t, ct: c / g.t, flange: el[0].cls, webCompression: el[1].cls };
+    return withFastTest({ ...base, applies: true, rhs: true, c, tw: 2 * g.t, ct: c / g.t, flange: el[0].cls, webCompression: el[1].cls });
   }
   return base;
 }
@@ -100,6 +113,12 @@ export function stationClass(p: StressClassPlan, N: number, My: number, minorAct
   // the limits under any α ≤ 1, ψ ≤ 1 are not below the pure-compression ones: a web of
   // class 1 in compression is class 1 under every loading (α, ψ then not needed)
   if (p.webCompression === 1) return compressed ? p.flange : 1;
+  if (p.zn1 > 0 && !(minorActs && p.rhs)) {
+    // zn ≤ zn1 without the square root: N·w − zn1·M ≤ zn1·√(M² + N²·w)
+    const w = p.Wpl / p.tw;
+    const lhs = N * w - p.zn1 * My;
+    if (N <= 0 || lhs <= 0 || lhs * lhs <= p.zn1 * p.zn1 * (My * My + N * N * w)) return compressed ? p.flange : 1;
+  }
   const a = webAlpha(p, N, My);
   const psi = webPsi(p, N, My);
   lastWeb.alpha = a; lastWeb.psi = psi;

@@ -224,3 +224,18 @@ describe('RHS webs under N + My (Table 5.2 with α, ψ)', () => {
     expect(stationClass(p, 20e3, 50e3, true)).toBe(4);
   });
 });
+
+describe('the fast class 1 test agrees with the full Table 5.2 evaluation', () => {
+  it('IPE 300 S355 over a grid of N and My (α1 = (396ε/35.01 + 1)/13 = 0.7849)', () => {
+    const g = designGeometry(IPE300());
+    const p = stressClassPlan(g, 355e6);
+    expect(close(p.zn1 / p.c + 0.5, 0.7849, 0.001)).toBe(true);
+    for (let N = -500e3; N <= 2000e3; N += 37e3) {
+      for (let M = 0; M <= 250e3; M += 11e3) {
+        const full = Math.max(p.flange, internalClass(p.ct, p.eps, webAlpha(p, N, M), webPsi(p, N, M)));
+        const compressed = N > 0 || M > 0;
+        expect(stationClass(p, N, M, false)).toBe(compressed ? full : internalClass(p.ct, p.eps, webAlpha(p, N, M), webPsi(p, N, M)));
+      }
+    }
+  });
+});
