@@ -116,6 +116,11 @@ export function buildInfluenceBasis(inp: InfluenceInput): InfluenceBasis {
     for (let q = memberOff[mi]; q < memberOff[mi + 1]; q++) cand.push(q);
   }
   const nCand = cand.length;
+  // the influence matrix holds every result quantity for every lane freedom: refuse plainly
+  // rather than exhaust memory (4·10^7 numbers = 320 MB)
+  if (nBasis * nCand > 4e7) {
+    throw new Error(`moving loads: ${nCand} result quantities × ${nBasis} lane freedoms is more than this version can hold (4·10^7 influence values); use shorter lanes or fewer frame members`);
+  }
   const candVals = new Float64Array(nBasis * nCand);
   const nonZero = new Uint8Array(nCand);
 
