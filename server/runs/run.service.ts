@@ -331,7 +331,8 @@ export async function getMemberDetail(ds: DataSource, id: number, memberId: stri
   const util = members.find((m) => m.member === memberId);
   if (index < 0 || !util) throw notFound(`Member ${memberId} not found in run ${id}`);
   const loadings = loadingsOf(result);
-  const governing = loadings.findIndex((l) => l.id === util.combination && l.kind === 'combination');
+  // a moving-load combination appears twice (max and min envelope): take the one that governed
+  const governing = loadings.findIndex((l) => l.id === util.combination && l.kind === 'combination' && (!util.envelope || !l.envelope || l.envelope === util.envelope));
   const firstCombo = loadings.findIndex((l) => l.kind === 'combination');
   const chosen = loadingIndex(loadings, loading, governing >= 0 ? governing : Math.max(0, firstCombo));
   const detail = await runPool().run({

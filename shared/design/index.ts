@@ -307,6 +307,7 @@ function utilisation(p: Prepared, recs: CheckRecord[], warnings: string[], sm: {
     familyStatus,
     warnings: status === 'not checked' && firstNc?.note ? [...warnings, `not checked: ${firstNc.note}`] : warnings,
     ...(shown?.vehiclePosition !== undefined ? { vehiclePosition: shown.vehiclePosition } : {}),
+    ...(shown?.envelope ? { envelope: shown.envelope } : {}),
   };
 }
 

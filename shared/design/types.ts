@@ -73,6 +73,8 @@ export interface MemberUtilisation {
   familyStatus: Partial<Record<CheckFamily, CheckStatus>>;
   warnings: string[];
   vehiclePosition?: number;
+  /** moving loads: the envelope (max or min) of the governing combination */
+  envelope?: 'max' | 'min';
 }
 
 /** The design checks of a whole model (checkModel). */

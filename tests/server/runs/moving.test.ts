@@ -30,6 +30,20 @@ describe('moving loads over the API', () => {
     expect(Math.max(...mv.envelope.max)).toBeGreaterThan(0);
   });
 
+  it('opens member detail on the envelope (max or min) that governed the member', async () => {
+    const members = await t.as('engineer').get(`/api/runs/${runId}/members`);
+    const moving = members.body.members.filter((m: { vehiclePosition?: number }) => typeof m.vehiclePosition === 'number').slice(0, 3);
+    expect(moving.length).toBeGreaterThan(0);
+    for (const m of moving) {
+      const detail = await t.as('engineer').get(`/api/runs/${runId}/members/${encodeURIComponent(m.member)}`);
+      const recs = detail.body.governingRecords as { ratio: number | null }[];
+      const top = Math.max(...recs.map((r) => r.ratio ?? -1));
+      // the records of the loading the detail opens on reproduce the member's governing ratio
+      expect(detail.body.governing.startsWith(`${m.combination}@`)).toBe(true);
+      expect(Math.abs(top - m.ratio)).toBeLessThanOrEqual(1e-9 * Math.max(1, m.ratio));
+    }
+  });
+
   it('exports reactions with the envelope column', async () => {
     const res = await t.as('engineer').get(`/api/runs/${runId}/exports/reactions.csv`);
     expect(res.status).toBe(200);
