@@ -7,6 +7,7 @@
  * elimination tree and column counts for the symbolic analysis.
  */
 import type { CompressedGraph, Graph } from './graph.js';
+import { postorder } from './postorder.js';
 
 export interface SupervariableTree {
   /** parent[k] = elimination position of the parent of position k, or −1 */
@@ -77,33 +78,7 @@ export function expandPostordered(c: CompressedGraph, order: Int32Array): Postor
   const m = order.length;
   const { parent, count } = supervariableTree(c.graph, c.weight, order);
   // postorder of the supervariable tree (children in elimination order)
-  const head = new Int32Array(m).fill(-1);
-  const next = new Int32Array(m);
-  for (let j = m - 1; j >= 0; j--) {
-    const p = parent[j];
-    if (p === -1) continue;
-    next[j] = head[p];
-    head[p] = j;
-  }
-  const post = new Int32Array(m);
-  const stack = new Int32Array(m);
-  let k = 0;
-  for (let j = 0; j < m; j++) {
-    if (parent[j] !== -1) continue;
-    let top = 0;
-    stack[0] = j;
-    while (top >= 0) {
-      const p = stack[top];
-      const i = head[p];
-      if (i === -1) {
-        top--;
-        post[k++] = p;
-      } else {
-        head[p] = next[i];
-        stack[++top] = i;
-      }
-    }
-  }
+  const post = postorder(parent);
   // full positions: supervariable at new position x starts at start[x]
   const start = new Int32Array(m + 1);
   for (let x = 0; x < m; x++) start[x + 1] = start[x] + c.weight[order[post[x]]];
