@@ -246,12 +246,22 @@ export async function stopApp(app: TrestleApp | undefined): Promise<void> {
  * cannot leave the next one signed in) and waits for the app shell.
  */
 export async function signIn(page: Page, baseUrl: string, email: string, password = DEMO_PASSWORD): Promise<void> {
-  await page.context().clearCookies();
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.locator('[data-test=sign-in-email] input').fill(email);
-  await page.locator('[data-test=sign-in-password] input').fill(password);
-  await page.locator('[data-test=sign-in-submit]').click();
-  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
+  // On a busy machine a first attempt can stall (the app still booting while the form is
+  // used); try once more from a fresh sign-in page before failing, and say so.
+  for (let attempt = 1; ; attempt++) {
+    await page.context().clearCookies();
+    await page.goto(`${baseUrl}/sign-in`, { waitUntil: 'networkidle' });
+    await page.locator('[data-test=sign-in-email] input').fill(email);
+    await page.locator('[data-test=sign-in-password] input').fill(password);
+    await page.locator('[data-test=sign-in-submit]').click();
+    try {
+      await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'), { timeout: attempt === 1 ? 20_000 : 45_000 });
+      break;
+    } catch (err) {
+      if (attempt >= 2) throw err;
+      console.warn(`sign-in as ${email} did not leave the sign-in page in 20 s; trying again`);
+    }
+  }
   await page.locator('[data-test=user-menu]').waitFor();
 }
 
