@@ -40,13 +40,13 @@ export function buildDesignFrame(code: DesignCode, bays = 10, storeys = 30, bay 
   const supports: Model['supports'] = [];
   for (let j = 0; j < n; j++) for (let i = 0; i < n; i++) supports.push({ node: id(i, j, 0), restrained: [true, true, true, true, true, true], springs: [0, 0, 0, 0, 0, 0] });
   return {
-    settings: { title: 'bench', units: 'metric', verticalAxis: 'Z', designCode: code, combinationRule: 'table', deflectionLimit: 360, gammaM0: 1, gammaM1: 1, gammaM2: 1.25 },
+    settings: { title: 'bench', units: 'metric', verticalAxis: 'Z', designCode: code, combinationRule: 'table', deflectionLimit: 360, gammaM0: 1, gammaM1: 1, gammaM2: 1.25, stations: 11, analysis: 'first_order', bucklingModes: 0, modes: 0, stabilityWarning: true },
     inferred: { verticalAxisInferred: false, planeFrame: null, defaulted: [] },
     nodes, supports,
     materials: [{ id: 'S355', E: 210e9, G: 80.77e9, nu: 0.3, fy: 355e6, fu: 490e6, density: 7850, alpha: 1.2e-5 }],
     sections: SECTIONS, members,
-    cases: [{ id: 'D', category: 'dead', title: 'D', selfWeight: 1 }],
-    nodeLoads: [], memberLoads: [], settlements: [], combinations: [], vehicles: [], lanes: [], movingLoads: [],
+    cases: [{ id: 'D', category: 'dead', title: 'D', selfWeight: 1, mass: false }],
+    nodeLoads: [], memberLoads: [], settlements: [], combinations: [], vehicles: [], lanes: [], movingLoads: [], resultPoints: [],
   };
 }
 

@@ -22,11 +22,12 @@ function baseModel(vertical: 'Z', planeNormal: 'Y' | null): Model {
     settings: {
       title: 'bench', units: 'metric', verticalAxis: vertical, designCode: 'none', combinationRule: 'table',
       deflectionLimit: 360, gammaM0: 1, gammaM1: 1, gammaM2: 1.25,
+      stations: 11, analysis: 'first_order', bucklingModes: 0, modes: 0, stabilityWarning: true,
     },
     inferred: { verticalAxisInferred: false, planeFrame: planeNormal ? { plane: 'XZ', normal: planeNormal } : null, defaulted: [] },
     nodes: [], supports: [], materials: [{ id: 'steel', E, nu: NU, G: E / (2 * (1 + NU)), density: 7850, alpha: 12e-6, fy: 355e6, fu: 510e6 }],
     sections: [], members: [], cases: [], nodeLoads: [], memberLoads: [], settlements: [], combinations: [],
-    vehicles: [], lanes: [], movingLoads: [],
+    vehicles: [], lanes: [], movingLoads: [], resultPoints: [],
   };
 }
 
@@ -47,10 +48,10 @@ function member(id: string, start: string, end: string, section: string, type: M
 
 function cases20(): LoadCase[] {
   const out: LoadCase[] = [
-    { id: 'D', category: 'dead', title: 'self weight and finishes', selfWeight: 1 },
-    { id: 'L', category: 'live', title: 'imposed', selfWeight: 0 },
+    { id: 'D', category: 'dead', title: 'self weight and finishes', selfWeight: 1, mass: false },
+    { id: 'L', category: 'live', title: 'imposed', selfWeight: 0, mass: false },
   ];
-  for (let i = 2; i < 20; i++) out.push({ id: `W${i}`, category: i % 3 === 0 ? 'snow' : 'wind', title: `case ${i}`, selfWeight: 0 });
+  for (let i = 2; i < 20; i++) out.push({ id: `W${i}`, category: i % 3 === 0 ? 'snow' : 'wind', title: `case ${i}`, selfWeight: 0, mass: false });
   return out;
 }
 

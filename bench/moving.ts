@@ -31,7 +31,7 @@ export function buildTrussBridge(panels: number, panel = 5, depth = 6): Model {
   }
   const props = (A: number) => ({ A, I_major: 1e-4, I_minor: 1e-4, J: 1e-5, Cw: 0, S_major: 1e-3, S_minor: 1e-3, Z_major: 1e-3, Z_minor: 1e-3, Av_major: A / 2, Av_minor: A / 2, depth: 0.4 });
   return {
-    settings: { title: 'truss bridge bench', units: 'metric', verticalAxis: 'Z', designCode: 'none', combinationRule: 'table', deflectionLimit: 800, gammaM0: 1, gammaM1: 1, gammaM2: 1.25 },
+    settings: { title: 'truss bridge bench', units: 'metric', verticalAxis: 'Z', designCode: 'none', combinationRule: 'table', deflectionLimit: 800, gammaM0: 1, gammaM1: 1, gammaM2: 1.25, stations: 11, analysis: 'first_order', bucklingModes: 0, modes: 0, stabilityWarning: true },
     inferred: { verticalAxisInferred: false, planeFrame: { plane: 'XZ', normal: 'Y' }, defaulted: [] },
     nodes,
     supports: [
@@ -44,13 +44,14 @@ export function buildTrussBridge(panels: number, panel = 5, depth = 6): Model {
       { id: 'WEB', shape: 'custom', dims: {}, props: props(0.01), given: [] },
     ],
     members,
-    cases: [{ id: 'DEAD', category: 'dead', title: 'self weight', selfWeight: 1 }, { id: 'TRAFFIC', category: 'live', title: 'vehicle', selfWeight: 0 }],
+    cases: [{ id: 'DEAD', category: 'dead', title: 'self weight', selfWeight: 1, mass: false }, { id: 'TRAFFIC', category: 'live', title: 'vehicle', selfWeight: 0, mass: false }],
     nodeLoads: [], memberLoads: [], settlements: [],
     combinations: [{ id: 'ULS', limitState: 'strength', terms: [{ case: 'DEAD', factor: 1.35 }, { case: 'TRAFFIC', factor: 1.5 }] }],
     // a 5-axle vehicle of our own invention: 60, 120, 120, 90, 90 kN
     vehicles: [[0, 60], [3.8, 120], [5.1, 120], [10.6, 90], [11.9, 90]].map(([o, p], i) => ({ vehicle: 'HX5', axle: `A${i + 1}`, offset: o, load: p * 1e3 })),
     lanes: Array.from({ length: panels }, (_, i) => ({ lane: 'DECK', seq: i + 1, member: `B${i + 1}` })),
     movingLoads: [{ case: 'TRAFFIC', vehicle: 'HX5', lane: 'DECK', step: 0.1, direction: 'both' }],
+    resultPoints: [],
   };
 }
 

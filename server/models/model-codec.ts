@@ -4,6 +4,7 @@
  */
 import { createHash } from 'node:crypto';
 import { gunzipSync, gzipSync } from 'node:zlib';
+import { withModelDefaults } from '../../shared/model/defaults.js';
 import type { Model } from '../../shared/model/types.js';
 
 export function encodeJson(value: unknown): Buffer {
@@ -30,5 +31,5 @@ export function encodeModel(model: Model): EncodedModel {
 }
 
 export function decodeModel(blob: Buffer | Uint8Array): Model {
-  return decodeJson<Model>(blob);
+  return withModelDefaults(decodeJson<Model>(blob));
 }

@@ -10,6 +10,7 @@ import type { DesignCode, Model } from '../../shared/model/types.js';
 import type { AnalysisResult } from '../../shared/engine/types.js';
 import type { CheckRecord, MemberUtilisation } from '../../shared/design/types.js';
 import type { LoadingInfo, RunPhase } from '../../shared/schemas/runs.js';
+import { withModelDefaults } from '../../shared/model/defaults.js';
 import { analyse } from '../../shared/engine/index.js';
 import { factorise as factoriseSystem } from '../../shared/engine/solverBridge.js';
 import { checkModel } from '../../shared/design/index.js';
@@ -33,7 +34,7 @@ export interface Analysed {
 
 /** The model of a run: the stored JSON with the run's design code in force. */
 export function readRunModel(modelJson: string, designCode: DesignCode): Model {
-  const model = JSON.parse(modelJson) as Model;
+  const model = withModelDefaults(JSON.parse(modelJson) as Model);
   model.settings = { ...model.settings, designCode };
   return model;
 }

@@ -56,6 +56,12 @@ export interface Mesh {
 
 export interface MeshOptions {
   taperSegments: number;
+  /**
+   * sub-elements per prismatic frame member (internal nodes appended after the user's nodes);
+   * default 1. Second-order and buckling analyses use several so that the geometric stiffness
+   * captures P-δ (curvature between the member's ends).
+   */
+  subdivisions?: number;
 }
 
 function releaseBits(r: Release): [boolean, boolean] {
@@ -108,7 +114,7 @@ export function buildMesh(model: Model, opts: MeshOptions): Mesh {
     const [eMaj, eMin] = truss ? [false, false] : releaseBits(m.releaseEnd);
     const props = propsAlong(sec0, sec1);
     const tapered = sec1 !== undefined && sec1 !== sec0;
-    const count = tapered ? Math.max(1, opts.taperSegments) : 1;
+    const count = tapered ? Math.max(1, opts.taperSegments) : truss ? 1 : Math.max(1, Math.floor(opts.subdivisions ?? 1));
     const info: MemberInfo = {
       id: m.id, start: s, end: e, L, R, truss,
       releases: { startMajor: sMaj, startMinor: sMin, endMajor: eMaj, endMinor: eMin },

@@ -12,6 +12,9 @@ export type VerticalAxis = 'Y' | 'Z';
 export type DesignCode = 'aisc360-lrfd' | 'aisc360-asd' | 'en1993-1-1' | 'none';
 export type CombinationRule = 'table' | 'asce7-lrfd' | 'asce7-asd' | 'en1990-6.10';
 export type LimitState = 'strength' | 'service';
+/** settings `analysis` */
+export type AnalysisOrder = 'first_order' | 'second_order';
+export const ANALYSIS_ORDERS: readonly AnalysisOrder[] = ['first_order', 'second_order'];
 
 export const DESIGN_CODES: readonly DesignCode[] = ['aisc360-lrfd', 'aisc360-asd', 'en1993-1-1', 'none'];
 export const COMBINATION_RULES: readonly CombinationRule[] = ['table', 'asce7-lrfd', 'asce7-asd', 'en1990-6.10'];
@@ -27,6 +30,19 @@ export interface Settings {
   gammaM0: number;
   gammaM1: number;
   gammaM2: number;
+  /** equally spaced result stations per member, both ends included (3–201); default 11 */
+  stations: number;
+  /** default first_order */
+  analysis: AnalysisOrder;
+  /** elastic critical load factors per strength loading (0 = off) */
+  bucklingModes: number;
+  /** natural frequencies and mode shapes (0 = off) */
+  modes: number;
+  /**
+   * settings `stability_warning` (`on`/`off`, default on): under first_order with a design
+   * code, warn where αcr < 10 or the sway amplifier exceeds 1.5 (checks.md "Stability").
+   */
+  stabilityWarning: boolean;
 }
 
 /** What the reader decided on the user's behalf; the import preview shows it. */
@@ -119,6 +135,17 @@ export const SECTION_PROPS: readonly (keyof SectionProps)[] = [
   'A', 'I_major', 'I_minor', 'J', 'Cw', 'S_major', 'S_minor', 'Z_major', 'Z_minor', 'Av_major', 'Av_minor', 'depth',
 ];
 
+/**
+ * Tension net area (sections or members, tables.md): An net area, U shear lag factor
+ * (AISC 360-22 D3), or Ae effective net area directly. Absent = An = Ag, U = 1 (stated in
+ * the check record as assumptions).
+ */
+export interface NetArea {
+  An?: number;
+  U?: number;
+  Ae?: number;
+}
+
 export interface Section {
   id: string;
   shape: ShapeKind;
@@ -130,6 +157,8 @@ export interface Section {
   /** catalogue source for built-in designations */
   source?: string;
   builtIn?: boolean;
+  /** optional tension net area data */
+  net?: NetArea;
   row?: number;
 }
 
@@ -155,12 +184,14 @@ export interface Member {
   /** buckling lengths (m); undefined = member length */
   lMajor?: number;
   lMinor?: number;
-  /** laterally unbraced length (m); undefined = member length */
+  /** laterally unbraced length (m); undefined = member length; 0 = continuously braced */
   lb?: number;
   /** undefined = computed from the moment diagram */
   cb?: number;
   /** span / N; undefined = the setting */
   deflectionLimit?: number;
+  /** tension net area of this member; overrides the section's */
+  net?: NetArea;
   row?: number;
 }
 
@@ -173,6 +204,8 @@ export interface LoadCase {
   title: string;
   /** factor on self weight acting along −vertical; 0 = none */
   selfWeight: number;
+  /** loads of this case along gravity count as mass for natural frequencies */
+  mass: boolean;
   row?: number;
 }
 
@@ -259,6 +292,14 @@ export interface MovingLoad {
   row?: number;
 }
 
+/** table `result_points`: an extra exact result position on one member */
+export interface ResultPoint {
+  member: string;
+  /** distance from the start node (m), 0 ≤ x ≤ L */
+  x: number;
+  row?: number;
+}
+
 export interface Model {
   settings: Settings;
   inferred: Inferences;
@@ -276,6 +317,8 @@ export interface Model {
   vehicles: VehicleAxle[];
   lanes: LaneMember[];
   movingLoads: MovingLoad[];
+  /** extra result positions; empty when the workbook has none */
+  resultPoints: ResultPoint[];
 }
 
 /** One problem found in the input. `row` is the row the user sees (sheet row / CSV line). */

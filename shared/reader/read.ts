@@ -277,7 +277,7 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
     }
     cases.set(id, {
       id, category: (r.v.category as CaseCategory | undefined) ?? 'other', title: (r.v.title as string | undefined) ?? '',
-      selfWeight: (r.v.self_weight as number | undefined) ?? 0, row: r.row,
+      selfWeight: (r.v.self_weight as number | undefined) ?? 0, mass: false, row: r.row,
     });
   }
   const caseRef = (table: string, row: number, id: string | undefined): boolean => {
@@ -492,6 +492,7 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
     vehicles,
     lanes,
     movingLoads,
+    resultPoints: [],
   };
   // report in table order (settings first), then by row, keeping the order found within a row
   const order = ['', 'settings', ...KNOWN_TABLES.filter((t) => t !== 'settings')];

@@ -2,6 +2,7 @@
 import {
   COMBINATION_RULES, DESIGN_CODES, type CombinationRule, type DesignCode, type Settings, type UnitSystem, type VerticalAxis,
 } from '../model/types.js';
+import { SETTINGS_DEFAULTS } from '../model/defaults.js';
 import { canonicalName, matchEnum } from './names.js';
 import type { Problems } from './problems.js';
 import { parseNumber, type RawTable } from './table.js';
@@ -18,17 +19,7 @@ export interface SettingsRead {
 const KEYS = ['title', 'units', 'vertical_axis', 'design_code', 'combination_rule', 'deflection_limit', 'gamma_m0', 'gamma_m1', 'gamma_m2'] as const;
 type Key = (typeof KEYS)[number];
 
-export const DEFAULT_SETTINGS: Omit<Settings, 'title'> = {
-  units: 'metric',
-  verticalAxis: 'Y',
-  designCode: 'none',
-  combinationRule: 'table',
-  deflectionLimit: 360,
-  // recommended partial factors, EN 1993-1-1 6.1(1) Note 2B
-  gammaM0: 1.0,
-  gammaM1: 1.0,
-  gammaM2: 1.25,
-};
+export const DEFAULT_SETTINGS: Omit<Settings, 'title'> = SETTINGS_DEFAULTS;
 
 export function readSettings(raw: RawTable | undefined, fallbackTitle: string, problems: Problems): SettingsRead {
   const s: Settings = { title: fallbackTitle, ...DEFAULT_SETTINGS };

@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { generateCombinations } from '../../../shared/design/combinations.js';
 import type { CaseCategory, Combination, LoadCase } from '../../../shared/model/types.js';
 
-const lc = (id: string, category: CaseCategory): LoadCase => ({ id, category, title: id, selfWeight: 0 });
+const lc = (id: string, category: CaseCategory): LoadCase => ({ id, category, title: id, selfWeight: 0, mass: false });
 const cases = [lc('D', 'dead'), lc('L', 'live'), lc('S', 'snow'), lc('Wx', 'wind'), lc('Wy', 'wind'), lc('E', 'seismic')];
 const factors = (c: Combination) => Object.fromEntries(c.terms.map((t) => [t.case, t.factor]));
 const has = (list: Combination[], f: Record<string, number>) => list.some((c) => {

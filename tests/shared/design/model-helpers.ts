@@ -3,7 +3,7 @@ import type { Member, Model, Section, Settings } from '../../../shared/model/typ
 import type { AnalysisResult, Loading, StationForces } from '../../../shared/engine/types.js';
 
 export function settings(over: Partial<Settings> = {}): Settings {
-  return { title: 't', units: 'metric', verticalAxis: 'Y', designCode: 'en1993-1-1', combinationRule: 'table', deflectionLimit: 360, gammaM0: 1, gammaM1: 1, gammaM2: 1.25, ...over };
+  return { title: 't', units: 'metric', verticalAxis: 'Y', designCode: 'en1993-1-1', combinationRule: 'table', deflectionLimit: 360, gammaM0: 1, gammaM1: 1, gammaM2: 1.25, stations: 11, analysis: 'first_order', bucklingModes: 0, modes: 0, stabilityWarning: true, ...over };
 }
 
 export function member(id: string, start: string, end: string, section: string, over: Partial<Member> = {}): Member {
@@ -18,8 +18,8 @@ export function model(sections: Section[], members: Member[], nodes: [string, nu
     supports: supported.map((node) => ({ node, restrained: [true, true, true, true, true, true], springs: [0, 0, 0, 0, 0, 0] })),
     materials: [{ id: 'S235', E: 210e9, G: 80.77e9, nu: 0.3, fy: 235e6, fu: 360e6, density: 7850, alpha: 1.2e-5 }],
     sections, members,
-    cases: [{ id: 'D', category: 'dead', title: 'D', selfWeight: 0 }],
-    nodeLoads: [], memberLoads: [], settlements: [], combinations: [], vehicles: [], lanes: [], movingLoads: [],
+    cases: [{ id: 'D', category: 'dead', title: 'D', selfWeight: 0, mass: false }],
+    nodeLoads: [], memberLoads: [], settlements: [], combinations: [], vehicles: [], lanes: [], movingLoads: [], resultPoints: [],
   };
 }
 

@@ -23,6 +23,7 @@ export class ModelBuilder {
       settings: {
         title: 'test', units: 'metric', verticalAxis: vertical, designCode: 'none', combinationRule: 'table',
         deflectionLimit: 360, gammaM0: 1, gammaM1: 1, gammaM2: 1.25,
+        stations: 11, analysis: 'first_order', bucklingModes: 0, modes: 0, stabilityWarning: true,
       },
       inferred: {
         verticalAxisInferred: false,
@@ -30,7 +31,7 @@ export class ModelBuilder {
         defaulted: [],
       },
       nodes: [], supports: [], materials: [], sections: [], members: [], cases: [], nodeLoads: [],
-      memberLoads: [], settlements: [], combinations: [], vehicles: [], lanes: [], movingLoads: [],
+      memberLoads: [], settlements: [], combinations: [], vehicles: [], lanes: [], movingLoads: [], resultPoints: [],
     };
     this.material('steel', {});
     this.section('S', {});
@@ -75,7 +76,7 @@ export class ModelBuilder {
   }
 
   loadCase(id: string, selfWeight = 0): this {
-    this.model.cases.push({ id, category: 'dead', title: id, selfWeight });
+    this.model.cases.push({ id, category: 'dead', title: id, selfWeight, mass: false });
     return this;
   }
 

@@ -85,7 +85,7 @@ describe('tapered members', () => {
     m.nodes.push({ id: 'A', x: 0, y: 0, z: 0 }, { id: 'B', x: L, y: 0, z: 0 });
     m.supports.push({ node: 'A', restrained: [true, true, true, true, true, true], springs: [0, 0, 0, 0, 0, 0] });
     m.members.push({ id: 'M1', start: 'A', end: 'B', section: 'R0', sectionEnd: 'R1', material: 'steel', type: 'frame', roll: 0, releaseStart: 'fixed', releaseEnd: 'fixed', kMajor: 1, kMinor: 1 });
-    m.cases.push({ id: 'D', category: 'dead', title: 'D', selfWeight: 0 });
+    m.cases.push({ id: 'D', category: 'dead', title: 'D', selfWeight: 0, mass: false });
     m.nodeLoads.push({ case: 'D', node: 'B', values: [0, 0, -P, 0, 0, 0] });
     const r = analyse(m);
     // δ = ∫₀ᴸ P(L−x)²/(E·b·h(x)³/12) dx with h linear (Simpson, n = 2000). Tolerance 0.5 %.

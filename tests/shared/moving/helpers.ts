@@ -10,7 +10,7 @@ export function addMoving(
 ): ModelBuilder {
   const m = b.model;
   const lc = opts.case ?? 'LM';
-  if (!m.cases.some((c) => c.id === lc)) m.cases.push({ id: lc, category: 'live', title: lc, selfWeight: 0 });
+  if (!m.cases.some((c) => c.id === lc)) m.cases.push({ id: lc, category: 'live', title: lc, selfWeight: 0, mass: false });
   axles.forEach((a, i) => m.vehicles.push({ vehicle: 'V', axle: String(i + 1), offset: a.offset, load: a.load }));
   members.forEach((id, i) => m.lanes.push({ lane: 'deck', seq: i + 1, member: id }));
   m.movingLoads.push({ case: lc, vehicle: 'V', lane: 'deck', step: opts.step, direction: opts.direction ?? 'both' });
