@@ -27,7 +27,7 @@ import { flexuralBuckling } from './buckling.js';
 import { bendingResistance, momentWithShear, type EnBending } from './bending.js';
 import { shearResistance } from './shear.js';
 import { torsionHead, torsionLast, torsionPlan, torsionRatio } from './torsion.js';
-import { axialBendingHead, axialBendingPlan, axialBendingRatio } from './axial-bending.js';
+import { axialBendingHead, axialBendingLast, axialBendingPlan, axialBendingRatio } from './axial-bending.js';
 import { c1Linear, ltbHead, ltbMb, ltbPlan, ltbResistance } from './ltb.js';
 import { annexB, cmB3, interactionHead, type InteractionFactors, type InteractionInput } from './interaction.js';
 
@@ -277,7 +277,10 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
           h.inputs.push(inp('α', 'compressed fraction of the web, plastic (Table 5.2)', lastWeb.alpha, 'ratio'),
             inp('ψ', Number.isNaN(lastWeb.psi) ? 'web wholly in tension' : 'web edge stress ratio σ2/σ1, elastic (Table 5.2)', Number.isNaN(lastWeb.psi) ? 'n/a' : lastWeb.psi, Number.isNaN(lastWeb.psi) ? 'text' : 'ratio'));
         }
-        out[iFrame + 4] = interactionRecord(h, id, combination, ratio[iFrame + 4], xs[i]);
+        const form = axialBendingLast.form;
+        out[iFrame + 4] = form === 'major' || form === 'minor'
+          ? finish({ ...h, quantity: 'moment' }, id, combination, form === 'major' ? axialBendingLast.MNy : axialBendingLast.MNz, form === 'major' ? My : Mz, xs[i])
+          : interactionRecord(h, id, combination, ratio[iFrame + 4], xs[i]);
       }
     }
     if (ltb.applies && (!want || want[iLtb])) {
