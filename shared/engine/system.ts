@@ -57,10 +57,11 @@ export function elementGlobal(mesh: Mesh, e: number, kg: Float64Array, off: numb
   }
 }
 
-export function buildSystem(model: Model, taperSegments: number, timing: Stopwatch | Record<string, number>): LinearSystem {
+/** `subdivisions`: sub-elements per prismatic frame member (MeshOptions); default 1. */
+export function buildSystem(model: Model, taperSegments: number, timing: Stopwatch | Record<string, number>, subdivisions = 1): LinearSystem {
   const sw = timing instanceof Stopwatch ? timing : new Stopwatch(timing);
 
-  const mesh = buildMesh(model, { taperSegments });
+  const mesh = buildMesh(model, { taperSegments, subdivisions });
   sw.fine('mesh');
   const nodeIndex = new Map<string, number>(model.nodes.map((n, i) => [n.id, i]));
   const caseIndex = new Map<string, number>();

@@ -1,0 +1,161 @@
+/**
+ * Geometric stiffness of frame and truss elements from their axial force N (tension
+ * positive), the part of the linearised second-order stiffness K + K_G(N) that the axial
+ * force adds, and its assembly into the engine's lower-triangle CSC pattern.
+ *
+ * Frame element (Euler–Bernoulli, the cubic Hermite shapes of element.ts): the consistent
+ * geometric stiffness K_G = N ∫ N'ᵀ N' dx in each bending plane,
+ *   (N / 30L) · [ 36   3L  −36   3L ;  3L  4L²  −3L  −L² ; −36  −3L  36  −3L ;  3L  −L²  −3L  4L² ]
+ * on (v1, θz1, v2, θz2) (θz = dv/dx), and the same with the w–θy couplings of opposite sign on
+ * (w1, θy1, w2, θy2) because θy = −dw/dx (the sign pattern of element.ts). Axial and torsional
+ * rows carry nothing: no Wagner (torsional-flexural) term, so torsional and lateral-torsional
+ * buckling are not captured; flexural buckling and P-Δ / P-δ are.
+ * Truss element: the string stiffness N/L · (I − e eᵀ) on the transverse translations.
+ *
+ * End releases: the released rotation is condensed out with the element's elastic stiffness,
+ * u_r = −K_rr⁻¹ K_rc u_c, and K_G becomes Tᵀ K_G T with that map T — the consistent geometric
+ * stiffness of the released element's own shapes. It stays linear in N (so (K + α K_G) φ = 0 is
+ * a linear eigenproblem) and its released rows and columns are zero, as in the elastic matrix.
+ * The map does not depend on EI (both rows of a plane scale with it), so no properties are needed.
+ */
+import { addElement, type Pattern } from '../engine/assembly.js';
+import type { Mesh } from '../engine/discretise.js';
+import { elementReleases } from '../engine/discretise.js';
+import { type EndReleases, localStiffness, toGlobalStiffness } from '../engine/element.js';
+
+const UNIT = { EA: 1, EIy: 1, EIz: 1, GJ: 1 };
+const NONE: EndReleases = { startMajor: false, startMinor: false, endMajor: false, endMinor: false };
+
+/** Local 12×12 geometric stiffness (row-major) of a frame or truss element into k (zeroed here). */
+export function localGeometricStiffness(N: number, L: number, truss: boolean, rel: EndReleases, k: Float64Array): Float64Array {
+  k.fill(0);
+  if (N === 0) return k;
+  const set = (i: number, j: number, v: number) => {
+    k[i * 12 + j] = v;
+    k[j * 12 + i] = v;
+  };
+  const c = N / L;
+  if (truss) {
+    set(1, 1, c); set(7, 7, c); set(1, 7, -c);
+    set(2, 2, c); set(8, 8, c); set(2, 8, -c);
+    return k;
+  }
+  const a = (6 / 5) * c, b = (L / 10) * c, d = ((2 * L * L) / 15) * c, e = (-(L * L) / 30) * c;
+  // minor-axis plane: v (1, 7), θz (5, 11)
+  set(1, 1, a); set(7, 7, a); set(1, 7, -a);
+  set(1, 5, b); set(1, 11, b); set(7, 5, -b); set(7, 11, -b);
+  set(5, 5, d); set(11, 11, d); set(5, 11, e);
+  // major-axis plane: w (2, 8), θy (4, 10); θy = −dw/dx flips the w–θ couplings
+  set(2, 2, a); set(8, 8, a); set(2, 8, -a);
+  set(2, 4, -b); set(2, 10, -b); set(8, 4, b); set(8, 10, b);
+  set(4, 4, d); set(10, 10, d); set(4, 10, e);
+  if (rel.startMajor || rel.startMinor || rel.endMajor || rel.endMinor) condenseGeometric(k, L, rel);
+  return k;
+}
+
+/** K_G ← Tᵀ K_G T, T the elastic condensation map of the released rotations (see the file header). */
+function condenseGeometric(kG: Float64Array, L: number, rel: EndReleases): void {
+  const r: number[] = [];
+  if (rel.startMajor) r.push(4);
+  if (rel.startMinor) r.push(5);
+  if (rel.endMajor) r.push(10);
+  if (rel.endMinor) r.push(11);
+  const ke = localStiffness(UNIT, L, false, NONE, new Float64Array(144));
+  // T = I with rows r replaced by −K_rr⁻¹ K_rc (columns r zero): Gauss–Jordan on [K_rr | K_r,all]
+  const m = r.length;
+  const A = r.map((i) => r.map((j) => ke[i * 12 + j]));
+  const B = r.map((i) => Array.from({ length: 12 }, (_, j) => (r.includes(j) ? 0 : -ke[i * 12 + j])));
+  for (let p = 0; p < m; p++) {
+    const piv = A[p][p];
+    for (let j = 0; j < m; j++) A[p][j] /= piv;
+    for (let j = 0; j < 12; j++) B[p][j] /= piv;
+    for (let q = 0; q < m; q++) {
+      if (q === p || A[q][p] === 0) continue;
+      const f = A[q][p];
+      for (let j = 0; j < m; j++) A[q][j] -= f * A[p][j];
+      for (let j = 0; j < 12; j++) B[q][j] -= f * B[p][j];
+    }
+  }
+  const T = new Float64Array(144);
+  for (let i = 0; i < 12; i++) T[i * 13] = 1;
+  r.forEach((i, p) => { for (let j = 0; j < 12; j++) T[i * 12 + j] = B[p][j]; });
+  // kG ← Tᵀ (kG T)
+  const KT = new Float64Array(144);
+  for (let i = 0; i < 12; i++) {
+    for (let j = 0; j < 12; j++) {
+      let s = 0;
+      for (let q = 0; q < 12; q++) s += kG[i * 12 + q] * T[q * 12 + j];
+      KT[i * 12 + j] = s;
+    }
+  }
+  for (let i = 0; i < 12; i++) {
+    for (let j = 0; j < 12; j++) {
+      let s = 0;
+      for (let q = 0; q < 12; q++) s += T[q * 12 + i] * KT[q * 12 + j];
+      kG[i * 12 + j] = s;
+    }
+  }
+  // exact zeros on the released rows and columns (rounding)
+  for (const i of r) for (let j = 0; j < 12; j++) { kG[i * 12 + j] = 0; kG[j * 12 + i] = 0; }
+}
+
+/** Scratch for elementGeometricGlobal (two 144-long arrays). */
+export interface GeometricScratch {
+  kl: Float64Array;
+  tmp: Float64Array;
+}
+
+export function geometricScratch(): GeometricScratch {
+  return { kl: new Float64Array(144), tmp: new Float64Array(144) };
+}
+
+/** Global 12×12 geometric stiffness (row-major) of mesh element e for axial force N into kg at off. */
+export function elementGeometricGlobal(mesh: Mesh, e: number, N: number, kg: Float64Array, off: number, s: GeometricScratch): void {
+  const m = mesh.members[mesh.elMember[e]];
+  localGeometricStiffness(N, mesh.elL[e], m.truss, elementReleases(mesh.elRel[e]), s.kl);
+  toGlobalStiffness(s.kl, m.R, kg, s.tmp, off);
+}
+
+/**
+ * Σ K_G,e(N_e) over the mesh's elements, as a values array aligned with `pat.K` (same
+ * lower-triangle CSC pattern as the engine's stiffness; zero-filled here). `axial[e]` is the
+ * axial force of element e (tension positive), e.g. from `elementAxialForces`.
+ */
+export function assembleGeometricStiffness(
+  sys: { mesh: Mesh; eq: Int32Array; pat: Pattern }, axial: ArrayLike<number>, out?: Float64Array,
+): Float64Array {
+  const { mesh, eq, pat } = sys;
+  const values = out ?? new Float64Array(pat.K.values.length);
+  values.fill(0);
+  const target: Pattern = { ...pat, K: { ...pat.K, values } };
+  const kg = new Float64Array(144), s = geometricScratch();
+  for (let e = 0; e < mesh.nElements; e++) {
+    const N = axial[e];
+    if (N === 0) continue;
+    elementGeometricGlobal(mesh, e, N, kg, 0, s);
+    addElement(target, eq, e, mesh.elStart[e], mesh.elEnd[e], kg, 0);
+  }
+  return values;
+}
+
+/**
+ * Axial force of every element (tension positive; the mean of its two end values, so an
+ * element under an axial span load carries its average) from full node displacements
+ * `u` (nNodes × 6, global) and the element's fixed-end forces (local, may be undefined).
+ * `eaFactor[e]`, when given, multiplies the element's EA (reduced stiffness of a design method).
+ */
+export function elementAxialForces(
+  mesh: Mesh, u: ArrayLike<number>, fef?: (e: number) => ArrayLike<number> | undefined, eaFactor?: ArrayLike<number>,
+): Float64Array {
+  const out = new Float64Array(mesh.nElements);
+  for (let e = 0; e < mesh.nElements; e++) {
+    const R = mesh.members[mesh.elMember[e]].R;
+    const a = mesh.elStart[e] * 6, b = mesh.elEnd[e] * 6;
+    const du = R[0] * (u[b] - u[a]) + R[1] * (u[b + 1] - u[a + 1]) + R[2] * (u[b + 2] - u[a + 2]);
+    let N = ((eaFactor ? eaFactor[e] : 1) * mesh.elProps[e * 5] / mesh.elL[e]) * du;
+    const f = fef?.(e);
+    if (f) N += (f[6] - f[0]) / 2;
+    out[e] = N;
+  }
+  return out;
+}
