@@ -309,4 +309,73 @@ export function plantStructure(): SampleModel {
   };
 }
 
-export const SAMPLES = [footbridgeTruss, portalFrameBuilding, plantStructure, roadBridgeTruss];
+/**
+ * A workshop's three-storey, two-bay moment frame with fixed bases and no bracing: a sway
+ * frame, analysed to second order (EN 1993-1-1 5.2 with the sway imperfection of 5.3.2),
+ * with its critical load factors and natural modes. Plane frame in X–Z, metric.
+ */
+export function swayMomentFrame(): SampleModel {
+  const xs = [0, 6.5, 13];
+  const zs = [0, 4.2, 7.8, 11.4];
+  const id = (i: number, k: number) => `N${i}${k}`;
+  const nodes: Table = [['node', 'x', 'y', 'z']];
+  for (let k = 0; k < zs.length; k++) for (let i = 0; i < xs.length; i++) nodes.push([id(i, k), xs[i], 0, zs[k]]);
+  const members: Table = [['member', 'start', 'end', 'section', 'material', 'group', 'lb', 'deflection_limit']];
+  for (let i = 0; i < xs.length; i++) for (let k = 0; k < 3; k++) {
+    members.push([`C${i}${k + 1}`, id(i, k), id(i, k + 1), i === 1 ? 'HEB220' : 'HEB180', 'S355', i === 1 ? 'inner column' : 'outer column', null, null]);
+  }
+  for (let k = 1; k < zs.length; k++) for (let i = 0; i < 2; i++) {
+    // floor beams braced by the deck (lb = 0); the roof beams by purlins at 1.625 m
+    members.push([`B${i}${k}`, id(i, k), id(i + 1, k), k === 3 ? 'IPE330' : 'IPE400', 'S355', k === 3 ? 'roof beam' : 'floor beam', k === 3 ? 1.625 : 0, 300]);
+  }
+  const memberLoads: Table = [['case', 'member', 'kind', 'direction', 'a', 'b', 'w1', 'w2']];
+  for (let k = 1; k < zs.length; k++) for (let i = 0; i < 2; i++) {
+    memberLoads.push(['G', `B${i}${k}`, 'uniform', 'global_z', null, null, k === 3 ? -12 : -30, null]);
+    memberLoads.push(['Q', `B${i}${k}`, 'uniform', 'global_z', null, null, k === 3 ? -6 : -32, null]);
+  }
+  // a crane rail bracket on the inner column below the first floor
+  memberLoads.push(['Q', 'C11', 'point', 'global_x', 3.2, null, 6, null]);
+  const nodeLoads: Table = [['case', 'node', 'fx', 'fy', 'fz']];
+  nodeLoads.push(['W', id(0, 1), 16, null, null], ['W', id(0, 2), 14, null, null], ['W', id(0, 3), 8, null, null]);
+  nodeLoads.push(['W', id(2, 1), 9, null, null], ['W', id(2, 2), 8, null, null], ['W', id(2, 3), 4.5, null, null]);
+  return {
+    name: 'sway-moment-frame',
+    tables: {
+      settings: [
+        ['key', 'value'],
+        ['title', 'Workshop moment frame, second order (demo)'],
+        ['units', 'metric'],
+        ['vertical_axis', 'Z'],
+        ['design_code', 'en1993-1-1'],
+        ['combination_rule', 'table'],
+        ['analysis', 'second_order'],
+        ['buckling_modes', 3],
+        ['modes', 4],
+        ['stations', 21],
+      ],
+      nodes,
+      supports: [['node', 'type'], ...[0, 1, 2].map((i) => [id(i, 0), 'fixed'])],
+      members,
+      cases: [
+        ['case', 'category', 'title', 'self_weight', 'mass'],
+        ['G', 'dead', 'Steel, floors and roof', 1, 'yes'],
+        ['Q', 'live', 'Workshop floors and roof access', null, 'no'],
+        ['W', 'wind', 'Wind from the left', null, 'no'],
+      ],
+      node_loads: nodeLoads,
+      member_loads: memberLoads,
+      // the bracket position on the inner column, read exactly
+      result_points: [['member', 'x'], ['C11', 3.2]],
+      combinations: [
+        ['combination', 'limit_state', 'G', 'Q', 'W'],
+        ['ULS-1', 'strength', 1.35, 1.5, null],
+        ['ULS-2', 'strength', 1.35, 1.05, 1.5],
+        ['ULS-3', 'strength', 1.0, null, 1.5],
+        ['SLS-1', 'service', 1.0, 1.0, null],
+        ['SLS-2', 'service', 1.0, null, 1.0],
+      ],
+    },
+  };
+}
+
+export const SAMPLES = [footbridgeTruss, portalFrameBuilding, plantStructure, roadBridgeTruss, swayMomentFrame];
