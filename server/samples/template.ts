@@ -11,10 +11,10 @@ import { unitOf } from '../../shared/units/index.js';
 /** Column names as users write them (the reader matches them case-insensitively). */
 const DISPLAY: Record<string, string> = {
   e: 'E', g: 'G', a: 'A', i_major: 'I_major', i_minor: 'I_minor', j: 'J', cw: 'Cw', s_major: 'S_major', s_minor: 'S_minor',
-  z_major: 'Z_major', z_minor: 'Z_minor', av_major: 'Av_major', av_minor: 'Av_minor', n: 'N',
+  z_major: 'Z_major', z_minor: 'Z_minor', av_major: 'Av_major', av_minor: 'Av_minor', n: 'N', an: 'An', u: 'U', ae: 'Ae',
 };
 
-const ORDER = ['settings', 'materials', 'sections', 'nodes', 'supports', 'members', 'cases', 'node_loads', 'member_loads', 'settlements', 'combinations'];
+const ORDER = ['settings', 'materials', 'sections', 'nodes', 'supports', 'members', 'cases', 'node_loads', 'member_loads', 'settlements', 'combinations', 'result_points'];
 
 export function templateHeader(c: ColumnSpec, units: UnitSystem): string {
   const name = DISPLAY[c.name] ?? c.name;
@@ -31,7 +31,9 @@ const INSTRUCTIONS = (units: UnitSystem) => [
   'The first row of each sheet holds the column names. Put one item per row below it; blank rows are skipped.',
   `Units: this template uses the "${units}" unit system. A unit in square brackets after a column name sets the unit of`,
   'that column (for example "x [mm]" or "fy [ksi]"); change it if your numbers are in another unit.',
-  'settings: one key per row (title, units, vertical_axis, design_code, combination_rule, deflection_limit, gamma_m0 …).',
+  'settings: one key per row (title, units, vertical_axis, design_code, combination_rule, deflection_limit, gamma_m0 …,',
+  'stations, analysis, buckling_modes, modes, stability_warning).',
+  'result_points: optional extra result positions, one row per member and distance x from its start node.',
   'Identifiers (node, member, section, material, case, combination) are text and must be unique in their table.',
   'A member may name a catalogue section (for example IPE300 or W12X26) or a built-in material (for example S355 or A992)',
   'without defining it in the sections or materials sheet.',

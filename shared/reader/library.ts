@@ -4,7 +4,10 @@
  * wins over the built-in one).
  */
 import { builtInMaterial } from '../materials/index.js';
-import { SECTION_PROPS, type Material, type Section, type SectionDims, type SectionProps, type ShapeKind } from '../model/types.js';
+import {
+  SECTION_PROPS, type Material, type NetArea, type Section, type SectionDims, type SectionProps, type ShapeKind, type UnitSystem,
+} from '../model/types.js';
+import { formatNumber, fromSI, unitOf } from '../units/index.js';
 import { catalogueSection, sectionProperties, validateDimensions } from '../sections/index.js';
 import type { Problems } from './problems.js';
 import type { ParsedTable } from './table.js';
@@ -54,7 +57,7 @@ export interface SectionsRead {
   labels: Record<string, string>;
 }
 
-export function readSections(t: ParsedTable | undefined, problems: Problems): SectionsRead {
+export function readSections(t: ParsedTable | undefined, problems: Problems, system: UnitSystem = 'metric'): SectionsRead {
   const sections = new Map<string, Section>();
   const invalid = new Set<string>();
   if (!t) return { sections, labels: {}, invalid };
@@ -85,7 +88,13 @@ export function readSections(t: ParsedTable | undefined, problems: Problems): Se
       for (const i of issues) problems.error('sections', r.row, i.field === 'D' ? lab('d') : lab(i.field), `section ${id}: ${i.message}`);
       if (issues.length === 0 && ok) {
         try {
-          Object.assign(props, sectionProperties(shape, dims));
+          const computed = sectionProperties(shape, dims);
+          // huge dimensions can overflow a property (d⁴ of 1e80 m): refuse, never store it
+          const bad = (Object.keys(computed) as (keyof SectionProps)[]).find((k) => !Number.isFinite(computed[k]));
+          if (bad) {
+            ok = false;
+            problems.error('sections', r.row, lab(firstDimension(dims)), `section ${id}: the dimensions are so large that ${bad} overflows`);
+          } else Object.assign(props, computed);
         } catch (e) {
           ok = false;
           problems.error('sections', r.row, lab('shape'), `section ${id}: properties of ${shape} sections cannot be computed (${(e as Error).message}); give them as a custom section`);
@@ -102,9 +111,45 @@ export function readSections(t: ParsedTable | undefined, problems: Problems): Se
       problems.error('sections', r.row, lab('a'), `custom section ${id} needs A`);
     }
     if (!ok) invalid.add(id);
-    sections.set(id, { id, shape, dims, props, given, row: r.row });
+    const net = readNetArea('sections', r.row, `section ${id}`, v, ok ? props.A : undefined, lab, problems, system);
+    sections.set(id, { id, shape, dims, props, given, ...(net ? { net } : {}), row: r.row });
   }
   return { sections, labels: t.label, invalid };
+}
+
+function firstDimension(dims: SectionDims): string {
+  const k = Object.keys(dims)[0] ?? 'shape';
+  return k === 'D' ? 'd' : k;
+}
+
+/**
+ * The tension net area columns of a sections or members row (`an`, `u`, `ae`, already in SI),
+ * or undefined when none is given. U and Ae on one row are refused (Ae = U·An: say one);
+ * An and Ae may not exceed the gross area A where it is known.
+ */
+export function readNetArea(
+  table: string, row: number, what: string, v: Record<string, unknown>, A: number | undefined,
+  lab: (c: string) => string, problems: Problems, system: UnitSystem,
+): NetArea | undefined {
+  const area = (x: number) => `${formatNumber(fromSI(x, 'area', system))} ${unitOf('area', system)}`;
+  const net: NetArea = {};
+  if (v.an !== undefined) net.An = v.an as number;
+  if (v.u !== undefined) net.U = v.u as number;
+  if (v.ae !== undefined) net.Ae = v.ae as number;
+  if (net.An === undefined && net.U === undefined && net.Ae === undefined) return undefined;
+  if (net.U !== undefined && net.Ae !== undefined) {
+    problems.error(table, row, lab('ae'), `${what}: give either U (with An or the gross area) or Ae, not both (Ae = U·An)`);
+  }
+  const tol = A !== undefined ? A * 1e-9 : 0;
+  if (A !== undefined && A > 0) {
+    if (net.An !== undefined && net.An > A + tol) {
+      problems.error(table, row, lab('an'), `${what}: An = ${area(net.An)} exceeds the gross area A = ${area(A)}`);
+    }
+    if (net.Ae !== undefined && net.Ae > A + tol) {
+      problems.error(table, row, lab('ae'), `${what}: Ae = ${area(net.Ae)} exceeds the gross area A = ${area(A)}`);
+    }
+  }
+  return net;
 }
 
 /** The section a member names: the workbook's own first, then the catalogue. */

@@ -6,12 +6,13 @@ import {
   FREEDOMS, type LoadCase, type Material, type Member, type MemberLoad, type MemberLoadKind, type Model, type MovingLoad,
   type Node, type NodeLoad, type Problem, type ReadResult, type Section, type SectionProps, type Settlement, type Six,
   type Support, type LaneMember, type VehicleAxle, type CaseCategory, type LoadDirection, type MemberType, type Release, type Combination,
+  type ResultPoint,
 } from '../model/types.js';
-import { toSI, type Quantity } from '../units/index.js';
+import { formatNumber, fromSI, toSI, unitOf, type Quantity } from '../units/index.js';
 import { generatedCombinations, oneCombinationPerCase, readCombinationsTable } from './combinations.js';
 import { detectPlaneFrame, inferVerticalAxis } from './inference.js';
 import { lanePath } from './lanes.js';
-import { readMaterials, readSections, resolveMaterial, resolveSection } from './library.js';
+import { readMaterials, readNetArea, readSections, resolveMaterial, resolveSection } from './library.js';
 import { canonicalName } from './names.js';
 import { Problems } from './problems.js';
 import { readSettings } from './settings.js';
@@ -153,7 +154,7 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
 
   // 5. materials and sections
   const ownMaterials = readMaterials(parsed.materials, problems);
-  const { sections: ownSections, invalid: invalidSections } = readSections(parsed.sections, problems);
+  const { sections: ownSections, invalid: invalidSections } = readSections(parsed.sections, problems, system);
   const usedMaterials = new Map<string, Material>();
   const usedSections = new Map<string, Section>();
 
@@ -238,6 +239,12 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
       if (!mat) problems.error('members', r.row, lab('members', 'material'), `unknown material ${m.material}: not in the materials table nor a built-in material`);
       else memberMaterial.set(id, mat);
     }
+    // tension net area of this member (overrides the section's); An, Ae ≤ the smaller gross area
+    const ends = m.sectionEnd !== undefined ? [sec, resolveSection(m.sectionEnd, ownSections, usedSections)] : [sec];
+    const known = ends.every((x) => x !== undefined && !invalidSections.has(x.id) && x.props.A > 0);
+    const grossA = known ? Math.min(...ends.map((x) => x!.props.A)) : undefined;
+    const net = readNetArea('members', r.row, `member ${id}`, v, grossA, (c) => lab('members', c), problems, system);
+    if (net) m.net = net;
     if (settings.designCode !== 'none' && sec) {
       if ((CODE_SHAPES[settings.designCode] ?? []).includes(sec.shape)) checkable++;
       else uncheckable.push({ member: id, row: r.row, section: sec.id, shape: sec.shape });
@@ -277,7 +284,8 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
     }
     cases.set(id, {
       id, category: (r.v.category as CaseCategory | undefined) ?? 'other', title: (r.v.title as string | undefined) ?? '',
-      selfWeight: (r.v.self_weight as number | undefined) ?? 0, mass: false, row: r.row,
+      selfWeight: (r.v.self_weight as number | undefined) ?? 0,
+      mass: r.v.mass === 'yes' || r.v.mass === 'true' || r.v.mass === '1', row: r.row,
     });
   }
   const caseRef = (table: string, row: number, id: string | undefined): boolean => {
@@ -329,6 +337,12 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
     const q = KIND_QUANTITY[kind];
     const w1 = toSI(v.w1 as number, q, system);
     let w2 = v.w2 === undefined ? undefined : toSI(v.w2 as number, q, system);
+    // w1/w2 take their unit from the kind, so they are converted here, not by the row parser
+    const overflow = !Number.isFinite(w1) ? 'w1' : w2 !== undefined && !Number.isFinite(w2) ? 'w2' : undefined;
+    if (overflow) {
+      problems.error('member_loads', r.row, lab('member_loads', overflow), `${overflow} = ${v[overflow] as number} overflows when converted to SI units`);
+      continue;
+    }
     if ((kind === 'linear' || kind === 'temperature_gradient') && w2 === undefined) {
       problems.error('member_loads', r.row, lab('member_loads', 'w2'), `a ${kind} load needs w2`);
       continue;
@@ -476,6 +490,31 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
     movingLoads.push({ case: r.v.case as string, vehicle, lane, step, direction: direction ?? 'both', row: r.row });
   }
 
+  // 13. result points
+  const resultPoints: ResultPoint[] = [];
+  for (const r of parsed.result_points?.rows ?? []) {
+    const mid = r.v.member as string | undefined;
+    const x = r.v.x as number | undefined;
+    if (mid === undefined) continue;
+    if (!members.has(mid)) {
+      problems.error('result_points', r.row, lab('result_points', 'member'), `unknown member ${mid}`);
+      continue;
+    }
+    if (x === undefined) continue;
+    const L = memberLength.get(mid);
+    if (L === undefined) continue; // the member's own row already has an error
+    if (x > L * (1 + 1e-9)) {
+      problems.error('result_points', r.row, lab('result_points', 'x'), `x is beyond the end of member ${mid}, whose length is ${formatNumber(fromSI(L, 'length', system))} ${unitOf('length', system)}`);
+      continue;
+    }
+    resultPoints.push({ member: mid, x: Math.min(x, L), row: r.row });
+  }
+
+  // second order analyses each loading on its own; a moving-load envelope is a superposition
+  if (settings.analysis === 'second_order' && raw.has('moving_loads')) {
+    problems.error('settings', sr.rows.analysis, 'value', 'analysis = second_order cannot be combined with moving loads (table moving_loads): second order analyses each loading on its own, and moving-load envelopes need superposition; use first_order or remove the moving_loads table');
+  }
+
   const model: Model = {
     settings,
     inferred: { verticalAxisInferred: !sr.verticalAxisGiven, planeFrame, defaulted: sr.defaulted },
@@ -492,7 +531,7 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
     vehicles,
     lanes,
     movingLoads,
-    resultPoints: [],
+    resultPoints,
   };
   // report in table order (settings first), then by row, keeping the order found within a row
   const order = ['', 'settings', ...KNOWN_TABLES.filter((t) => t !== 'settings')];

@@ -1,6 +1,7 @@
 /** The `settings` table: key/value pairs with defaults (tables.md "settings"). */
 import {
-  COMBINATION_RULES, DESIGN_CODES, type CombinationRule, type DesignCode, type Settings, type UnitSystem, type VerticalAxis,
+  ANALYSIS_ORDERS, COMBINATION_RULES, DESIGN_CODES, type AnalysisOrder, type CombinationRule, type DesignCode, type Settings,
+  type UnitSystem, type VerticalAxis,
 } from '../model/types.js';
 import { SETTINGS_DEFAULTS } from '../model/defaults.js';
 import { canonicalName, matchEnum } from './names.js';
@@ -13,17 +14,37 @@ export interface SettingsRead {
   defaulted: string[];
   /** true when vertical_axis was given */
   verticalAxisGiven: boolean;
+  /** row of each key that was given (later checks point back to it) */
+  rows: Partial<Record<SettingKey, number>>;
   count: number;
 }
 
-const KEYS = ['title', 'units', 'vertical_axis', 'design_code', 'combination_rule', 'deflection_limit', 'gamma_m0', 'gamma_m1', 'gamma_m2'] as const;
-type Key = (typeof KEYS)[number];
+const KEYS = [
+  'title', 'units', 'vertical_axis', 'design_code', 'combination_rule', 'deflection_limit', 'gamma_m0', 'gamma_m1', 'gamma_m2',
+  'stations', 'analysis', 'buckling_modes', 'modes', 'stability_warning',
+] as const;
+export type SettingKey = (typeof KEYS)[number];
+type Key = SettingKey;
+
+/** Result stations per member, both ends included (tables.md "settings"). */
+export const STATIONS_MIN = 3;
+export const STATIONS_MAX = 201;
+/** Our bound on buckling_modes and modes: more eigenpairs than an engineer reads, at a cost that grows with each. */
+export const MODES_MAX = 50;
+
+/** Whole-number settings and their allowed ranges. */
+const INTEGER_RANGES: Partial<Record<Key, [number, number]>> = {
+  stations: [STATIONS_MIN, STATIONS_MAX],
+  buckling_modes: [0, MODES_MAX],
+  modes: [0, MODES_MAX],
+};
 
 export const DEFAULT_SETTINGS: Omit<Settings, 'title'> = SETTINGS_DEFAULTS;
 
 export function readSettings(raw: RawTable | undefined, fallbackTitle: string, problems: Problems): SettingsRead {
   const s: Settings = { title: fallbackTitle, ...DEFAULT_SETTINGS };
   const given = new Set<Key>();
+  const rows: Partial<Record<Key, number>> = {};
   let count = 0;
   if (raw) {
     const rowNo = (i: number) => raw.rowNumbers?.[i] ?? i + 1;
@@ -57,6 +78,7 @@ export function readSettings(raw: RawTable | undefined, fallbackTitle: string, p
         }
         if (blank(value)) continue; // blank value = default
         given.add(key);
+        rows[key] = row;
         const text = String(value).trim();
         const bad = (allowed: readonly string[]) => problems.error('settings', row, 'value', `${key}: "${text}" is not one of ${allowed.join(', ')}`);
         switch (key) {
@@ -83,10 +105,35 @@ export function readSettings(raw: RawTable | undefined, fallbackTitle: string, p
             if (m) s.combinationRule = m; else bad(COMBINATION_RULES);
             break;
           }
+          case 'analysis': {
+            const m = matchEnum<AnalysisOrder>(text, ANALYSIS_ORDERS);
+            if (m) s.analysis = m; else bad(ANALYSIS_ORDERS);
+            break;
+          }
+          case 'stability_warning': {
+            const m = matchEnum(text, ['on', 'off']);
+            if (m) s.stabilityWarning = m === 'on'; else bad(['on', 'off']);
+            break;
+          }
+          case 'stations':
+          case 'buckling_modes':
+          case 'modes': {
+            const [lo, hi] = INTEGER_RANGES[key]!;
+            const n = parseNumber(value as string | number, raw.decimalComma === true);
+            if (typeof n !== 'number' || !Number.isInteger(n) || n < lo || n > hi) {
+              problems.error('settings', row, 'value', `${key} must be a whole number from ${lo} to ${hi} (got "${text}")`);
+              break;
+            }
+            if (key === 'stations') s.stations = n;
+            else if (key === 'buckling_modes') s.bucklingModes = n;
+            else s.modes = n;
+            break;
+          }
           default: {
             const n = parseNumber(value as string | number, raw.decimalComma === true);
             if (typeof n !== 'number' || !(n > 0)) {
-              problems.error('settings', row, 'value', `${key} must be a number greater than zero (got "${text}")`);
+              const why = typeof n === 'object' ? `: ${n.error}` : ` (got "${text}")`;
+              problems.error('settings', row, 'value', `${key} must be a number greater than zero${why}`);
               break;
             }
             if (key === 'deflection_limit') s.deflectionLimit = n;
@@ -102,6 +149,7 @@ export function readSettings(raw: RawTable | undefined, fallbackTitle: string, p
     settings: s,
     defaulted: KEYS.filter((k) => !given.has(k)),
     verticalAxisGiven: given.has('vertical_axis'),
+    rows,
     count,
   };
 }

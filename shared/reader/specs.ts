@@ -10,6 +10,15 @@ export const LIMIT_STATES: readonly LimitState[] = ['strength', 'service'];
 export const SUPPORT_TYPES = ['fixed', 'pinned'] as const;
 export const FIXITY = ['1', '0', 'fixed', 'free', 'yes', 'no', 'true', 'false'] as const;
 export const MOVING_DIRECTIONS = ['forward', 'backward', 'both'] as const;
+/** cases `mass`: yes/no (true/false, 1/0 read the same) */
+export const YES_NO = ['yes', 'no', 'true', 'false', '1', '0'] as const;
+
+/** tension net area columns of sections and members: An, U (0 < U ≤ 1), Ae */
+const NET_COLUMNS: ColumnSpec[] = [
+  { name: 'an', kind: 'number', quantity: 'area', min: 0, exclusiveMin: true },
+  { name: 'u', kind: 'number', min: 0, exclusiveMin: true, max: 1 },
+  { name: 'ae', kind: 'number', quantity: 'area', min: 0, exclusiveMin: true },
+];
 
 const id = (name: string, required = true): ColumnSpec => ({ name, kind: 'id', required });
 const num = (name: string, extra: Partial<ColumnSpec> = {}): ColumnSpec => ({ name, kind: 'number', ...extra });
@@ -44,6 +53,7 @@ export const TABLES: Record<string, TableSpec> = {
       nonneg('cw', 'warping'),
       nonneg('s_major', 'modulus'), nonneg('s_minor', 'modulus'), nonneg('z_major', 'modulus'), nonneg('z_minor', 'modulus'),
       nonneg('av_major', 'area'), nonneg('av_minor', 'area'), nonneg('depth', 'section_dim'),
+      ...NET_COLUMNS,
     ],
   },
   nodes: {
@@ -71,8 +81,10 @@ export const TABLES: Record<string, TableSpec> = {
       id('section_end', false),
       { name: 'group', kind: 'text' },
       pos('k_major', 'ratio'), pos('k_minor', 'ratio'),
-      pos('l_major', 'length'), pos('l_minor', 'length'), pos('lb', 'length'),
+      // lb = 0: continuously braced (no lateral-torsional buckling); buckling lengths stay > 0
+      pos('l_major', 'length'), pos('l_minor', 'length'), nonneg('lb', 'length'),
       pos('cb', 'ratio'), pos('deflection_limit', 'ratio'),
+      ...NET_COLUMNS,
     ],
   },
   cases: {
@@ -82,6 +94,7 @@ export const TABLES: Record<string, TableSpec> = {
       { name: 'category', kind: 'enum', values: CASE_CATEGORIES },
       { name: 'title', kind: 'text' },
       num('self_weight'),
+      { name: 'mass', kind: 'enum', values: YES_NO },
     ],
   },
   node_loads: {
@@ -125,6 +138,10 @@ export const TABLES: Record<string, TableSpec> = {
       { name: 'direction', kind: 'enum', values: MOVING_DIRECTIONS },
     ],
   },
+  result_points: {
+    name: 'result_points',
+    columns: [id('member'), num('x', { quantity: 'length', min: 0, required: true })],
+  },
 };
 
 /** combinations: long form */
@@ -143,5 +160,5 @@ export const COMBINATIONS_WIDE: TableSpec = {
 /** Every table of the contract, in the order problems are reported and templates list them. */
 export const KNOWN_TABLES = [
   'settings', 'nodes', 'supports', 'materials', 'sections', 'members', 'cases', 'node_loads', 'member_loads', 'settlements',
-  'combinations', 'vehicles', 'lanes', 'moving_loads',
+  'combinations', 'vehicles', 'lanes', 'moving_loads', 'result_points',
 ];

@@ -42,6 +42,8 @@ export interface ColumnSpec {
   exclusiveMin?: boolean;
   /** numbers: upper bound (exclusive) */
   maxExclusive?: number;
+  /** numbers: upper bound (inclusive) */
+  max?: number;
   integer?: boolean;
   /** the header may not carry a unit (member_loads w1/w2) */
   noUnit?: boolean;
@@ -89,7 +91,10 @@ export function parseNumber(c: Cell, decimalComma = false): number | undefined |
   let s = String(c).trim();
   if (decimalComma && /^[+-]?\d*,\d+([eE][+-]?\d+)?$/.test(s)) s = s.replace(',', '.');
   if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(s)) return { error: `"${String(c).trim()}" is not a number` };
-  return Number(s);
+  const n = Number(s);
+  // `1e309` matches the pattern but overflows to Infinity: refused, never stored as empty
+  if (!Number.isFinite(n)) return { error: `"${String(c).trim()}" is too large to be a number (overflows)` };
+  return n;
 }
 
 function describeBound(spec: ColumnSpec): string {
@@ -123,7 +128,12 @@ function parseCell(spec: ColumnSpec, c: Cell, factor: number, decimalComma: bool
       if (spec.maxExclusive !== undefined && !(n < spec.maxExclusive)) {
         return { error: `${label} must be less than ${spec.maxExclusive} (got ${n})` };
       }
-      return { value: n * factor };
+      if (spec.max !== undefined && !(n <= spec.max)) {
+        return { error: `${label} must be at most ${spec.max} (got ${n})` };
+      }
+      const si = n * factor;
+      if (!Number.isFinite(si)) return { error: `${label} = ${n} overflows when converted to SI units` };
+      return { value: si };
     }
   }
 }
