@@ -1,0 +1,317 @@
+/**
+ * The lowest eigenpairs of K φ = λ B φ: K symmetric positive definite (the engine's stiffness,
+ * factorised once with the project's sparse solver), B symmetric — the mass matrix
+ * (semidefinite) for natural modes, or −K_G (indefinite) for elastic critical load factors.
+ *
+ * Method: subspace iteration with shift-invert on the factorisation of K (the operator
+ * A = K⁻¹B, whose largest eigenvalues μ = 1/λ are the wanted ones) and Rayleigh–Ritz on the
+ * small projected pair (Xᵀ B X, Xᵀ K X) after every block solve, dense (ml-matrix, symmetric).
+ * Subspace size q = min(2n, n + 8) (the usual rule), capped by the problem size. No Sturm
+ * sequence check; no dense solve of the whole matrix: per iteration one block solve of q
+ * right-hand sides and one sparse product with B.
+ *
+ * Converged when every wanted eigenvalue μ changed by at most `tolerance` (relative, default
+ * 1e-8) between two iterations; the residual ‖Kφ − λBφ‖ / ‖Kφ‖ of every pair is reported.
+ *
+ * B indefinite: subspace iteration finds the μ of largest magnitude, of either sign. Only
+ * positive μ are wanted (λ > 0: a load factor in the direction of the loading); a negative μ
+ * of larger magnitude that has converged is locked (deflated: every later block is made
+ * K-orthogonal to it) so that it leaves the subspace free for the wanted ones.
+ */
+import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
+import { instabilityAt } from '../engine/instability.js';
+import { factorise as defaultFactorise } from '../engine/solverBridge.js';
+import type { LinearSystem } from '../engine/system.js';
+import { type FactorOptions, type Factorisation, SingularMatrixError, type SymmetricCsc } from '../solver/types.js';
+
+export interface EigenOptions {
+  /** vectors in the subspace; default min(2n, n + 8), at most the size of the problem */
+  subspace?: number;
+  /** largest relative change of a wanted eigenvalue between two iterations; default 1e-8 */
+  tolerance?: number;
+  /** default 300 */
+  maxIterations?: number;
+}
+
+export interface EigenResult {
+  /** the lowest positive λ found, ascending (at most n) */
+  values: Float64Array;
+  /** eigenvectors, column after column (nEq each), normalised to φᵀ B φ = 1 */
+  vectors: Float64Array;
+  /** ‖Kφ − λBφ‖ / ‖Kφ‖ per pair */
+  residuals: Float64Array;
+  iterations: number;
+  converged: boolean;
+  /** right-hand sides solved with the factorisation */
+  solves: number;
+  /** unwanted (negative λ) pairs locked out of the subspace */
+  locked: number;
+}
+
+/** y = S x for a symmetric lower-CSC S and q vectors stored row by row (x[i*q + c]). */
+export function symmetricProductRows(S: SymmetricCsc, x: Float64Array, q: number, y: Float64Array): void {
+  const { n, colPtr, rowIdx, values } = S;
+  y.fill(0, 0, n * q);
+  for (let j = 0; j < n; j++) {
+    const xj = j * q;
+    for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
+      const i = rowIdx[p], v = values[p];
+      if (v === 0) continue;
+      const xi = i * q;
+      if (i === j) {
+        for (let c = 0; c < q; c++) y[xj + c] += v * x[xj + c];
+      } else {
+        for (let c = 0; c < q; c++) {
+          y[xi + c] += v * x[xj + c];
+          y[xj + c] += v * x[xi + c];
+        }
+      }
+    }
+  }
+}
+
+/** Y = S X for column-major blocks (X[c*n + i]). */
+export function symmetricProduct(S: SymmetricCsc, X: Float64Array, q: number): Float64Array {
+  const n = S.n;
+  const xr = new Float64Array(n * q), yr = new Float64Array(n * q);
+  for (let c = 0; c < q; c++) for (let i = 0; i < n; i++) xr[i * q + c] = X[c * n + i];
+  symmetricProductRows(S, xr, q, yr);
+  const Y = new Float64Array(n * q);
+  for (let c = 0; c < q; c++) for (let i = 0; i < n; i++) Y[c * n + i] = yr[i * q + c];
+  return Y;
+}
+
+/** Aᵀ B for column-major n × qa and n × qb blocks: a qa × qb dense matrix (row-major). */
+function innerProducts(A: Float64Array, qa: number, B: Float64Array, qb: number, n: number): Float64Array {
+  const out = new Float64Array(qa * qb);
+  for (let a = 0; a < qa; a++) {
+    const ao = a * n;
+    for (let b = 0; b < qb; b++) {
+      const bo = b * n;
+      let s = 0;
+      for (let i = 0; i < n; i++) s += A[ao + i] * B[bo + i];
+      out[a * qb + b] = s;
+    }
+  }
+  return out;
+}
+
+/** X Z for a column-major n × q block X and a row-major q × r matrix Z: n × r, column-major. */
+function combine(X: Float64Array, q: number, Z: Float64Array, r: number, n: number): Float64Array {
+  const out = new Float64Array(n * r);
+  for (let c = 0; c < r; c++) {
+    const oo = c * n;
+    for (let k = 0; k < q; k++) {
+      const z = Z[k * r + c];
+      if (z === 0) continue;
+      const xo = k * n;
+      for (let i = 0; i < n; i++) out[oo + i] += z * X[xo + i];
+    }
+  }
+  return out;
+}
+
+/** Deterministic pseudo-random numbers in [−1, 1) (xorshift32): the same start every run. */
+function randomFill(out: Float64Array, from: number, to: number, seed: number): void {
+  let s = (seed * 2654435761) >>> 0 || 1;
+  for (let i = from; i < to; i++) {
+    s ^= s << 13; s >>>= 0;
+    s ^= s >>> 17;
+    s ^= s << 5; s >>>= 0;
+    out[i] = s / 2147483648 - 1;
+  }
+}
+
+interface Ritz {
+  /** μ per Ritz vector, in the order of the columns of Z */
+  mu: Float64Array;
+  /** q × r, row-major: Ritz vectors = Xb Z, K-orthonormal */
+  Z: Float64Array;
+  r: number;
+}
+
+/**
+ * Rayleigh–Ritz: Br z = μ Kr z with Kr (Gram matrix of the block in the K product) possibly
+ * singular (a block with dependent columns, e.g. B of lower rank than q): directions whose
+ * scaled Gram eigenvalue is below 1e-10 are dropped.
+ */
+function rayleighRitz(Kr: Float64Array, Br: Float64Array, q: number): Ritz {
+  const s = new Float64Array(q);
+  for (let i = 0; i < q; i++) s[i] = Kr[i * q + i] > 0 ? 1 / Math.sqrt(Kr[i * q + i]) : 0;
+  const kr = new Matrix(q, q), br = new Matrix(q, q);
+  for (let i = 0; i < q; i++) {
+    for (let j = 0; j < q; j++) {
+      kr.set(i, j, 0.5 * (Kr[i * q + j] + Kr[j * q + i]) * s[i] * s[j]);
+      br.set(i, j, 0.5 * (Br[i * q + j] + Br[j * q + i]) * s[i] * s[j]);
+    }
+  }
+  const ek = new EigenvalueDecomposition(kr, { assumeSymmetric: true });
+  const d = ek.realEigenvalues, V = ek.eigenvectorMatrix;
+  const dMax = Math.max(...d);
+  const keep: number[] = [];
+  for (let i = 0; i < q; i++) if (d[i] > 1e-10 * dMax) keep.push(i);
+  const r = keep.length;
+  // T = S V_keep D_keep^(-1/2): Tᵀ Kr T = I
+  const T = new Matrix(q, r);
+  keep.forEach((k, c) => {
+    const f = 1 / Math.sqrt(d[k]);
+    for (let i = 0; i < q; i++) T.set(i, c, V.get(i, k) * f);
+  });
+  const C = T.transpose().mmul(br).mmul(T);
+  const ec = new EigenvalueDecomposition(C, { assumeSymmetric: true });
+  const TW = T.mmul(ec.eigenvectorMatrix);
+  const Z = new Float64Array(q * r);
+  for (let i = 0; i < q; i++) for (let c = 0; c < r; c++) Z[i * r + c] = TW.get(i, c) * s[i];
+  return { mu: Float64Array.from(ec.realEigenvalues), Z, r };
+}
+
+/**
+ * The n lowest positive eigenvalues λ of K φ = λ B φ and their vectors. `fact` is the
+ * factorisation of K; K itself is used for deflation and residuals only.
+ */
+export function lowestEigenpairs(
+  fact: Factorisation, K: SymmetricCsc, B: SymmetricCsc, n: number, options: EigenOptions = {},
+): EigenResult {
+  const N = K.n;
+  if (B.n !== N) throw new Error(`eigen: B is ${B.n}×${B.n} but K is ${N}×${N}`);
+  if (!(Number.isInteger(n) && n >= 1)) throw new Error(`eigen: number of eigenpairs ${n} must be a positive integer`);
+  const empty = (): EigenResult => ({
+    values: new Float64Array(0), vectors: new Float64Array(0), residuals: new Float64Array(0),
+    iterations: 0, converged: true, solves: 0, locked: 0,
+  });
+  if (N === 0) return empty();
+  n = Math.min(n, N);
+  const q = Math.min(N, Math.max(n, Math.floor(options.subspace ?? Math.min(2 * n, n + 8))));
+  const tol = options.tolerance ?? 1e-8;
+  const maxIt = options.maxIterations ?? 300;
+  const maxLocked = 4 * q + 2 * n;
+
+  // locked (unwanted) eigenvectors, K-orthonormal, with K Φ and B Φ
+  const lockedPhi: Float64Array[] = [], lockedK: Float64Array[] = [], lockedB: Float64Array[] = [];
+  const deflate = (X: Float64Array, Y: Float64Array, cols: number) => {
+    for (let l = 0; l < lockedPhi.length; l++) {
+      const phi = lockedPhi[l], kphi = lockedK[l], bphi = lockedB[l];
+      for (let c = 0; c < cols; c++) {
+        const o = c * N;
+        let dot = 0;
+        for (let i = 0; i < N; i++) dot += kphi[i] * X[o + i];
+        if (dot === 0) continue;
+        for (let i = 0; i < N; i++) { X[o + i] -= dot * phi[i]; Y[o + i] -= dot * bphi[i]; }
+      }
+    }
+  };
+
+  let X = new Float64Array(N * q);
+  randomFill(X, 0, N * q, 1);
+  let Y = symmetricProduct(B, X, q);
+  let seed = 2;
+  let prevPos: number[] = [], prevNeg: number[] = [];
+  let iterations = 0, solves = 0, converged = false;
+  let ritzMu = new Float64Array(0), cols = q;
+  for (; iterations < maxIt;) {
+    iterations++;
+    const Xb = fact.solve(Y, cols);
+    solves += cols;
+    const Kr = innerProducts(Xb, cols, Y, cols, N);
+    const Yb = symmetricProduct(B, Xb, cols);
+    const Br = innerProducts(Xb, cols, Yb, cols, N);
+    const rr = rayleighRitz(Kr, Br, cols);
+    // order by |μ|, largest first
+    const order = Array.from({ length: rr.r }, (_, i) => i).sort((a, b) => Math.abs(rr.mu[b]) - Math.abs(rr.mu[a]));
+    const Zs = new Float64Array(cols * rr.r);
+    for (let i = 0; i < cols; i++) order.forEach((k, c) => { Zs[i * rr.r + c] = rr.Z[i * rr.r + k]; });
+    ritzMu = Float64Array.from(order, (k) => rr.mu[k]);
+    X = combine(Xb, cols, Zs, rr.r, N);
+    Y = combine(Yb, cols, Zs, rr.r, N);
+    cols = rr.r;
+
+    const muMax = Math.max(1e-300, ...Array.from(ritzMu, Math.abs));
+    const pos: number[] = [], neg: number[] = [];
+    ritzMu.forEach((m, i) => { if (m > 1e-12 * muMax) pos.push(i); else if (m < -1e-12 * muMax) neg.push(i); });
+    const same = (a: number, b: number | undefined) => b !== undefined && Math.abs(a - b) <= tol * Math.abs(a);
+    const wanted = pos.slice(0, n);
+    const wantedDone = wanted.every((i, k) => same(ritzMu[i], prevPos[k]));
+    // a rank-deficient B (dropped directions) holds fewer positive pairs than asked for
+    if (wantedDone && (wanted.length === n || cols < q || pos.length + neg.length < cols)) { converged = true; break; }
+
+    // lock converged negative pairs that rank above the wanted ones
+    const smallestWanted = wanted.length === n ? ritzMu[wanted[n - 1]] : 0;
+    const lockNow = neg.filter((i, k) => Math.abs(ritzMu[i]) >= smallestWanted && same(ritzMu[i], prevNeg[k]));
+    prevPos = pos.map((i) => ritzMu[i]);
+    prevNeg = neg.map((i) => ritzMu[i]);
+    if (lockNow.length && lockedPhi.length + lockNow.length <= maxLocked) {
+      const keep: number[] = [];
+      for (let c = 0; c < cols; c++) {
+        if (!lockNow.includes(c)) { keep.push(c); continue; }
+        const phi = X.slice(c * N, (c + 1) * N);
+        lockedPhi.push(phi);
+        lockedK.push(symmetricProduct(K, phi, 1));
+        lockedB.push(Y.slice(c * N, (c + 1) * N));
+      }
+      const X2 = new Float64Array(N * q), Y2 = new Float64Array(N * q);
+      keep.forEach((c, k) => { X2.set(X.subarray(c * N, (c + 1) * N), k * N); Y2.set(Y.subarray(c * N, (c + 1) * N), k * N); });
+      X = X2; Y = Y2;
+      cols = keep.length;
+      prevNeg = [];
+    }
+    if (cols < q) {
+      // refill with fresh vectors (they are dropped again if B has no room for them)
+      const X2 = new Float64Array(N * q);
+      X2.set(X.subarray(0, cols * N));
+      randomFill(X2, cols * N, q * N, seed++);
+      const fresh = symmetricProduct(B, X2.subarray(cols * N), q - cols);
+      const Y2 = new Float64Array(N * q);
+      Y2.set(Y.subarray(0, cols * N));
+      Y2.set(fresh, cols * N);
+      X = X2; Y = Y2;
+      cols = q;
+    }
+    if (lockedPhi.length) deflate(X, Y, cols);
+  }
+
+  // the wanted pairs: positive μ, largest first → λ = 1/μ ascending
+  const picked: number[] = [];
+  for (let i = 0; i < ritzMu.length && picked.length < n; i++) if (ritzMu[i] > 1e-12 * Math.max(...Array.from(ritzMu, Math.abs))) picked.push(i);
+  picked.sort((a, b) => ritzMu[b] - ritzMu[a]);
+  const m = picked.length;
+  const values = new Float64Array(m), vectors = new Float64Array(N * m), residuals = new Float64Array(m);
+  picked.forEach((c, k) => {
+    const mu = ritzMu[c];
+    values[k] = 1 / mu;
+    // φᵀ K φ = 1 from Rayleigh–Ritz, so φᵀ B φ = μ: scale to φᵀ B φ = 1
+    const f = 1 / Math.sqrt(mu);
+    for (let i = 0; i < N; i++) vectors[k * N + i] = X[c * N + i] * f;
+  });
+  if (m > 0) {
+    const KX = symmetricProduct(K, vectors, m), BX = symmetricProduct(B, vectors, m);
+    for (let k = 0; k < m; k++) {
+      let r2 = 0, k2 = 0;
+      for (let i = 0; i < N; i++) {
+        const kv = KX[k * N + i];
+        r2 += (kv - values[k] * BX[k * N + i]) ** 2;
+        k2 += kv * kv;
+      }
+      residuals[k] = Math.sqrt(r2 / Math.max(k2, 1e-300));
+    }
+  }
+  return { values, vectors, residuals, iterations, converged, solves, locked: lockedPhi.length };
+}
+
+/**
+ * The engine's stiffness factorised once with the project's sparse solver (or the one given);
+ * a singular K (a mechanism) becomes the engine's InstabilityError naming node and freedom.
+ */
+export function factoriseSystem(
+  sys: LinearSystem, options: { solver?: FactorOptions; factorise?: (K: SymmetricCsc, opts: FactorOptions) => Factorisation } = {},
+): Factorisation {
+  const opts: FactorOptions = { ordering: 'auto', pivotTolerance: 1e-10, ...options.solver };
+  try {
+    return (options.factorise ?? defaultFactorise)(sys.pat.K, opts);
+  } catch (err) {
+    if (err instanceof SingularMatrixError) {
+      const g = sys.eqDof[err.index];
+      throw instabilityAt(sys.mesh.nodeNames[Math.floor(g / 6)], g % 6);
+    }
+    throw err;
+  }
+}
