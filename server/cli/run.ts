@@ -2,6 +2,9 @@
  * The `trestle` batch command:
  *   trestle analyse <input> --out <dir>   displacements.csv, reactions.csv, member_forces.csv
  *   trestle check <input> --out <dir>     the same plus utilisation.csv and checks.csv
+ * Both add stability.csv (elastic critical load factors) when `buckling_modes` > 0 or αcr were
+ * computed for the first-order stability warning, and modes.csv when `modes` > 0. The
+ * analysis is the one the settings ask for (`analysis` = first_order | second_order).
  * Exit codes: 0 success; 1 invalid input or usage (each problem printed as
  * `table row column: message`); 2 unstable model (node and freedom printed); 3 the
  * analysis or the checks could not run for another reason. Nothing is written unless
@@ -16,6 +19,9 @@ import {
 } from '../../shared/exports/index.js';
 import type { Model } from '../../shared/model/types.js';
 import { formatProblem } from '../../shared/reader/index.js';
+import type { StabilitySummary } from '../../shared/stability/types.js';
+import { stabilityToJson } from '../runs/stability-codec.js';
+import { stabilityTables } from '../runs/stability-tables.js';
 import { readModelInput } from './input.js';
 
 export interface CliIO {
@@ -31,7 +37,8 @@ const USAGE = [
   '<input> is an .xlsx workbook or a folder of <table>.csv files',
 ];
 
-type Checker = (model: Model, analysis: AnalysisResult) => DesignResultLike;
+/** checkModel; the stability option is read by checks that take it (DesignOptions.stability). */
+type Checker = (model: Model, analysis: AnalysisResult, options?: { stability?: StabilitySummary }) => DesignResultLike;
 
 /** The design checks, when the design module exists. */
 async function loadChecker(): Promise<Checker | string> {
@@ -59,6 +66,21 @@ function parseArgs(args: string[]): { command: string; input: string; out: strin
   if (!input) return 'no input given';
   if (!out) return 'no --out folder given';
   return { command, input, out };
+}
+
+/** "; lowest αcr 8.31 (ULS-2); first frequency 2.41 Hz" — what the stability floor found. */
+function stabilityLine(s: ReturnType<typeof stabilityToJson>): string {
+  const parts: string[] = [];
+  const iterations = s.secondOrder.map((l) => l.iterations);
+  if (iterations.length) parts.push(`${iterations.length} loading${iterations.length === 1 ? '' : 's'} to second order, up to ${Math.max(...iterations)} iterations`);
+  let lowest: { loading: string; a: number } | null = null;
+  for (const c of s.critical) {
+    const a = c.alphaCr[0];
+    if (a !== null && a !== undefined && (!lowest || a < lowest.a)) lowest = { loading: c.loading, a };
+  }
+  if (lowest) parts.push(`lowest αcr ${lowest.a.toPrecision(4)} (${lowest.loading})`);
+  if (s.modes.length) parts.push(`first natural frequency ${s.modes[0].frequency.toPrecision(4)} Hz`);
+  return parts.length ? `; ${parts.join('; ')}` : '';
 }
 
 export async function runCli(args: string[], io: CliIO): Promise<number> {
@@ -90,9 +112,10 @@ export async function runCli(args: string[], io: CliIO): Promise<number> {
     const model = read.model;
 
     let analysis: AnalysisResult;
+    let stability: StabilitySummary;
     try {
-      const { analyse } = await import('../../shared/engine/index.js');
-      analysis = analyse(model);
+      const { analyseModel } = await import('../../shared/stability/index.js');
+      ({ analysis, stability } = analyseModel(model));
     } catch (e) {
       if (e instanceof InstabilityError || (e as Error)?.name === 'InstabilityError') {
         const ie = e as InstabilityError;
@@ -106,11 +129,13 @@ export async function runCli(args: string[], io: CliIO): Promise<number> {
     }
 
     const tables: ResultTable[] = [displacementTable(model, analysis), reactionTable(model, analysis), memberForceTable(model, analysis)];
+    const stabilityJson = stabilityToJson(stability);
+    const stabilityFiles = stabilityTables(stabilityJson, model.settings);
     if (checker) {
       if (model.settings.designCode === 'none') io.err('settings design_code: warning: design_code is none, so every member comes out not checked');
       let design: DesignResultLike;
       try {
-        design = checker(model, analysis);
+        design = checker(model, analysis, { stability });
       } catch (e) {
         io.err(`the design checks failed: ${(e as Error)?.message ?? String(e)}; nothing written`);
         return EXIT.failed;
@@ -120,6 +145,7 @@ export async function runCli(args: string[], io: CliIO): Promise<number> {
       const notChecked = design.members.filter((m) => m.status === 'not checked').length;
       io.out(`${design.members.length} members checked to ${model.settings.designCode}: ${fails} fail, ${notChecked} not checked`);
     }
+    tables.push(...stabilityFiles);
     const texts = tables.map((t) => ({ file: `${t.name}.csv`, text: toCsv(t) }));
     await mkdir(out, { recursive: true });
     for (const t of texts) await writeFile(join(out, t.file), t.text, 'utf8');
@@ -130,6 +156,8 @@ export async function runCli(args: string[], io: CliIO): Promise<number> {
       const lanes = analysis.moving.lanes.map((l) => `${l.lane} (${l.length.toPrecision(6)} m)`).join(', ');
       io.out(`moving loads: ${model.movingLoads.map((ml) => `${ml.vehicle} on ${ml.lane}`).join(', ')}; lanes ${lanes}; ${d.positions} vehicle positions, ${d.milliseconds.toFixed(0)} ms; envelope loadings in rows marked max/min`);
     }
+    io.out(`analysis: ${stability.method}${stabilityLine(stabilityJson)}`);
+    for (const w of stabilityJson.warnings) io.err(`stability warning: ${w.message}`);
     io.out(`wrote ${texts.map((t) => t.file).join(', ')} to ${out}`);
     return EXIT.ok;
   } catch (e) {

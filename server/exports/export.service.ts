@@ -4,7 +4,7 @@ import type { ExportFormat, ExportKind } from '../../shared/schemas/runs.js';
 import { AppError, badRequest } from '../errors/app-error.js';
 import { findModel } from '../models/model.service.js';
 import { findProject } from '../projects/project.service.js';
-import { doneRun, loadingsOf, membersOf, nodeResultsOf, recordsOf, runModel } from '../runs/run.service.js';
+import { doneRun, loadingsOf, membersOf, nodeResultsOf, recordsOf, runMethod, runModel } from '../runs/run.service.js';
 import { runPool } from '../runs/worker-pool.js';
 import { toCsv, type ResultTable } from '../../shared/exports/index.js';
 import { checksExport, displacementsExport, reactionsExport, storedNodeResults, utilisationExport } from './tables.js';
@@ -79,6 +79,7 @@ export async function exportRun(ds: DataSource, runId: number, kind: ExportKind,
     units: model.settings.units,
     counts: { pass: run.passCount ?? 0, fail: run.failCount ?? 0, notChecked: run.notCheckedCount ?? 0 },
     reviewStatus: run.reviewStatus,
+    method: runMethod(run),
   });
   return { fileName: `${base}.xlsx`, contentType: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet', body };
 }

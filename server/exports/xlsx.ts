@@ -31,11 +31,13 @@ export interface HeaderBlock {
   units: string;
   counts: { pass: number; fail: number; notChecked: number };
   reviewStatus: string;
+  /** the analysis method in words (first or second order, the code's method) */
+  method?: string;
 }
 
 const TITLES: Record<string, string> = {
   utilisation: 'Utilisation schedule', checks: 'Detailed checks', displacements: 'Displacements', reactions: 'Reactions',
-  member_forces: 'Member forces',
+  member_forces: 'Member forces', stability: 'Elastic critical load factors', modes: 'Natural frequencies',
 };
 const RATIO_COLUMNS = new Set<string>(['ratio', ...CHECK_FAMILIES]);
 const neutralise = neutraliseText;
@@ -61,6 +63,7 @@ export async function toXlsx(table: ResultTable, header: HeaderBlock): Promise<B
     ['Run', header.run],
     ['Date', header.date],
     ['Design code', header.code],
+    ...(header.method ? [['Analysis', header.method] as [string, string]] : []),
     ['Units', header.units],
     ['Members passing', header.counts.pass],
     ['Members failing', header.counts.fail],

@@ -9,11 +9,13 @@ import type { RunCounts } from '../../shared/schemas/runs.js';
 import type { DesignCode, Model } from '../../shared/model/types.js';
 import type { AnalysisResult } from '../../shared/engine/types.js';
 import type { CheckRecord, MemberUtilisation } from '../../shared/design/types.js';
-import type { LoadingInfo, RunPhase } from '../../shared/schemas/runs.js';
+import { RUN_PHASES, type LoadingInfo, type RunPhase, type RunStability } from '../../shared/schemas/runs.js';
 import { withModelDefaults } from '../../shared/model/defaults.js';
-import { analyse } from '../../shared/engine/index.js';
+import type { AnalyseOptions } from '../../shared/engine/index.js';
 import { factorise as factoriseSystem } from '../../shared/engine/solverBridge.js';
-import { checkModel } from '../../shared/design/index.js';
+import { checkModel, type DesignOptions } from '../../shared/design/index.js';
+import { analyseModel, type StabilitySummary } from '../../shared/stability/index.js';
+import { packShapes, stabilityToJson } from './stability-codec.js';
 
 export interface RunOutput {
   members: MemberUtilisation[];
@@ -25,11 +27,22 @@ export interface RunOutput {
   reactions: Float64Array;
   timings: Record<string, number>;
   diagnostics: { nodes: number; members: number; freedoms: number; loadings: number; maxEquilibriumResidual: number };
+  stability: StabilitySummary;
 }
 
 export interface Analysed {
   model: Model;
   analysis: AnalysisResult;
+  stability: StabilitySummary;
+}
+
+/**
+ * The design checks with the stability summary (the method, αcr, warnings) when the checks
+ * take it (DesignOptions.stability); older checks ignore the extra option.
+ */
+export function checkWithStability(model: Model, analysis: AnalysisResult, stability: StabilitySummary) {
+  const options: DesignOptions & { stability?: StabilitySummary } = { stability };
+  return checkModel(model, analysis, options);
 }
 
 /** The model of a run: the stored JSON with the run's design code in force. */
@@ -52,15 +65,38 @@ const ENGINE_PHASES: Record<string, RunPhase> = {
   recovery: 'recovering',
 };
 
+/** The engine's factorise hook, reporting the solver's phases. */
+function phaseReportingFactorise(onPhase: (phase: RunPhase) => void): NonNullable<AnalyseOptions['factorise']> {
+  return (K, opts) => {
+    onPhase('factorising');
+    const f = factoriseSystem(K, opts);
+    let solving = false;
+    return {
+      n: f.n,
+      nnzFactor: f.nnzFactor,
+      timings: f.timings,
+      solve: (B, nrhs) => {
+        if (!solving) onPhase('solving');
+        solving = true;
+        const x = f.solve(B, nrhs);
+        onPhase('recovering');
+        return x;
+      },
+    };
+  };
+}
+
 export function computeRun(
   modelJson: string,
   designCode: DesignCode,
   report: (phase: RunPhase) => void = () => {},
 ): { output: RunOutput; analysed: Analysed } {
-  let last: RunPhase | null = null;
+  // phases only move forward (second order and eigenvalues factorise and solve many times)
+  let reached = -1;
   const onPhase = (phase: RunPhase) => {
-    if (phase !== last) report(phase);
-    last = phase;
+    const i = RUN_PHASES.indexOf(phase);
+    if (i > reached) report(phase);
+    reached = Math.max(reached, i);
   };
   const timings: Record<string, number> = {};
   let t = performance.now();
@@ -75,26 +111,7 @@ export function computeRun(
   lap('reading');
 
   onPhase('assembling');
-  // report the solver's phases through the engine's factorise hook
-  const analysis = analyse(model, {
-    factorise: (K, opts) => {
-      onPhase('factorising');
-      const f = factoriseSystem(K, opts);
-      let solving = false;
-      return {
-        n: f.n,
-        nnzFactor: f.nnzFactor,
-        timings: f.timings,
-        solve: (B, nrhs) => {
-          if (!solving) onPhase('solving');
-          solving = true;
-          const x = f.solve(B, nrhs);
-          onPhase('recovering');
-          return x;
-        },
-      };
-    },
-  });
+  const { analysis, stability } = analyseModel(model, { factorise: phaseReportingFactorise(onPhase) });
   const analysisMs = performance.now() - t;
   t = performance.now();
   let engineSum = 0;
@@ -103,10 +120,13 @@ export function computeRun(
     timings[phase] = (timings[phase] ?? 0) + ms;
     engineSum += ms;
   }
-  if (engineSum < analysisMs) timings.assembling = (timings.assembling ?? 0) + (analysisMs - engineSum);
+  // what the engine did not time: the stability work (iterations, eigenvalues) or assembly
+  const stabilityWork = stability.secondOrder.length > 0 || stability.critical.length > 0 || stability.modes.length > 0;
+  const rest = stabilityWork ? 'stability' : 'assembling';
+  if (engineSum < analysisMs) timings[rest] = (timings[rest] ?? 0) + (analysisMs - engineSum);
 
   onPhase('checking');
-  const design = checkModel(model, analysis);
+  const design = checkWithStability(model, analysis, stability);
   lap('checking');
 
   const nNodes = analysis.nodeIds.length;
@@ -121,7 +141,7 @@ export function computeRun(
 
   const equilibrium = analysis.diagnostics.equilibrium ?? [];
   return {
-    analysed: { model, analysis },
+    analysed: { model, analysis, stability },
     output: {
       members: design.members,
       records: design.records,
@@ -137,6 +157,7 @@ export function computeRun(
         loadings: nLoadings,
         maxEquilibriumResidual: equilibrium.reduce((mx, e) => Math.max(mx, e.residual), 0),
       },
+      stability,
     },
   };
 }
@@ -155,6 +176,10 @@ export interface PackedRun {
   nodeCount: number;
   timings: Record<string, number>;
   diagnostics: RunOutput['diagnostics'];
+  /** JSON of RunStability (shared/schemas/runs.ts) */
+  stabilityJson: string;
+  /** gzip(Float64 mode shapes then buckled shapes), see stability-codec.ts; empty when none */
+  shapesData: Uint8Array;
 }
 
 /**
@@ -179,13 +204,25 @@ export function packRun(out: RunOutput): PackedRun {
     nodeCount: out.nodeCount,
     timings: { ...out.timings },
     diagnostics: out.diagnostics,
+    stabilityJson: JSON.stringify(stabilityToJson(out.stability) satisfies RunStability),
+    shapesData: packedShapes(out.stability),
   };
   packed.timings.packing = (packed.timings.packing ?? 0) + (performance.now() - t0);
   return packed;
 }
 
-/** Analysis only (member detail and force exports when the worker no longer holds it). */
+function packedShapes(stability: StabilitySummary): Uint8Array {
+  const shapes = packShapes(stability);
+  if (shapes.length === 0) return new Uint8Array(0);
+  return new Uint8Array(gzipSync(Buffer.from(shapes.buffer, shapes.byteOffset, shapes.byteLength), { level: 1 }));
+}
+
+/**
+ * Analysis only (member detail and force exports when the worker no longer holds it): the
+ * same analysis as the run (first or second order), so the diagrams are the run's.
+ */
 export function analyseOnly(modelJson: string, designCode: DesignCode): Analysed {
   const model = readRunModel(modelJson, designCode);
-  return { model, analysis: analyse(model) };
+  const { analysis, stability } = analyseModel(model);
+  return { model, analysis, stability };
 }

@@ -22,6 +22,8 @@ export interface RunRecord {
   /** ms per phase, JSON */
   timingsJson: string;
   diagnosticsJson: string | null;
+  /** RunStability JSON (analysis order, method, αcr, modes, warnings); null before it existed */
+  stabilityJson: string | null;
   createdBy: number | null;
   createdAt: Date;
   startedAt: Date | null;
@@ -48,6 +50,7 @@ export const RunEntity = new EntitySchema<RunRecord>({
     notCheckedCount: { type: 'integer', nullable: true },
     timingsJson: { type: 'text', default: '{}' },
     diagnosticsJson: { type: 'text', nullable: true },
+    stabilityJson: { type: 'text', nullable: true },
     createdBy: { type: 'integer', nullable: true },
     createdAt: { type: 'datetime', createDate: true },
     startedAt: { type: 'datetime', nullable: true },
@@ -66,6 +69,8 @@ export interface RunResultRecord {
   /** gzip of Float64 little-endian: displacements then reactions, loading-major, nNodes*6 each */
   nodeData: Buffer;
   nodeCount: number;
+  /** gzip of Float64: mode shapes, then buckled shapes (server/runs/stability-codec.ts); null when none */
+  shapesData: Buffer | null;
 }
 
 export const RunResultEntity = new EntitySchema<RunResultRecord>({
@@ -78,5 +83,6 @@ export const RunResultEntity = new EntitySchema<RunResultRecord>({
     loadingsJson: { type: 'text' },
     nodeData: { type: 'blob' },
     nodeCount: { type: 'integer' },
+    shapesData: { type: 'blob', nullable: true },
   },
 });

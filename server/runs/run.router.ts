@@ -1,6 +1,8 @@
 /** /api/runs — status, results for the grid, member detail, picture, comparison, exports. */
 import { Router } from 'express';
-import { EXPORT_FORMATS, EXPORT_KINDS, type ExportFormat, type ExportKind } from '../../shared/schemas/runs.js';
+import {
+  EXPORT_FORMATS, EXPORT_KINDS, STABILITY_EXPORT_KINDS, type ExportFormat, type ExportKind, type StabilityExportKind,
+} from '../../shared/schemas/runs.js';
 import { rolesAtLeast } from '../../shared/schemas/users.js';
 import type { AppContext } from '../app.js';
 import { badRequest, notFound } from '../errors/app-error.js';
@@ -9,7 +11,8 @@ import { requireRole } from '../middleware/auth.js';
 import { parseId } from '../middleware/params.js';
 import { runPool } from './worker-pool.js';
 import { projectGuards } from '../membership/project-access.js';
-import { compareRuns, getMemberDetail, getRun, getRunGeometry, getRunMembers, recoverInterruptedRuns } from './run.service.js';
+import { compareRuns, getMemberDetail, getRun, getRunGeometry, getRunMembers, getRunShape, recoverInterruptedRuns } from './run.service.js';
+import { exportStability } from './stability-export.js';
 
 export const RUN_READERS = rolesAtLeast('viewer');
 export const RUN_EXPORTERS = rolesAtLeast('viewer');
@@ -40,12 +43,19 @@ export function runsRouter({ dataSource, logger }: AppContext): Router {
   router.get('/:id/model', requireRole(...RUN_READERS), guard.run('id'), async (req, res) => {
     res.json(await getRunGeometry(dataSource, parseId(req.params.id, 'Run'), text(req.query.loading)));
   });
+  router.get('/:id/shapes', requireRole(...RUN_READERS), guard.run('id'), async (req, res) => {
+    res.json(await getRunShape(dataSource, parseId(req.params.id, 'Run'), text(req.query.kind), text(req.query.index), text(req.query.loading)));
+  });
   router.get('/:id/exports/:file', requireRole(...RUN_EXPORTERS), guard.run('id'), async (req, res) => {
     const m = /^([a-z]+)\.([a-z]+)$/.exec(String(req.params.file));
-    if (!m || !(EXPORT_KINDS as readonly string[]).includes(m[1]) || !(EXPORT_FORMATS as readonly string[]).includes(m[2])) {
-      throw notFound(`No export ${String(req.params.file)}: choose ${EXPORT_KINDS.join(', ')} as .xlsx or .csv`);
+    const kinds: readonly string[] = [...EXPORT_KINDS, ...STABILITY_EXPORT_KINDS];
+    if (!m || !kinds.includes(m[1]) || !(EXPORT_FORMATS as readonly string[]).includes(m[2])) {
+      throw notFound(`No export ${String(req.params.file)}: choose ${kinds.join(', ')} as .xlsx or .csv`);
     }
-    const file = await exportRun(dataSource, parseId(req.params.id, 'Run'), m[1] as ExportKind, m[2] as ExportFormat, text(req.query.loading));
+    const id = parseId(req.params.id, 'Run');
+    const file = (STABILITY_EXPORT_KINDS as readonly string[]).includes(m[1])
+      ? await exportStability(dataSource, id, m[1] as StabilityExportKind, m[2] as ExportFormat)
+      : await exportRun(dataSource, id, m[1] as ExportKind, m[2] as ExportFormat, text(req.query.loading));
     res.set('Content-Type', file.contentType);
     res.set('Content-Disposition', `attachment; filename="${file.fileName}"`);
     res.send(file.body);

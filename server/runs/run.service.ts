@@ -22,7 +22,10 @@ import {
   type RunGeometry,
   type RunMembers,
   type RunPhase,
+  type RunShape,
+  type RunStability,
   type RunSummary,
+  type ShapeKind,
   type StartRunInput,
 } from '../../shared/schemas/runs.js';
 import type { Logger } from '../config/logger.js';
@@ -32,6 +35,7 @@ import { findModel, findVersion } from '../models/model.service.js';
 import type { PackedRun } from './run-compute.js';
 import { RunEntity, RunResultEntity, type RunRecord, type RunResultRecord } from './run.entity.js';
 import { runPool } from './worker-pool.js';
+import { shapeFromBlock } from './stability-codec.js';
 
 const PHASE_PROGRESS: Record<RunPhase, number> = {
   reading: 0.05, assembling: 0.15, factorising: 0.3, solving: 0.45, recovering: 0.55, checking: 0.65, saving: 0.9,
@@ -84,7 +88,13 @@ export async function getRun(ds: DataSource, id: number): Promise<Run> {
     settings: JSON.parse(r.settingsJson) as Record<string, unknown>,
     timings: JSON.parse(r.timingsJson || '{}') as Record<string, number>,
     diagnostics: r.diagnosticsJson ? (JSON.parse(r.diagnosticsJson) as Run['diagnostics']) : null,
+    stability: stabilityOf(r),
   };
+}
+
+/** The run's stability summary (null until done, and for runs from before it was kept). */
+export function stabilityOf(r: RunRecord): RunStability | null {
+  return r.status === 'done' && r.stabilityJson ? (JSON.parse(r.stabilityJson) as RunStability) : null;
 }
 
 export async function listRuns(ds: DataSource, modelId: number): Promise<RunSummary[]> {
@@ -209,6 +219,7 @@ async function saveResults(ds: DataSource, runId: number, out: PackedRun): Promi
     loadingsJson: JSON.stringify(out.loadings),
     nodeData: Buffer.from(out.nodeData.buffer, out.nodeData.byteOffset, out.nodeData.byteLength),
     nodeCount: out.nodeCount,
+    shapesData: out.shapesData.byteLength > 0 ? Buffer.from(out.shapesData.buffer, out.shapesData.byteOffset, out.shapesData.byteLength) : null,
   };
   const counts = out.counts;
   await ds.transaction(async (m) => {
@@ -227,6 +238,7 @@ async function saveResults(ds: DataSource, runId: number, out: PackedRun): Promi
         notCheckedCount: counts.notChecked,
         timingsJson: JSON.stringify(timings),
         diagnosticsJson: JSON.stringify(out.diagnostics),
+        stabilityJson: out.stabilityJson,
         finishedAt: new Date(),
       },
     );
@@ -362,7 +374,43 @@ export async function getMemberDetail(ds: DataSource, id: number, memberId: stri
     governingRecords: detail.governingRecords as MemberDetail['governingRecords'],
     loadingRecords: detail.loadingRecords as MemberDetail['loadingRecords'],
     ...(detail.moving ? { moving: detail.moving } : {}),
+    ...analysisOf(run),
   };
+}
+
+/** The analysis method in words, for export headers (runs from before the summary were first order). */
+export function runMethod(run: RunRecord): string {
+  return stabilityOf(run)?.method ?? 'first-order elastic';
+}
+
+/** The analysis order and method of a run (from its stability summary, else its settings). */
+function analysisOf(run: RunRecord): Pick<MemberDetail, 'analysis' | 'method'> {
+  const s = stabilityOf(run);
+  if (s) return { analysis: s.analysis, method: s.method };
+  const settings = JSON.parse(run.settingsJson) as { analysis?: 'first_order' | 'second_order' };
+  return settings.analysis ? { analysis: settings.analysis } : {};
+}
+
+/** Node values of a shape as floats (gzip Float64 block of run_results.shapesData). */
+function shapesBlock(result: RunResultRecord): Float64Array {
+  if (!result.shapesData || result.shapesData.byteLength === 0) return new Float64Array(0);
+  const bytes = gunzipSync(result.shapesData);
+  return new Float64Array(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength));
+}
+
+/** One natural mode shape or buckled shape of a run, for the picture. */
+export async function getRunShape(ds: DataSource, id: number, kind: string | undefined, index: string | undefined, loading?: string): Promise<RunShape> {
+  if (kind !== 'mode' && kind !== 'buckling') throw badRequest('kind: choose mode (natural modes) or buckling (buckled shapes)');
+  const i = Number(index ?? '1');
+  if (!Number.isInteger(i) || i < 1) throw badRequest(`index: "${index}" is not a mode number (1, 2, …)`);
+  const { run, result } = await doneRun(ds, id);
+  const stability = stabilityOf(run);
+  if (!stability) throw badRequest(`Run ${id} kept no stability results; run the model again`);
+  try {
+    return { runId: run.id, ...shapeFromBlock(stability, shapesBlock(result), result.nodeCount, kind as ShapeKind, i, loading || undefined) };
+  } catch (err) {
+    throw notFound((err as Error).message);
+  }
 }
 
 export async function getRunGeometry(ds: DataSource, id: number, loading?: string): Promise<RunGeometry> {

@@ -1,11 +1,11 @@
 /** What a worker does for each task; kept apart from the thread plumbing so tests can call it. */
 import { memberMovingDetail } from '../../shared/moving/detail.js';
 import type { AnalysisResult, StationForces } from '../../shared/engine/types.js';
-import { checkMember, checkModel } from '../../shared/design/index.js';
+import { checkMember } from '../../shared/design/index.js';
 import { checksTable, memberForceTable } from '../../shared/exports/results.js';
 import type { Model } from '../../shared/model/types.js';
 import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
-import { analyseOnly, computeRun, packRun, type Analysed } from './run-compute.js';
+import { analyseOnly, checkWithStability, computeRun, packRun, type Analysed } from './run-compute.js';
 import type { ChecksTask, ForcesTask, ForcesTaskResult, MemberTask, MemberTaskResult, ReadTask, WorkerTask } from './worker-protocol.js';
 import type { ReadResult } from '../../shared/model/types.js';
 import { readCsvFiles, readWorkbook } from '../../shared/reader/index.js';
@@ -76,8 +76,8 @@ export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => vo
       return result;
     }
     case 'checks': {
-      const { model, analysis } = analysedFor(task);
-      return checksTable(model, checkModel(model, analysis));
+      const { model, analysis, stability } = analysedFor(task);
+      return checksTable(model, checkWithStability(model, analysis, stability));
     }
     case 'forces': {
       const { model, analysis } = analysedFor(task);

@@ -8,8 +8,10 @@
  *   GET  /api/runs/:id/members/:member[?loading=]   → MemberDetail
  *   GET  /api/runs/:id/model[?loading=]       → RunGeometry (the 3D picture)
  *   GET  /api/runs/compare?a=&b=              → RunComparison
+ *   GET  /api/runs/:id/shapes?kind=mode|buckling&index=[&loading=]   → RunShape (mode or buckled shape)
  *   GET  /api/runs/:id/exports/:kind.:format  kind = utilisation | checks | displacements |
- *                                             reactions | forces; format = xlsx | csv
+ *                                             reactions | forces | stability | modes;
+ *                                             format = xlsx | csv
  *
  * Every number in these responses is SI (N, m, Pa, rad); `units` says how to show it
  * (shared/units `fromSI`). Ratios are plain numbers; null = not checked.
@@ -69,6 +71,72 @@ export const runSummarySchema = z.object({
 });
 export type RunSummary = z.infer<typeof runSummarySchema>;
 
+/**
+ * The stability part of a run (shared/stability/types.ts StabilitySummary) as JSON: shapes
+ * are served one at a time by GET /api/runs/:id/shapes; an infinite αcr (no compression
+ * anywhere) is null.
+ */
+export const runStabilitySchema = z.object({
+  analysis: z.enum(['first_order', 'second_order']),
+  /** the method in words */
+  method: z.string(),
+  subdivisions: z.number().int().optional(),
+  tolerance: z.number().optional(),
+  secondOrder: z.array(
+    z.object({
+      loading: z.string(),
+      iterations: z.number().int(),
+      converged: z.boolean(),
+      change: z.number(),
+      amplification: z.number().optional(),
+      additions: z.string().optional(),
+    }),
+  ),
+  /** per strength loading: αcr ascending (null = no buckling), and how many buckled shapes were kept */
+  critical: z.array(z.object({ loading: z.string(), alphaCr: z.array(z.number().nullable()), shapes: z.number().int() })),
+  modes: z.array(
+    z.object({
+      mode: z.number().int(),
+      /** Hz */
+      frequency: z.number(),
+      /** s */
+      period: z.number(),
+      /** effective modal mass ratios X, Y, Z (0–1) */
+      massRatio: z.tuple([z.number(), z.number(), z.number()]),
+    }),
+  ),
+  /** kg along X, Y, Z */
+  totalMass: z.tuple([z.number(), z.number(), z.number()]).optional(),
+  warnings: z.array(
+    z.object({
+      loading: z.string(),
+      alphaCr: z.number().nullable(),
+      /** 1 / (1 − 1/αcr); null when αcr ≤ 1 */
+      amplifier: z.number().nullable(),
+      reasons: z.array(z.string()),
+      message: z.string(),
+    }),
+  ),
+});
+export type RunStability = z.infer<typeof runStabilitySchema>;
+
+export const SHAPE_KINDS = ['mode', 'buckling'] as const;
+export type ShapeKind = (typeof SHAPE_KINDS)[number];
+
+/** GET /api/runs/:id/shapes: one mode shape or buckled shape, per node ux…rz, scaled to a largest translation of 1. */
+export const runShapeSchema = z.object({
+  runId: z.number().int(),
+  kind: z.enum(SHAPE_KINDS),
+  /** 1-based mode number */
+  index: z.number().int(),
+  /** buckling: the loading the shape belongs to ('' for natural modes) */
+  loading: z.string(),
+  /** what the shape is, in words ("mode 1: 2.41 Hz", "ULS-1 buckling mode 1: αcr = 8.3") */
+  label: z.string(),
+  displacements: z.array(z.number()),
+});
+export type RunShape = z.infer<typeof runShapeSchema>;
+
 export const runSchema = runSummarySchema.extend({
   /** the model settings the run used */
   settings: z.record(z.string(), z.unknown()),
@@ -77,6 +145,8 @@ export const runSchema = runSummarySchema.extend({
   diagnostics: z
     .object({ nodes: z.number(), members: z.number(), freedoms: z.number(), loadings: z.number(), maxEquilibriumResidual: z.number() })
     .nullable(),
+  /** analysis order, αcr, modes and stability warnings; null until done (and for runs before them) */
+  stability: runStabilitySchema.nullable(),
 });
 export type Run = z.infer<typeof runSchema>;
 
@@ -194,6 +264,9 @@ export const memberDetailSchema = z.object({
   loadingRecords: z.array(checkRecordSchema),
   /** moving loads: influence line and envelope per moving load (absent without moving loads) */
   moving: z.array(memberMovingSchema).optional(),
+  /** the analysis the diagrams come from (first or second order) and its method in words */
+  analysis: z.enum(['first_order', 'second_order']).optional(),
+  method: z.string().optional(),
 });
 export type MemberDetail = z.infer<typeof memberDetailSchema>;
 
@@ -249,5 +322,8 @@ export type RunComparison = z.infer<typeof runComparisonSchema>;
 
 export const EXPORT_KINDS = ['utilisation', 'checks', 'displacements', 'reactions', 'forces'] as const;
 export type ExportKind = (typeof EXPORT_KINDS)[number];
+/** Stability exports (tables.md "Results exports"), served by server/runs. */
+export const STABILITY_EXPORT_KINDS = ['stability', 'modes'] as const;
+export type StabilityExportKind = (typeof STABILITY_EXPORT_KINDS)[number];
 export const EXPORT_FORMATS = ['xlsx', 'csv'] as const;
 export type ExportFormat = (typeof EXPORT_FORMATS)[number];

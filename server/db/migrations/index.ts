@@ -9,5 +9,6 @@ import type { MigrationInterface } from 'typeorm';
 import { Foundation1764633600000 } from './1764633600000-foundation.js';
 import { ModelsRuns1764640000000 } from './1764640000000-models-runs.js';
 import { ReviewAudit1764700000000 } from './1764700000000-review-audit.js';
+import { RunStability1764961000000 } from './1764961000000-run-stability.js';
 
-export const migrations: (new () => MigrationInterface)[] = [Foundation1764633600000, ModelsRuns1764640000000, ReviewAudit1764700000000];
+export const migrations: (new () => MigrationInterface)[] = [Foundation1764633600000, ModelsRuns1764640000000, ReviewAudit1764700000000, RunStability1764961000000];
