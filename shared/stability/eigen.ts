@@ -201,9 +201,9 @@ export function lowestEigenpairs(
     }
   };
 
-  let X = new Float64Array(N * q);
+  let X: Float64Array = new Float64Array(N * q);
   randomFill(X, 0, N * q, 1);
-  let Y = symmetricProduct(B, X, q);
+  let Y: Float64Array = symmetricProduct(B, X, q);
   let seed = 2;
   let prevPos: number[] = [], prevNeg: number[] = [];
   let iterations = 0, solves = 0, converged = false;
