@@ -44,6 +44,9 @@ export interface DesignGeometry {
   rolled: boolean;
   /** whether dimensions are known (false for `custom` sections) */
   hasDims: boolean;
+  /** shear areas the user gave in `sections` (NaN = not given: the code's rule applies) */
+  AvGivenMajor: number;
+  AvGivenMinor: number;
 }
 
 export function designGeometry(section: Section): DesignGeometry {
@@ -80,5 +83,7 @@ export function designGeometry(section: Section): DesignGeometry {
     D: dm.D ?? 0,
     hw, ho, rolled,
     hasDims: section.shape !== 'custom',
+    AvGivenMajor: section.given.includes('Av_major') ? p.Av_major : NaN,
+    AvGivenMinor: section.given.includes('Av_minor') ? p.Av_minor : NaN,
   };
 }

@@ -22,6 +22,8 @@ import { enPlan } from './en1993/member.js';
 import { notChecked } from './record.js';
 import { cantileverTip, chordDeflection, deflectionRecord } from './deflection.js';
 import { slendernessRecord } from './slenderness.js';
+import { memberNetArea } from './net-area.js';
+import { denoise, noiseFloor } from './noise.js';
 
 export type { DesignResult } from './types.js';
 export { generateCombinations } from './combinations.js';
@@ -100,10 +102,12 @@ function prepare(model: Model, analysis: AnalysisResult, only?: number): Context
     const cantilever = freeA !== freeB;
     const na = nodes.get(member.start), nb = nodes.get(member.end);
     const axis: [number, number, number] = na && nb && L > 0 ? [(nb.x - na.x) / L, (nb.y - na.y) / L, (nb.z - na.z) / L] : [1, 0, 0];
+    const sectionNet = model.sections.find((q) => q.id === member.section)?.net;
+    const { net, source: netSource } = memberNetArea(member.id, member.section, member.net, sectionNet);
     const setup: MemberSetup = {
       id: member.id, length: L, truss: member.type === 'truss',
       LcMajor: member.kMajor * (member.lMajor ?? L), LcMinor: member.kMinor * (member.lMinor ?? L),
-      Lb: member.lb ?? L, cb: member.cb, cantilever,
+      Lb: member.lb ?? L, cb: member.cb, cantilever, net, netSource,
     };
     const p: Prepared = {
       member, setup, plan: null, reason: '', geometry: null, sectionId: member.section,
@@ -122,7 +126,7 @@ function prepare(model: Model, analysis: AnalysisResult, only?: number): Context
     if (material.fy === undefined || !(material.fy > 0)) { p.reason = `material ${material.id} has no fy`; return; }
     if (member.sectionEnd !== undefined && member.sectionEnd !== member.section) { p.reason = 'tapered member: design checks of tapered members not implemented'; return; }
     // members with the same section, material, lengths and end conditions share a plan
-    const key = `${member.section}|${member.material}|${setup.length}|${setup.truss}|${setup.LcMajor}|${setup.LcMinor}|${setup.Lb}|${setup.cb}|${cantilever}`;
+    const key = `${member.section}|${member.material}|${setup.length}|${setup.truss}|${setup.LcMajor}|${setup.LcMinor}|${setup.Lb}|${setup.cb}|${cantilever}|${netSource}|${net.An}|${net.U}|${net.Ae}`;
     const shared = plans.get(key);
     if (shared) { p.plan = shared; return; }
     const g = p.geometry;
@@ -154,9 +158,22 @@ function slendernessOf(p: Prepared): number {
   return Math.max(p.setup.LcMajor / g.rmaj, p.setup.LcMinor / g.rmin);
 }
 
+/** Station forces already cleaned of noise (noise.ts): any compression / any tension. */
 function hasCompression(sf: StationForces): boolean {
   for (let i = 0; i < sf.N.length; i++) if (sf.N[i] < 0) return true;
   return false;
+}
+function hasTension(sf: StationForces): boolean {
+  for (let i = 0; i < sf.N.length; i++) if (sf.N[i] > 0) return true;
+  return false;
+}
+
+/** The slenderness warning: compression limit if ever compressed, tension limit if ever in tension, else none. */
+function slendernessFor(p: Prepared, code: DesignCode, sl: number, compressionLoading: string | null, tensionLoading: string | null): CheckRecord | null {
+  if (!(sl > 0)) return null;
+  if (compressionLoading !== null) return slendernessRecord(p.member.id, code, sl, true, compressionLoading);
+  if (tensionLoading !== null) return slendernessRecord(p.member.id, code, sl, false, tensionLoading);
+  return null;
 }
 
 const MAX_SLOTS = 32;
@@ -166,6 +183,8 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
   const ctx = prepare(model, analysis);
   const strength = options.strengthLoadings ?? ctx.strength;
   const service = options.serviceLoadings ?? ctx.service;
+  const floor = noiseFloor(analysis, strength);
+  let scratch: StationForces | undefined;
   const ids = analysis.loadings.map((l) => l.id);
   const members: MemberUtilisation[] = [];
   const records: CheckRecord[] = [];
@@ -197,9 +216,10 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
       const te0 = performance.now();
       let compression = false;
       let compressionLoading = -1;
+      let tensionLoading = -1;
       for (let k = 0; k < strength.length; k++) {
         const li = strength[k];
-        const sf = analysis.memberForces(mi, li);
+        const sf = scratch = denoise(analysis.memberForces(mi, li), floor, scratch);
         plan.evaluate(sf, ratio, xo);
         evaluations++;
         for (let s = 0; s < n; s++) {
@@ -208,6 +228,7 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
           else if (r > gov[s] || govL[s] < 0) { if (r >= 0 || govL[s] < 0) { gov[s] = r; govL[s] = li; } }
         }
         if (!compression && hasCompression(sf)) { compression = true; compressionLoading = li; }
+        if (tensionLoading < 0 && hasTension(sf)) tensionLoading = li;
       }
       evaluationMs += performance.now() - te0;
       // records of the governing loadings: each loading evaluated once, only its slots built
@@ -217,7 +238,7 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
         const li = pick[s];
         if (li < 0) continue;
         for (let t = 0; t < n; t++) want[t] = pick[t] === li ? 1 : 0;
-        const sfl = analysis.memberForces(mi, li);
+        const sfl = scratch = denoise(analysis.memberForces(mi, li), floor, scratch);
         const recs = plan.records(sfl, ids[li], want, p.member.id);
         for (let t = 0; t < n; t++) {
           if (pick[t] !== li) continue;
@@ -227,9 +248,8 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
         }
       }
       // slenderness (warning only) and bracing warning
-      const sl = slendernessOf(p);
-      if (sl > 0 && strength.length) {
-        const rec = slendernessRecord(p.member.id, ctx.code, sl, compression, compression ? ids[compressionLoading] : '');
+      const rec = slendernessFor(p, ctx.code, slendernessOf(p), compression ? ids[compressionLoading] : null, tensionLoading >= 0 ? ids[tensionLoading] : null);
+      if (rec) {
         memberRecords.push(rec);
         if (rec.status === 'fail') warnings.push(rec.note ?? '');
       }
@@ -332,10 +352,10 @@ export function checkMember(model: Model, analysis: AnalysisResult, memberIndex:
     chordDeflection(analysis.memberForces(memberIndex, loadingIndex), d);
     return [deflectionRecord(member.id, ctx.code, loading.id, d[0], d[1], p.setup.length, p.deflectionLimit, false)];
   }
-  const sf = analysis.memberForces(memberIndex, loadingIndex);
+  const sf = denoise(analysis.memberForces(memberIndex, loadingIndex), noiseFloor(analysis, [...ctx.strength, loadingIndex]));
   const out = p.plan.records(sf, loading.id, undefined, member.id).filter((r): r is CheckRecord => r !== null)
     .map((r) => (analysis.moving ? stampVehicle(analysis, memberIndex, loadingIndex, sf, r) : r));
-  const sl = slendernessOf(p);
-  if (sl > 0) out.push(slendernessRecord(member.id, ctx.code, sl, hasCompression(sf), loading.id));
+  const sl = slendernessFor(p, ctx.code, slendernessOf(p), hasCompression(sf) ? loading.id : null, hasTension(sf) ? loading.id : null);
+  if (sl) out.push(sl);
   return out;
 }

@@ -37,12 +37,16 @@ export interface MemberSetup {
   /** effective lengths K·L about the major and minor axes */
   LcMajor: number;
   LcMinor: number;
-  /** laterally unbraced length (≤ length) */
+  /** laterally unbraced length (≤ length); 0 = continuously braced (no lateral-torsional buckling) */
   Lb: number;
   /** given Cb / C1, or undefined = from the moment diagram */
   cb?: number;
   /** one end free and unsupported */
   cantilever: boolean;
+  /** tension net-area data (member's, else section's; empty = An = Ag, U = 1 assumed) */
+  net?: import('../model/types.js').NetArea;
+  /** where the net-area data came from ("member M3", "section S1"), for the record */
+  netSource?: string;
 }
 
 /** Largest |v| over stations and where it occurs; writes [value, x] into out. */
@@ -56,9 +60,12 @@ export function absMax(v: Float64Array, xs: Float64Array, out: Float64Array, k: 
   out[k + 1] = at;
 }
 
-/** Number of unbraced segments for lateral-torsional buckling: segments of length Lb from the start. */
+/**
+ * Number of unbraced segments for lateral-torsional buckling: segments of length Lb from
+ * the start. Lb = 0 (continuously braced) is one segment with no lateral-torsional buckling.
+ */
 export function segmentCount(L: number, Lb: number): number {
-  if (!(Lb < L)) return 1;
+  if (!(Lb < L) || !(Lb > 0)) return 1;
   return Math.max(1, Math.ceil(L / Lb - 1e-9));
 }
 

@@ -23,7 +23,17 @@ import { shearMajor, shearMinor } from './shear.js';
 import { h1, h1Head } from './interaction.js';
 import { notCheckedHead } from '../record.js';
 
+/** Flexural strength; Lb = 0 (continuously braced) says in the record that LTB does not apply. */
 function flexure(g: DesignGeometry, cx: AiscContext, axis: 'major' | 'minor', Lb: number): FlexureCapacity {
+  const f = flexureOf(g, cx, axis, Lb);
+  if (Lb === 0 && !Number.isNaN(f.Mcap)) {
+    const said = 'lb = 0: continuously braced, lateral-torsional buckling does not apply (Lb = 0 ≤ Lp)';
+    return { ...f, M1: Infinity, head: { ...f.head, note: f.head.note ? `${f.head.note}; ${said}` : said } };
+  }
+  return f;
+}
+
+function flexureOf(g: DesignGeometry, cx: AiscContext, axis: 'major' | 'minor', Lb: number): FlexureCapacity {
   const family = axis === 'major' ? 'bending_major' : 'bending_minor';
   const none = (clause: string, reason: string): FlexureCapacity => ({ head: notCheckedHead(family, cx.code, clause, `flexure, ${axis} axis`, reason), factor: 1, Mcap: NaN, M1: Infinity, ltb: '' });
   switch (g.shape) {
@@ -43,7 +53,7 @@ const D_SIZE = 16;
 
 export function aiscPlan(g: DesignGeometry, cx: AiscContext, m: MemberSetup): MemberPlan {
   const ty = tensionYieldD2a(g, cx);
-  const tr = tensionRuptureD2b(g, cx);
+  const tr = tensionRuptureD2b(g, cx, m.net, m.netSource);
   const e3 = compressionE3(g, cx, m.LcMajor, m.LcMinor);
   const e4 = compressionE4(g, cx, m.LcMinor, m.LcMajor, m.LcMinor);
   const slots: Slot[] = [{ family: 'tension', key: 'D2(a)' }, { family: 'tension', key: 'D2(b)' }, { family: 'compression', key: 'E3' }];

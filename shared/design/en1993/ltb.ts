@@ -69,9 +69,10 @@ export function ltbPlan(g: DesignGeometry, c: EnContext, bend: EnBending, Lcr: n
   if (g.shape === 'rhs' || g.shape === 'chs' || g.shape === 'round') return { ...base, applies: false, head: notCheckedHead('bending_major', 'en1993-1-1', '6.3.2', 'lateral-torsional buckling', 'not susceptible') };
   if (g.shape === 'rect' && !(g.h > g.b)) return { ...base, applies: false, head: notCheckedHead('bending_major', 'en1993-1-1', '6.3.2', 'lateral-torsional buckling', 'not susceptible') };
   if (Number.isNaN(bend.Mc)) return nc(bend.head.note ?? 'bending resistance not available');
+  if (Lcr === 0) return braced(g, c, bend, base);
   if (g.shape === 'tee' || g.shape === 'angle' || g.shape === 'custom') return nc(`${g.shape} section: Mcr of monosymmetric or unsymmetric sections not implemented`);
   if (cantilever) return nc('cantilever: Mcr of cantilevers (k ≠ 1, free end) not implemented');
-  if (!(Lcr > 0)) return nc('unbraced length is zero');
+  if (!(Lcr > 0)) return nc(`unbraced length ${Lcr} m is not usable`);
   const Iw = g.shape === 'rect' ? 0 : g.Cw;
   const Mcr1 = mcr(c.E, c.G, g.Imin, Iw, g.J, Lcr, 1);
   let method: string, curve: BucklingCurve, lambda0: number, beta: number;
@@ -100,6 +101,25 @@ export function ltbPlan(g: DesignGeometry, c: EnContext, bend: EnBending, Lcr: n
   };
 }
 
+/**
+ * lb = 0: continuously braced. No lateral-torsional buckling: Mcr = ∞, λ̄LT = 0, χLT = 1
+ * (6.3.2.2(4) with λ̄LT ≤ λ̄LT,0), Mb,Rd = Wy·fy/γM1 — stated in the record.
+ */
+function braced(g: DesignGeometry, c: EnContext, bend: EnBending, base: Omit<LtbPlan, 'applies' | 'head'>): LtbPlan {
+  const MRk = bend.W * c.fy;
+  return {
+    ...base, applies: true, Mcr1: Infinity, MRk, alpha: 0, lambda0: 0.4, beta: 1, method: 'braced', Lcr: 0,
+    head: {
+      family: 'bending_major', code: 'en1993-1-1', clause: '6.3.2', title: 'lateral-torsional buckling',
+      equation: 'lb = 0, continuously braced: no lateral-torsional buckling, χLT = 1; Mb,Rd = χLT·Wy·fy/γM1 (6.55)',
+      inputs: [inp('Wy', `section modulus (${bend.cls <= 2 ? 'Wpl' : bend.cls === 3 ? 'Wel' : 'Weff'})`, bend.W, 'modulus'), inp('fy', 'yield strength', c.fy, 'stress'), inp('γM1', 'partial factor', c.gammaM1, 'ratio'),
+        inp('L', 'unbraced length (lb = 0: continuously braced)', 0, 'length')],
+      quantity: 'moment',
+      note: 'lb = 0: continuously braced, χLT = 1 (no lateral-torsional buckling)',
+    },
+  };
+}
+
 /** Mb,Rd for a given C1 (numbers only; χLT written to chiOut[0] when given). */
 export function ltbMb(p: LtbPlan, C1: number, chiOut?: Float64Array): number {
   const lam = Math.sqrt(p.MRk / (p.Mcr1 * C1));
@@ -118,6 +138,7 @@ export function ltbResistance(p: LtbPlan, C1: number): { Mb: number; lam: number
 
 export function ltbHead(p: LtbPlan, C1: number, c1Source: string): RecordHead {
   const r = ltbResistance(p, C1);
+  if (p.method === 'braced') return { ...p.head, inputs: [...p.head.inputs, inp('χLT', 'reduction factor (continuously braced)', 1, 'ratio')] };
   return {
     ...p.head,
     inputs: [...p.head.inputs, inp('C1', `moment-diagram factor (${c1Source})`, C1, 'ratio'), inp('Mcr', 'elastic critical moment', r.Mcr, 'moment'),

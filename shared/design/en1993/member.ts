@@ -50,7 +50,7 @@ export function c1FromSegment(seg: Float64Array): number {
 export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): MemberPlan {
   const code = 'en1993-1-1' as const;
   const tg = tensionGross(g, cx);
-  const tn = tensionNet(g, cx);
+  const tn = tensionNet(g, cx, m.net, m.netSource);
   const nc = compressionResistance(g, cx);
   const fb = flexuralBuckling(g, cx, m.LcMajor, m.LcMinor);
   const openMono = g.shape === 'channel' || g.shape === 'tee';

@@ -3,6 +3,10 @@
  * with η = 1.0 (conservative value allowed by the note to 6.2.6(3)). Webs with
  * hw/tw > 72ε/η need a shear buckling check to EN 1993-1-5 (6.2.6(6)): not checked.
  * Solid bars: Av = A (common practice; 6.2.6(3) lists no solid section). Angles: not checked.
+ * A shear area given in `sections` (Av_major, Av_minor) is used as Av in (6.18) in place of
+ * the 6.2.6(3) rule (stated in the record); the 6.2.6(6) web buckling limit still applies.
+ * Where no shear check is possible (custom sections: 6.2.6(6) cannot be excluded without
+ * dimensions; angles) the given area is refused with that reason.
  */
 import { inp, notCheckedHead } from '../record.js';
 import type { DesignGeometry } from '../geometry.js';
@@ -43,8 +47,14 @@ export function shearArea(g: DesignGeometry, axis: 'major' | 'minor'): { Av: num
 export function shearResistance(g: DesignGeometry, c: EnContext, axis: 'major' | 'minor'): Resistance {
   const family = axis === 'major' ? 'shear_major' : 'shear_minor';
   const title = axis === 'major' ? 'shear, load parallel to web' : 'shear, load parallel to flanges';
-  const av = g.hasDims ? shearArea(g, axis) : null;
-  if (!av) return { capacity: NaN, head: notCheckedHead(family, 'en1993-1-1', '6.2.6', title, `${g.shape} section: no shear area rule in 6.2.6(3), not evaluated`) };
+  const givenAv = axis === 'major' ? g.AvGivenMajor : g.AvGivenMinor;
+  const given = !Number.isNaN(givenAv);
+  const rule = g.hasDims ? shearArea(g, axis) : null;
+  const av = rule && given ? { Av: givenAv, rule: `Av given in sections (in place of ${rule.rule})` } : rule;
+  if (!av) {
+    const why = g.hasDims ? `${g.shape} section: no shear area rule in 6.2.6(3), not evaluated` : 'custom section: web slenderness unknown, shear buckling (6.2.6(6)) cannot be excluded; not evaluated';
+    return { capacity: NaN, head: notCheckedHead(family, 'en1993-1-1', '6.2.6', title, given ? `${why}; the given ${axis === 'major' ? 'Av_major' : 'Av_minor'} is therefore not used` : why) };
+  }
   const e = epsilon(c.fy);
   if (axis === 'major' && (g.shape === 'i' || g.shape === 'channel')) {
     const hw = g.d - 2 * g.tf;
@@ -60,9 +70,9 @@ export function shearResistance(g: DesignGeometry, c: EnContext, axis: 'major' |
     head: {
       family, code: 'en1993-1-1', clause: '6.2.6', title,
       equation: `Vpl,Rd = Av·(fy/√3)/γM0 (6.18); Av = ${av.rule}`,
-      inputs: [inp('Av', 'shear area', av.Av, 'area'), inp('fy', 'yield strength', c.fy, 'stress'), inp('γM0', 'partial factor', c.gammaM0, 'ratio')],
+      inputs: [inp('Av', given ? 'shear area (given)' : 'shear area', av.Av, 'area'), inp('fy', 'yield strength', c.fy, 'stress'), inp('γM0', 'partial factor', c.gammaM0, 'ratio')],
       quantity: 'force',
-      note: 'η = 1.0',
+      note: given ? 'η = 1.0; shear area Av given in sections used in place of the 6.2.6(3) rule' : 'η = 1.0',
     },
   };
 }

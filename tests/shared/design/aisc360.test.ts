@@ -40,7 +40,7 @@ describe('D2 tension', () => {
     expect(c.head.clause).toBe('D2(b)');
   });
   it('rupture with given An = 12 in², U = 0.85: Pn/Ωt = 65·10.2/2.00 = 331.5 kips (Eqs. D2-2, D3-1)', () => {
-    const c = tensionRuptureD2b(designGeometry(W18X50()), asd, 12 * IN * IN, 0.85);
+    const c = tensionRuptureD2b(designGeometry(W18X50()), asd, { An: 12 * IN * IN, U: 0.85 });
     expect(close(c.capacity / KIP, 331.5, 0.001)).toBe(true);
   });
   it('rupture without Fu is not checked', () => {

@@ -1,0 +1,74 @@
+/**
+ * Numerical noise in results: a force below NOISE_RELATIVE (1e-9) of the model's largest
+ * force is zero for classification (EN Table 5.2 stress distribution, AISC compression or
+ * tension, flexure), warnings and exports. Written once here; the design checks and the
+ * exports use it.
+ *
+ * The model's largest force is the largest reaction component (fx, fy, fz) over the
+ * loadings considered — every load path of a supported model ends in a reaction. A
+ * loading that is self-equilibrated (no reactions at all) then gives a floor of zero, so
+ * nothing is treated as noise (the safe side). Moments use the force floor times the
+ * longest member (the model's length scale).
+ */
+import type { AnalysisResult, StationForces } from '../engine/types.js';
+
+export const NOISE_RELATIVE = 1e-9;
+
+export interface NoiseFloor {
+  /** N (forces below are zero) */
+  force: number;
+  /** N·m (moments below are zero) */
+  moment: number;
+}
+
+/** The noise floor of an analysis over the given loadings (all loadings when omitted). */
+export function noiseFloor(analysis: Pick<AnalysisResult, 'reactions' | 'loadings' | 'supportedNodes'> & Partial<Pick<AnalysisResult, 'memberLength' | 'memberIds'>>, loadings?: number[]): NoiseFloor {
+  const ls = loadings ?? analysis.loadings.map((_, i) => i);
+  let fmax = 0;
+  for (const l of ls) {
+    const r = analysis.reactions(l);
+    for (const n of analysis.supportedNodes) {
+      for (let k = 0; k < 3; k++) {
+        const v = Math.abs(r[n * 6 + k]);
+        if (v > fmax && Number.isFinite(v)) fmax = v;
+      }
+    }
+  }
+  let lmax = 1;
+  if (analysis.memberLength && analysis.memberIds) {
+    for (let i = 0; i < analysis.memberIds.length; i++) { const L = analysis.memberLength(i); if (L > lmax) lmax = L; }
+  }
+  return { force: NOISE_RELATIVE * fmax, moment: NOISE_RELATIVE * fmax * lmax };
+}
+
+/** A value with noise removed: 0 when |v| < floor. */
+export function clean(v: number, floor: number): number {
+  return v < floor && v > -floor ? 0 : v;
+}
+
+function cleanInto(src: Float64Array, dst: Float64Array, floor: number): void {
+  for (let i = 0; i < src.length; i++) { const v = src[i]; dst[i] = v < floor && v > -floor ? 0 : v; }
+}
+
+/**
+ * Station forces with noise removed (N, V, T, M; deflections unchanged). Reuses `out`
+ * when it has the same number of stations; returns `sf` itself when the floor is zero.
+ */
+export function denoise(sf: StationForces, floor: NoiseFloor, out?: StationForces): StationForces {
+  if (!(floor.force > 0)) return sf;
+  const n = sf.x.length;
+  const o = out && out.x.length === n ? out : {
+    x: new Float64Array(n), N: new Float64Array(n), V_major: new Float64Array(n), V_minor: new Float64Array(n), T: new Float64Array(n),
+    M_major: new Float64Array(n), M_minor: new Float64Array(n), d_major: new Float64Array(n), d_minor: new Float64Array(n),
+  };
+  o.x.set(sf.x);
+  cleanInto(sf.N, o.N, floor.force);
+  cleanInto(sf.V_major, o.V_major, floor.force);
+  cleanInto(sf.V_minor, o.V_minor, floor.force);
+  cleanInto(sf.T, o.T, floor.moment);
+  cleanInto(sf.M_major, o.M_major, floor.moment);
+  cleanInto(sf.M_minor, o.M_minor, floor.moment);
+  o.d_major.set(sf.d_major);
+  o.d_minor.set(sf.d_minor);
+  return o;
+}
