@@ -8,8 +8,7 @@ import { type FactorOptions, type Factorisation, SingularMatrixError, type Symme
 import { appliedTotals, reactionTotals } from './equilibrium.js';
 import { instabilityAt } from './instability.js';
 import { computeReactions } from './reactions.js';
-import { memberResults } from './memberResults.js';
-import { memberStations } from './recovery.js';
+import { memberResults, stationSets } from './memberResults.js';
 import { factorise as defaultFactorise } from './solverBridge.js';
 import { type PhaseClock, Stopwatch } from './stopwatch.js';
 import { buildSystem } from './system.js';
@@ -41,6 +40,8 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
   const sys = buildSystem(model, taperSegments, sw);
   const { mesh, nCases, loadSets, eq, nEq, eqDof, pat, F, presc, fefOf, nodeIndex, caseIndex } = sys;
   const nNodes = mesh.nNodes, nDofAll = nNodes * 6;
+  // every member's stations: settings.stations, concentrated loads, result_points
+  const stationsOf = stationSets(model, mesh, nCases, loadSets);
 
   // factorise once, solve all cases as one block
   let X: Float64Array = new Float64Array(0);
@@ -67,7 +68,6 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
     sw.lap('solve');
     if (model.movingLoads.length > 0) {
       // influence basis of the lanes with the same factorisation, then the envelopes
-      const stationsOf = (mi: number) => memberStations(mesh.members[mi].L, Array.from({ length: nCases }, (_, c) => loadSets[mi * nCases + c]));
       movingInput = { model, sys, solve: (B, n) => fact.solve(B, n), stations: stationsOf };
       moving = computeMoving(movingInput);
       sw.lap('moving');
@@ -135,7 +135,7 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
 
   // member recovery: station values per case of the member asked for, loadings by superposition
   const forcesOf = memberResults({
-    mesh, nCases, loadSets, U, fefOf,
+    mesh, nCases, loadSets, U, fefOf, stations: stationsOf,
     addMoving: moving ? (mi, ld, rows) => addMovingPart(moving!, ld, moving!.basis.memberOff[mi], rows) : undefined,
   });
 

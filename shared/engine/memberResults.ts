@@ -8,9 +8,43 @@
 import { vecToLocal12 } from './axes.js';
 import type { Mesh } from './discretise.js';
 import type { LoadSet } from './loadSet.js';
+import type { Model } from '../model/types.js';
 import { caseStations, memberStations, ROWS } from './recovery.js';
 import { elementLocal } from './system.js';
 import type { Loading, StationForces } from './types.js';
+
+/** settings `stations`: allowed range (tables.md) */
+export const STATIONS_RANGE: readonly [number, number] = [3, 201];
+
+/**
+ * The station set of every member, built on first use and kept: `settings.stations` equally
+ * spaced (both ends), every concentrated load position of any case, and the member's
+ * `result_points` (recovery.ts memberStations). Member forces, the moving-load layout, design
+ * checks and exports all read this one set.
+ */
+export function stationSets(model: Model, mesh: Mesh, nCases: number, loadSets: (LoadSet | undefined)[]): (mi: number) => Float64Array {
+  const count = model.settings.stations;
+  const [lo, hi] = STATIONS_RANGE;
+  if (!(Number.isInteger(count) && count >= lo && count <= hi)) {
+    throw new Error(`settings stations must be a whole number from ${lo} to ${hi} (got ${count})`);
+  }
+  const points = new Map<string, number[]>();
+  for (const p of model.resultPoints ?? []) {
+    const list = points.get(p.member);
+    if (list) list.push(p.x); else points.set(p.member, [p.x]);
+  }
+  const cache: (Float64Array | undefined)[] = new Array(mesh.members.length);
+  const sets: (LoadSet | undefined)[] = new Array(nCases);
+  return (mi: number): Float64Array => {
+    let x = cache[mi];
+    if (x) return x;
+    const m = mesh.members[mi];
+    for (let c = 0; c < nCases; c++) sets[c] = loadSets[mi * nCases + c];
+    x = memberStations(m.L, sets, count, points.get(m.id));
+    cache[mi] = x;
+    return x;
+  };
+}
 
 export interface MemberResultsInput {
   mesh: Mesh;
@@ -21,6 +55,8 @@ export interface MemberResultsInput {
   fefOf: (e: number, c: number) => Float64Array | undefined;
   /** adds an envelope loading's moving part to the member's rows (ROWS × stations) */
   addMoving?: (mi: number, ld: Loading, rows: Float64Array) => void;
+  /** the member's stations (stationSets) */
+  stations: (mi: number) => Float64Array;
 }
 
 /** doubles per slab; a call takes (ROWS + 1) × stations of it */
@@ -29,37 +65,13 @@ const SLAB = 8192;
 export type MemberForcesFn = (mi: number, ld: Loading) => StationForces;
 
 export function memberResults(input: MemberResultsInput): MemberForcesFn {
-  const { mesh, nCases, loadSets, U, fefOf, addMoving } = input;
+  const { mesh, nCases, loadSets, U, fefOf, addMoving, stations } = input;
   const nDofAll = mesh.nNodes * 6;
-  const nMembers = mesh.members.length;
-  const sets: (LoadSet | undefined)[] = new Array(nCases);
-  const stationsOf: (Float64Array | undefined)[] = new Array(nMembers);
   const kl = new Float64Array(144), ue = new Float64Array(12), ul = new Float64Array(12), f1 = new Float64Array(6);
   const done = new Uint8Array(nCases);
   let cur = -1, xs: Float64Array = new Float64Array(0), nSt = 0;
   let data = new Float64Array(0);
   let slab = new Float64Array(SLAB), used = 0;
-
-  const stations = (mi: number): Float64Array => {
-    let x = stationsOf[mi];
-    if (x) return x;
-    const L = mesh.members[mi].L;
-    let loaded = false;
-    for (let c = 0; c < nCases; c++) {
-      const ls = loadSets[mi * nCases + c];
-      sets[c] = ls;
-      if (ls && (ls.point.length > 0 || ls.moment.length > 0)) loaded = true;
-    }
-    if (loaded) x = memberStations(L, sets);
-    else {
-      // the 11 evenly spaced stations (memberStations without concentrated loads)
-      x = new Float64Array(11);
-      for (let i = 0; i <= 10; i++) x[i] = (L * i) / 10;
-      x[10] = L;
-    }
-    stationsOf[mi] = x;
-    return x;
-  };
 
   const select = (mi: number) => {
     if (mi === cur) return;

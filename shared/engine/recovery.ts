@@ -19,19 +19,47 @@ import { internalForces } from './statics.js';
 export const ROWS = 8;
 const EMPTY = emptyLoadSet();
 
-/** 11 evenly spaced stations plus every concentrated load position of any case. */
-export function memberStations(L: number, sets: (LoadSet | undefined)[]): Float64Array {
-  const xs: number[] = [];
-  for (let i = 0; i <= 10; i++) xs.push((L * i) / 10);
+/** Default number of equally spaced stations (tables.md settings `stations`). */
+export const DEFAULT_STATIONS = 11;
+
+/**
+ * The member's result stations: `count` equally spaced (both ends included; settings
+ * `stations`), every concentrated load position of any case, and the exact positions `points`
+ * (table `result_points`), sorted. Positions closer than 1e-9·L merge; an exact position
+ * (load or result point) wins over an equally spaced one, so x = 1.0 is read at 1.0 and
+ * not at 10·0.1.
+ */
+export function memberStations(L: number, sets: (LoadSet | undefined)[], count = DEFAULT_STATIONS, points: readonly number[] = []): Float64Array {
+  if (!(Number.isInteger(count) && count >= 2)) throw new Error(`stations per member must be a whole number of at least 2 (got ${count})`);
+  const n = count - 1;
+  const exact: number[] = [...points];
   for (const ls of sets) {
     if (!ls) continue;
-    for (let i = 0; i < ls.point.length; i += 4) xs.push(ls.point[i]);
-    for (let i = 0; i < ls.moment.length; i += 4) xs.push(ls.moment[i]);
+    for (let i = 0; i < ls.point.length; i += 4) exact.push(ls.point[i]);
+    for (let i = 0; i < ls.moment.length; i += 4) exact.push(ls.moment[i]);
   }
-  const u = uniqueSorted(xs, L * 1e-9);
-  u[0] = 0;
-  u[u.length - 1] = L;
-  return Float64Array.from(u);
+  const xs = new Float64Array(count);
+  for (let i = 0; i <= n; i++) xs[i] = (L * i) / n;
+  xs[n] = L;
+  if (exact.length === 0) return xs;
+  // exact positions sit after the equally spaced ones; a stable sort keeps that order on ties
+  const tagged = Array.from(xs, (x) => [x, 0] as [number, number]);
+  for (const x of exact) tagged.push([Math.min(Math.max(x, 0), L), 1]);
+  tagged.sort((p, q) => p[0] - q[0]);
+  const tol = L * 1e-9;
+  const out: number[] = [];
+  let exactLast = false;
+  for (const [x, isExact] of tagged) {
+    if (out.length > 0 && x - out[out.length - 1] <= tol) {
+      if (isExact && !exactLast) { out[out.length - 1] = x; exactLast = true; }
+      continue;
+    }
+    out.push(x);
+    exactLast = isExact === 1;
+  }
+  out[0] = 0;
+  out[out.length - 1] = L;
+  return Float64Array.from(out);
 }
 
 /**
