@@ -174,6 +174,18 @@ export async function startRun(ds: DataSource, modelId: number, userId: number |
   return toRunSummary(run, await userNames(ds, [userId]));
 }
 
+/**
+ * What a failed run tells the user. Engine, reader and stability messages name nodes,
+ * members and loadings ("combination ULS-3 is not stable at this load level: αcr = 0.83") and
+ * are shown as they are; anything that names our files or looks like a programming error is
+ * internal and only logged.
+ */
+export function runFailureText(err: unknown): { text: string; internal: boolean } {
+  const raw = (err instanceof Error ? err.message : String(err)).trim();
+  const internal = raw === '' || /\.(ts|js|mjs)\b|Cannot find module|is not a function|undefined|Cannot read properties|\n\s+at /.test(raw);
+  return { text: internal ? 'an internal error stopped the analysis (the server log has the details)' : raw, internal };
+}
+
 function dispatch(ds: DataSource, runId: number, modelJson: string, designCode: DesignCode): void {
   const logger = loggers.get(ds);
   // writes about one run happen in order, one after the other
@@ -196,11 +208,8 @@ function dispatch(ds: DataSource, runId: number, modelJson: string, designCode: 
     })
     .catch(async (err: unknown) => {
       await chain;
-      const raw = err instanceof Error ? err.message : String(err);
-      // engine and reader messages name nodes and members; anything that names our files is internal
-      const internal = /\.(ts|js|mjs)\b|Cannot find module|is not a function|undefined/.test(raw);
+      const { text, internal } = runFailureText(err);
       if (internal) logger?.error(`run ${runId} failed`, err);
-      const text = internal ? 'an internal error stopped the analysis (the server log has the details)' : raw;
       await ds
         .getRepository(RunEntity)
         .update({ id: runId }, { status: 'failed', message: `The run failed: ${text}`, finishedAt: new Date() })

@@ -58,6 +58,7 @@ export const ROUTES: RouteRule[] = [
   { method: 'GET', path: '/api/runs/:id/members', allowed: READ },
   { method: 'GET', path: '/api/runs/:id/members/:member', allowed: READ },
   { method: 'GET', path: '/api/runs/:id/model', allowed: READ },
+  { method: 'GET', path: '/api/runs/:id/shapes', allowed: READ },
   { method: 'GET', path: '/api/runs/:id/exports/:file', allowed: READ },
   { method: 'GET', path: '/api/samples', allowed: READ },
   { method: 'GET', path: '/api/samples/:file', allowed: READ },

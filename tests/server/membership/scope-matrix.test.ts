@@ -57,6 +57,7 @@ const ROUTES: ScopedRoute[] = [
   { method: 'GET', path: '/api/runs/:id/members', min: 'viewer', url: () => `/api/runs/${runId}/members` },
   { method: 'GET', path: '/api/runs/:id/members/:member', min: 'viewer', url: () => `/api/runs/${runId}/members/M1` },
   { method: 'GET', path: '/api/runs/:id/model', min: 'viewer', url: () => `/api/runs/${runId}/model` },
+  { method: 'GET', path: '/api/runs/:id/shapes', min: 'viewer', url: () => `/api/runs/${runId}/shapes?kind=none` }, // 400 once through the guards
   { method: 'GET', path: '/api/runs/:id/exports/:file', min: 'viewer', url: () => `/api/runs/${runId}/exports/utilisation.csv` },
   { method: 'GET', path: '/api/runs/:runId/review', min: 'viewer', url: () => `/api/runs/${runId}/review` },
   { method: 'POST', path: '/api/runs/:runId/review/submit', min: 'engineer', url: () => `/api/runs/${runId}/review/submit` },

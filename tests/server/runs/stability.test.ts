@@ -1,0 +1,112 @@
+/**
+ * A run with natural modes and elastic critical load factors over the API: the summary on
+ * GET /api/runs/:id, shapes for the picture, stability.csv and modes.csv with the columns of
+ * tables.md, and the method named in the XLSX header block.
+ */
+import ExcelJS from 'exceljs';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { closeRunPool } from '../../../server/runs/worker-pool.js';
+import { createTestApp, type TestApp } from '../helpers/test-app.js';
+import { newProject, upload } from '../models/fixture.js';
+import { settle } from './poll.js';
+
+/** A fixed-base portal frame of our own (invented numbers: demo data), Y up, 6 m × 4 m. */
+export const PORTAL: Record<string, string> = {
+  'settings.csv': 'key,value\ntitle,Stability portal\nunits,metric\ndesign_code,en1993-1-1\nmodes,3\nbuckling_modes,2\n',
+  'materials.csv': 'material,E [MPa],nu,fy [MPa],fu [MPa],density [kg/m3]\nS355,210000,0.3,355,490,7850\n',
+  'sections.csv': 'section,shape,d [mm],bf [mm],tf [mm],tw [mm]\nCOL,i,200,200,15,9\nBM,i,300,150,10.7,7.1\n',
+  'nodes.csv': 'node,x [m],y [m]\nA,0,0\nB,0,4\nC,6,4\nD,6,0\n',
+  'supports.csv': 'node,ux,uy,rz\nA,1,1,1\nD,1,1,1\n',
+  'members.csv': 'member,start,end,section,material,group\nC1,A,B,COL,S355,columns\nB1,B,C,BM,S355,beams\nC2,D,C,COL,S355,columns\n',
+  'cases.csv': 'case,category,title,self_weight,mass\nG,dead,Dead load,1,yes\nW,wind,Wind from the left,0,no\n',
+  'member_loads.csv': 'case,member,kind,direction,w1\nG,B1,uniform,global_y,-20\n',
+  'node_loads.csv': 'case,node,fx [kN]\nW,B,10\n',
+  'combinations.csv': 'combination,case,factor,limit_state\nULS-1,G,1.35,strength\nULS-1,W,1.5,strength\nSLS-1,G,1,service\n',
+};
+
+let t: TestApp;
+let runId = 0;
+beforeAll(async () => {
+  t = await createTestApp();
+  const projectId = await newProject(t, 'Stability');
+  const preview = await upload(t, projectId, PORTAL);
+  if (preview.status !== 201 || !preview.body.canCommit) throw new Error(`preview: ${preview.status} ${JSON.stringify(preview.body)}`);
+  const commit = await t.as('engineer').post(`/api/projects/${projectId}/imports/${preview.body.id}/commit`).send({});
+  const start = await t.as('engineer').post(`/api/models/${commit.body.model.id}/runs`).send({});
+  runId = start.body.id;
+}, 120_000);
+afterAll(async () => {
+  await closeRunPool();
+  await t.close();
+});
+
+describe('a run with modes = 3 and buckling_modes = 2', () => {
+  it('serves the stability summary with the run: order, method, αcr per strength combination, modes', async () => {
+    const run = await settle(t, runId);
+    expect(run.status, String(run.message)).toBe('done');
+    const s = run.stability as {
+      analysis: string; method: string; critical: { loading: string; alphaCr: (number | null)[]; shapes: number }[];
+      modes: { mode: number; frequency: number; period: number; massRatio: number[] }[]; warnings: unknown[];
+    };
+    expect(s.analysis).toBe('first_order');
+    expect(s.method).toMatch(/first.order/i);
+    expect(s.critical.map((c) => c.loading)).toEqual(['ULS-1']);
+    expect(s.critical[0].alphaCr).toHaveLength(2);
+    expect(s.critical[0].alphaCr[0]!).toBeLessThanOrEqual(s.critical[0].alphaCr[1]!);
+    expect(s.modes.map((m) => m.mode)).toEqual([1, 2, 3]);
+    for (const m of s.modes) {
+      // period = 1 / frequency (definition), tolerance 1e-9 relative
+      expect(Math.abs(m.period * m.frequency - 1)).toBeLessThan(1e-9);
+      expect(m.massRatio).toHaveLength(3);
+    }
+    expect(s.modes[0].frequency).toBeLessThanOrEqual(s.modes[1].frequency);
+  });
+
+  it('serves a mode shape and a buckled shape for the picture (nodes × 6), and names what is missing', async () => {
+    const mode = await t.as('engineer').get(`/api/runs/${runId}/shapes?kind=mode&index=1`);
+    expect(mode.status).toBe(200);
+    expect(mode.body).toMatchObject({ runId, kind: 'mode', index: 1, loading: '' });
+    expect(mode.body.displacements).toHaveLength(4 * 6);
+    const buckled = await t.as('engineer').get(`/api/runs/${runId}/shapes?kind=buckling&index=1&loading=ULS-1`);
+    expect(buckled.status).toBe(200);
+    expect(buckled.body.label).toMatch(/^ULS-1 buckling mode 1: αcr = /);
+    const missing = await t.as('engineer').get(`/api/runs/${runId}/shapes?kind=mode&index=9`);
+    expect(missing.status).toBe(404);
+    expect(missing.body.error.message).toBe('mode 9 does not exist: this run has 3 natural modes');
+    const bad = await t.as('engineer').get(`/api/runs/${runId}/shapes?kind=wobble`);
+    expect(bad.status).toBe(400);
+  });
+
+  it('exports stability.csv and modes.csv with exactly the columns of tables.md', async () => {
+    const stab = await t.as('engineer').get(`/api/runs/${runId}/exports/stability.csv`);
+    expect(stab.status).toBe(200);
+    expect(stab.headers['content-type']).toMatch(/text\/csv/);
+    const stabLines = stab.text.replace(/^\uFEFF/, '').trim().split('\r\n');
+    expect(stabLines[0]).toBe('loading,mode,alpha_cr');
+    expect(stabLines.slice(1).map((l) => l.split(',').slice(0, 2).join(','))).toEqual(['ULS-1,1', 'ULS-1,2']);
+    const modes = await t.as('engineer').get(`/api/runs/${runId}/exports/modes.csv`);
+    expect(modes.status).toBe(200);
+    const modeLines = modes.text.replace(/^\uFEFF/, '').trim().split('\r\n');
+    expect(modeLines[0]).toBe('mode,frequency [Hz],period [s],mass_x,mass_y,mass_z');
+    expect(modeLines.slice(1).map((l) => l.split(',')[0])).toEqual(['1', '2', '3']);
+  });
+
+  it('names the analysis method in the XLSX header block', async () => {
+    const res = await t.as('engineer').get(`/api/runs/${runId}/exports/modes.xlsx`).buffer(true).parse((r, cb) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
+    expect(res.status).toBe(200);
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load(res.body as Buffer);
+    const ws = wb.worksheets[0];
+    const rows: string[] = [];
+    ws.eachRow((row) => rows.push(String(row.getCell(1).value)));
+    const at = rows.indexOf('Analysis');
+    expect(at).toBeGreaterThan(0);
+    expect(String(ws.getRow(at + 1).getCell(2).value)).toMatch(/first.order/i);
+    const util = await t.as('engineer').get(`/api/runs/${runId}/exports/utilisation.xlsx`);
+    expect(util.status).toBe(200);
+  });
+});
