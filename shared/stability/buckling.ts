@@ -1,0 +1,184 @@
+/**
+ * Elastic critical load factors: the lowest α of (K + α K_G(N)) φ = 0 for every strength
+ * loading, N the first-order axial forces of that loading.
+ *
+ * One system on the subdivided mesh (default 8 sub-elements per prismatic frame member, so that
+ * the curvature between a member's ends — its own buckling — is captured: a fixed–fixed column
+ * within 0.1% of 4π²EI/L², see tests/shared/stability/buckling.test.ts), one factorisation of K,
+ * one block solve of every case; the axial force of every element per case (geometric.ts), and
+ * per loading by superposition of the cases. Then per loading K_G(N) assembled in K's pattern and
+ * the eigen solve of K φ = α (−K_G) φ reusing the same factorisation (eigen.ts: subspace
+ * iteration; only positive α are wanted, buckling under the loading as it acts).
+ *
+ * A loading without compression anywhere cannot buckle: alphaCr = [Infinity]. Flexural buckling
+ * only (geometric.ts: no Wagner term, so no torsional or lateral-torsional buckling).
+ */
+import type { Model } from '../model/types.js';
+import type { FactorOptions, Factorisation, SymmetricCsc } from '../solver/types.js';
+import { buildSystem, type LinearSystem } from '../engine/system.js';
+import { type EigenOptions, factoriseSystem, lowestEigenpairs } from './eigen.js';
+import { assembleGeometricStiffness, elementAxialForces } from './geometric.js';
+import { userShape } from './modes.js';
+import type { CriticalLoadFactors } from './types.js';
+
+/** Sub-elements per prismatic frame member for critical load factors, unless told otherwise. */
+export const BUCKLING_SUBDIVISIONS = 8;
+
+export interface BucklingOptions {
+  /** loading ids (cases or combinations); default every strength loading (strengthLoadings) */
+  loadings?: string[];
+  /** sub-elements per prismatic frame member; default BUCKLING_SUBDIVISIONS (8) */
+  subdivisions?: number;
+  /** sub-elements per tapered member; default 16 (as the engine) */
+  taperSegments?: number;
+  /** buckled shapes on the user's nodes; default false */
+  shapes?: boolean;
+  /** solver options; default { ordering: 'auto', pivotTolerance: 1e-10 } */
+  solver?: FactorOptions;
+  factorise?: (K: SymmetricCsc, opts: FactorOptions) => Factorisation;
+  /** subspace size, tolerance, iteration limit (eigen.ts) */
+  eigen?: EigenOptions;
+}
+
+export interface BucklingLoadingDiagnostics {
+  loading: string;
+  iterations: number;
+  converged: boolean;
+  solves: number;
+  /** largest ‖Kφ + α K_G φ‖ / ‖Kφ‖ */
+  residual: number;
+  /** elements in compression */
+  compressed: number;
+}
+
+export interface BucklingResult {
+  critical: CriticalLoadFactors[];
+  diagnostics: {
+    freedoms: number;
+    subdivisions: number;
+    loadings: BucklingLoadingDiagnostics[];
+    timings: Record<string, number>;
+  };
+}
+
+/** A loading as cases and factors. */
+export interface LoadingTerms {
+  id: string;
+  terms: { caseIndex: number; factor: number }[];
+}
+
+/**
+ * The strength loadings of a model: its strength combinations, or every case when the model
+ * has no combinations at all.
+ */
+export function strengthLoadings(model: Model): LoadingTerms[] {
+  const caseIndex = new Map(model.cases.map((c, i) => [c.id, i]));
+  if (model.combinations.length === 0) return model.cases.map((c, i) => ({ id: c.id, terms: [{ caseIndex: i, factor: 1 }] }));
+  return model.combinations.filter((cb) => cb.limitState === 'strength').map((cb) => ({
+    id: cb.id,
+    terms: cb.terms.map((t) => {
+      const ci = caseIndex.get(t.case);
+      if (ci === undefined) throw new Error(`combination ${cb.id}: case ${t.case} does not exist`);
+      return { caseIndex: ci, factor: t.factor };
+    }),
+  }));
+}
+
+function pickLoadings(model: Model, ids: string[] | undefined): LoadingTerms[] {
+  if (!ids) return strengthLoadings(model);
+  const caseIndex = new Map(model.cases.map((c, i) => [c.id, i]));
+  return ids.map((id) => {
+    const cb = model.combinations.find((c) => c.id === id);
+    if (cb) {
+      return {
+        id, terms: cb.terms.map((t) => {
+          const ci = caseIndex.get(t.case);
+          if (ci === undefined) throw new Error(`combination ${cb.id}: case ${t.case} does not exist`);
+          return { caseIndex: ci, factor: t.factor };
+        }),
+      };
+    }
+    const ci = caseIndex.get(id);
+    if (ci === undefined) throw new Error(`critical load factors: loading ${id} is neither a case nor a combination`);
+    return { id, terms: [{ caseIndex: ci, factor: 1 }] };
+  });
+}
+
+/** Axial force of every element in every case (nCases × nElements), from one block solve. */
+export function caseAxialForces(sys: LinearSystem, fact: Factorisation): Float64Array {
+  const { mesh, nCases, nEq, eq, F, presc } = sys;
+  const nEl = mesh.nElements, nDofAll = mesh.nNodes * 6;
+  const out = new Float64Array(nCases * nEl);
+  if (nCases === 0) return out;
+  const X = nEq > 0 ? fact.solve(F, nCases) : new Float64Array(0);
+  const u = new Float64Array(nDofAll);
+  for (let c = 0; c < nCases; c++) {
+    const p = presc[c];
+    for (let g = 0; g < nDofAll; g++) u[g] = eq[g] >= 0 ? X[c * nEq + eq[g]] : p ? p[g] : 0;
+    out.set(elementAxialForces(mesh, u, (e) => sys.fefOf(e, c)), c * nEl);
+  }
+  return out;
+}
+
+/** The n lowest critical load factors of every strength loading (or of the loadings asked for). */
+export function criticalLoadFactors(model: Model, n: number, options: BucklingOptions = {}): CriticalLoadFactors[] {
+  return bucklingAnalysis(model, n, options).critical;
+}
+
+/** criticalLoadFactors with diagnostics (iterations, solves, residuals, timings). */
+export function bucklingAnalysis(model: Model, n: number, options: BucklingOptions = {}): BucklingResult {
+  if (!(Number.isInteger(n) && n >= 1)) throw new Error(`critical load factors: the number of modes ${n} must be a whole number of at least 1`);
+  const subdivisions = Math.max(1, Math.floor(options.subdivisions ?? BUCKLING_SUBDIVISIONS));
+  const loadings = pickLoadings(model, options.loadings);
+  const timings: Record<string, number> = {};
+  let t0 = performance.now();
+  const lap = (name: string) => { const t = performance.now(); timings[name] = (timings[name] ?? 0) + t - t0; t0 = t; };
+  const sys = buildSystem(model, options.taperSegments ?? 16, {}, subdivisions);
+  lap('assembly');
+  const fact = factoriseSystem(sys, options);
+  lap('factorisation');
+  const axialByCase = caseAxialForces(sys, fact);
+  lap('first order');
+
+  const nEl = sys.mesh.nElements, nEq = sys.nEq, nUser = sys.mesh.nUserNodes;
+  const K = sys.pat.K;
+  const N = new Float64Array(nEl);
+  const kG = new Float64Array(K.values.length);
+  const B: SymmetricCsc = { n: nEq, colPtr: K.colPtr, rowIdx: K.rowIdx, values: kG };
+  const critical: CriticalLoadFactors[] = [];
+  const diag: BucklingLoadingDiagnostics[] = [];
+  for (const ld of loadings) {
+    N.fill(0);
+    for (const { caseIndex: c, factor } of ld.terms) {
+      if (factor === 0) continue;
+      const o = c * nEl;
+      for (let e = 0; e < nEl; e++) N[e] += factor * axialByCase[o + e];
+    }
+    let big = 0;
+    for (let e = 0; e < nEl; e++) big = Math.max(big, Math.abs(N[e]));
+    let compressed = 0;
+    for (let e = 0; e < nEl; e++) if (N[e] < -1e-9 * big) compressed++;
+    if (compressed === 0 || nEq === 0) {
+      critical.push({ loading: ld.id, alphaCr: [Infinity], ...(options.shapes ? { shapes: [] } : {}) });
+      diag.push({ loading: ld.id, iterations: 0, converged: true, solves: 0, residual: 0, compressed });
+      continue;
+    }
+    assembleGeometricStiffness(sys, N, kG);
+    for (let i = 0; i < kG.length; i++) kG[i] = -kG[i];
+    lap('geometric stiffness');
+    const eig = lowestEigenpairs(fact, K, B, Math.min(n, nEq), options.eigen);
+    lap('eigen');
+    const alphaCr = eig.values.length ? Array.from(eig.values) : [Infinity];
+    const rec: CriticalLoadFactors = { loading: ld.id, alphaCr };
+    if (options.shapes) {
+      rec.shapes = [];
+      for (let k = 0; k < eig.values.length; k++) rec.shapes.push(userShape(eig.vectors.subarray(k * nEq, (k + 1) * nEq), sys.eq, nUser));
+    }
+    critical.push(rec);
+    diag.push({
+      loading: ld.id, iterations: eig.iterations, converged: eig.converged, solves: eig.solves,
+      residual: eig.residuals.reduce((a, b) => Math.max(a, b), 0), compressed,
+    });
+  }
+  return { critical, diagnostics: { freedoms: nEq, subdivisions, loadings: diag, timings } };
+}
