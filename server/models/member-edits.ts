@@ -3,12 +3,13 @@
  * a section must be one of the model's sections or a catalogue designation (added to the
  * model's sections when first used, exactly as the reader does: shared/reader/library.ts),
  * a material one of the model's or a built-in one,
- * numbers finite and greater than zero. Values arrive in the model's unit system, as in
- * the tables. Pure: returns a new model or the list of problems, never half an edit.
+ * numbers finite (also after conversion to SI) and greater than zero (`lb` zero or more: 0 =
+ * continuously braced). Values arrive in the model's unit system, as in the tables. Pure:
+ * returns a new model or the list of problems, never half an edit.
  */
 import type { Material, Member, Model, Section } from '../../shared/model/types.js';
 import { resolveMaterial, resolveSection } from '../../shared/reader/library.js';
-import type { EditProblem, EditableMember, MemberEdit } from '../../shared/schemas/models.js';
+import { LENGTH_MEMBER_FIELDS, type EditProblem, type EditableMember, type MemberEdit } from '../../shared/schemas/models.js';
 import { fromSI, toSI } from '../../shared/units/index.js';
 
 export type EditOutcome = { ok: true; model: Model; changed: number } | { ok: false; problems: EditProblem[] };
@@ -17,10 +18,15 @@ function isBlank(value: MemberEdit['value']): boolean {
   return value === null || (typeof value === 'string' && value.trim() === '');
 }
 
-function numberOf(value: MemberEdit['value']): number | null {
-  if (typeof value === 'number') return Number.isFinite(value) ? value : null;
-  if (typeof value === 'string' && /^\s*[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?\s*$/.test(value)) return Number(value);
-  return null;
+/** The number typed, or why it is not one (an overflowing `1e309` is not a number here). */
+function numberOf(value: MemberEdit['value']): number | { error: string } {
+  const shown = String(value).trim();
+  let n: number;
+  if (typeof value === 'number') n = value;
+  else if (typeof value === 'string' && /^\s*[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?\s*$/.test(value)) n = Number(value);
+  else return { error: `"${shown}" is not a number` };
+  if (!Number.isFinite(n)) return { error: `"${shown}" is not a finite number (too large or not a number)` };
+  return n;
 }
 
 export function applyMemberEdits(model: Model, edits: MemberEdit[]): EditOutcome {
@@ -99,15 +105,18 @@ export function applyMemberEdits(model: Model, edits: MemberEdit[]): EditOutcome
           break;
         }
         const n = numberOf(edit.value);
-        if (n === null) { fail(`${where}: "${String(edit.value)}" is not a number`); continue; }
-        if (!(n > 0)) { fail(`${where}: must be greater than zero`); continue; }
-        if (field === 'k_major') m.kMajor = n;
-        else if (field === 'k_minor') m.kMinor = n;
-        else if (field === 'l_major') m.lMajor = toSI(n, 'length', units);
-        else if (field === 'l_minor') m.lMinor = toSI(n, 'length', units);
-        else if (field === 'lb') m.lb = toSI(n, 'length', units);
-        else if (field === 'cb') m.cb = n;
-        else m.deflectionLimit = n;
+        if (typeof n === 'object') { fail(`${where}: ${n.error}`); continue; }
+        // lb = 0: continuously braced (tables.md members); everything else must be positive
+        if (field === 'lb' ? !(n >= 0) : !(n > 0)) { fail(`${where}: must be ${field === 'lb' ? 'zero or more' : 'greater than zero'}`); continue; }
+        const si = LENGTH_MEMBER_FIELDS.includes(field) ? toSI(n, 'length', units) : n;
+        if (!Number.isFinite(si)) { fail(`${where}: ${n} overflows when converted to SI units`); continue; }
+        if (field === 'k_major') m.kMajor = si;
+        else if (field === 'k_minor') m.kMinor = si;
+        else if (field === 'l_major') m.lMajor = si;
+        else if (field === 'l_minor') m.lMinor = si;
+        else if (field === 'lb') m.lb = si;
+        else if (field === 'cb') m.cb = si;
+        else m.deflectionLimit = si;
       }
     }
     members[i] = m;

@@ -6,6 +6,8 @@ import { createHash } from 'node:crypto';
 import { gunzipSync, gzipSync } from 'node:zlib';
 import { withModelDefaults } from '../../shared/model/defaults.js';
 import type { Model } from '../../shared/model/types.js';
+import { validationFailed } from '../errors/app-error.js';
+import { findNonFinite } from './finite-numbers.js';
 
 export function encodeJson(value: unknown): Buffer {
   return gzipSync(Buffer.from(JSON.stringify(value), 'utf8'), { level: 1 });
@@ -25,7 +27,10 @@ export interface EncodedModel {
   hash: string;
 }
 
+/** Refuses (400) a model holding a number that is not finite: JSON would store it as null. */
 export function encodeModel(model: Model): EncodedModel {
+  const bad = findNonFinite(model);
+  if (bad) throw validationFailed(bad.message, { problems: [{ severity: 'error', table: bad.table, row: bad.row, column: bad.column, message: bad.message }] });
   const json = JSON.stringify(model);
   return { data: gzipSync(Buffer.from(json, 'utf8'), { level: 1 }), hash: createHash('sha256').update(json).digest('hex') };
 }

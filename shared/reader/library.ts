@@ -19,7 +19,8 @@ const ZERO_PROPS: SectionProps = {
   A: 0, I_major: 0, I_minor: 0, J: 0, Cw: 0, S_major: 0, S_minor: 0, Z_major: 0, Z_minor: 0, Av_major: 0, Av_minor: 0, depth: 0,
 };
 
-export function readMaterials(t: ParsedTable | undefined, problems: Problems): Map<string, Material> {
+/** `invalid` (optional) collects the materials whose row had an error already reported. */
+export function readMaterials(t: ParsedTable | undefined, problems: Problems, invalid?: Set<string>): Map<string, Material> {
   const out = new Map<string, Material>();
   if (!t) return out;
   for (const r of t.rows) {
@@ -30,6 +31,7 @@ export function readMaterials(t: ParsedTable | undefined, problems: Problems): M
       problems.error('materials', r.row, t.label.material ?? 'material', `material ${id} is defined twice (first on row ${out.get(id)!.row})`);
       continue;
     }
+    if (r.invalid) invalid?.add(id);
     const E = v.e as number | undefined;
     if (E === undefined && !r.invalid) problems.error('materials', r.row, t.label.e ?? 'E', `material ${id} needs E`);
     const Ev = E ?? 0;

@@ -153,7 +153,8 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
   if (raw.has('nodes') && !raw.has('supports')) problems.error('supports', undefined, undefined, 'the model needs a supports table');
 
   // 5. materials and sections
-  const ownMaterials = readMaterials(parsed.materials, problems);
+  const invalidMaterials = new Set<string>();
+  const ownMaterials = readMaterials(parsed.materials, problems, invalidMaterials);
   const { sections: ownSections, invalid: invalidSections } = readSections(parsed.sections, problems, system);
   const usedMaterials = new Map<string, Material>();
   const usedSections = new Map<string, Section>();
@@ -264,7 +265,7 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
   if (settings.designCode !== 'none') {
     const reported = new Set<string>();
     for (const [mid, mat] of memberMaterial) {
-      if (mat.fy !== undefined || reported.has(mat.id)) continue;
+      if (mat.fy !== undefined || reported.has(mat.id) || invalidMaterials.has(mat.id)) continue; // a bad fy cell is reported already
       reported.add(mat.id);
       problems.error('materials', mat.row, lab('materials', 'fy'), `material ${mat.id} has no fy, which design code ${settings.designCode} needs (used by member ${mid})`);
     }

@@ -92,7 +92,9 @@ export const CLEARABLE_MEMBER_FIELDS: readonly EditableMemberField[] = ['l_major
 export const memberEditSchema = z.object({
   member: z.string().trim().min(1, 'member is required').max(200),
   field: z.enum(EDITABLE_MEMBER_FIELDS),
-  value: z.union([z.string().max(200), z.number(), z.null()]),
+  // any JSON number passes here (also one that overflowed to Infinity on parsing, `1e400`), so
+  // that the edit's own check can refuse it naming the member and the field
+  value: z.union([z.string().max(200), z.custom<number>((v) => typeof v === 'number', 'expected a number, text or null'), z.null()]),
 });
 export type MemberEdit = z.infer<typeof memberEditSchema>;
 
