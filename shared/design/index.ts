@@ -11,6 +11,7 @@
 import { stampVehicle } from '../moving/governing.js';
 import type { DesignCode, Material, Member, Model, Section } from '../model/types.js';
 import type { AnalysisResult, StationForces } from '../engine/types.js';
+import type { StabilitySummary, StabilityWarning } from '../stability/types.js';
 import { catalogueSection } from '../sections/index.js';
 import { builtInMaterial } from '../materials/index.js';
 import type { CheckFamily, CheckRecord, CheckStatus, DesignResult, MemberUtilisation } from './types.js';
@@ -33,6 +34,38 @@ export interface DesignOptions {
   strengthLoadings?: number[];
   /** loading indices to check for deflection (default: service combinations) */
   serviceLoadings?: number[];
+  /**
+   * The run's stability summary (shared/stability): every record names its `method`; a
+   * first-order stability warning of a combination goes to each member that is in compression
+   * (N < 0 at any station) in that combination — its schedule row's warnings and its records.
+   */
+  stability?: StabilitySummary;
+}
+
+/** One line for a member's warnings from the stability warnings of its compressed combinations. */
+function stabilityLine(ws: StabilityWarning[]): string {
+  const fmt = (v: number) => (Number.isFinite(v) ? Number(v.toPrecision(3)).toString() : '∞');
+  const en = ws.some((w) => w.reasons.some((r) => r.startsWith('en1993')));
+  const limit = en ? 'αcr < 10 (EN 1993-1-1 5.2.1(3))' : 'sway amplifier 1/(1 − 1/αcr) > 1.5 (AISC 360-22 Chapter C)';
+  return `stability: first-order forces in combination${ws.length > 1 ? 's' : ''} ${ws.map((w) => `${w.loading} (αcr = ${fmt(w.alphaCr)})`).join(', ')} `
+    + `where ${limit} — sway effects understated; set analysis = second_order`;
+}
+
+/**
+ * Remarks the analysis method adds to a record: under second order, member strength uses the
+ * member's K (default 1) — AISC 360-22 C3 (direct analysis method), EN 1993-1-1 5.2.2(7)(b)
+ * (system length once the sway imperfection is in the global analysis; clause from memory).
+ */
+function stampMethod(r: CheckRecord, s: StabilitySummary, member: Member): CheckRecord {
+  r.analysis = s.method;
+  if (s.analysis === 'second_order' && r.family === 'compression' && r.status !== 'not checked') {
+    const k = member.kMajor === 1 && member.kMinor === 1 ? 'K = 1' : `K given by the member (k_major = ${member.kMajor}, k_minor = ${member.kMinor})`;
+    const why = r.code === 'en1993-1-1'
+      ? 'buckling length from the system length: second-order global analysis with sway imperfection (EN 1993-1-1 5.2.2(7)(b))'
+      : r.code === 'none' ? '' : 'direct analysis method (AISC 360-22 C3)';
+    if (why) r.note = r.note ? `${r.note}; ${k}: ${why}` : `${k}: ${why}`;
+  }
+  return r;
 }
 
 /** Everything about a member the checks need, prepared once. */
@@ -186,6 +219,8 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
   const floor = noiseFloor(analysis, strength);
   let scratch: StationForces | undefined;
   const ids = analysis.loadings.map((l) => l.id);
+  const stability = options.stability;
+  const warned = new Map<string, StabilityWarning>((stability?.warnings ?? []).map((w) => [w.loading, w]));
   const members: MemberUtilisation[] = [];
   const records: CheckRecord[] = [];
   const counts = { pass: 0, fail: 0, notChecked: 0 };
@@ -204,6 +239,7 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
     const p = ctx.prepared[mi];
     const memberRecords: CheckRecord[] = [];
     const warnings: string[] = [];
+    const memberWarned: StabilityWarning[] = [];
     const sectionMaterial = { section: p.member.section, material: p.member.material };
     if (!p.plan) {
       memberRecords.push(notChecked(p.member.id, 'combined', ctx.code, '', 'design checks', p.reason));
@@ -228,6 +264,10 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
           else if (r > gov[s] || govL[s] < 0) { if (r >= 0 || govL[s] < 0) { gov[s] = r; govL[s] = li; } }
         }
         if (!compression && hasCompression(sf)) { compression = true; compressionLoading = li; }
+        if (warned.size) {
+          const w = warned.get(ids[li]);
+          if (w && !memberWarned.includes(w) && hasCompression(sf)) memberWarned.push(w);
+        }
         if (tensionLoading < 0 && hasTension(sf)) tensionLoading = li;
       }
       evaluationMs += performance.now() - te0;
@@ -274,6 +314,14 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
           const rec = deflectionRecord(p.member.id, ctx.code, ids[worstL], worst, worstX, p.setup.length, p.deflectionLimit, p.setup.cantilever);
           memberRecords.push(analysis.moving ? stampVehicle(analysis, mi, worstL, analysis.memberForces(mi, worstL), rec) : rec);
         }
+      }
+    }
+    if (stability) {
+      const line = memberWarned.length ? stabilityLine(memberWarned) : '';
+      if (line) warnings.unshift(line);
+      for (const r of memberRecords) {
+        stampMethod(r, stability, p.member);
+        if (line && r.family !== 'deflection') r.stability = line;
       }
     }
     const u = utilisation(p, memberRecords, warnings, sectionMaterial);
@@ -335,7 +383,21 @@ function utilisation(p: Prepared, recs: CheckRecord[], warnings: string[], sm: {
  * All records of one member for one loading: strength checks (and the slenderness
  * warning) for a strength loading or a case; the deflection check for a service loading.
  */
-export function checkMember(model: Model, analysis: AnalysisResult, memberIndex: number, loadingIndex: number): CheckRecord[] {
+export function checkMember(model: Model, analysis: AnalysisResult, memberIndex: number, loadingIndex: number, options: Pick<DesignOptions, 'stability'> = {}): CheckRecord[] {
+  const out = memberRecordsOf(model, analysis, memberIndex, loadingIndex);
+  const s = options.stability;
+  if (!s) return out;
+  const w = s.warnings.find((q) => q.loading === analysis.loadings[loadingIndex].id);
+  const compressed = () => hasCompression(denoise(analysis.memberForces(memberIndex, loadingIndex), noiseFloor(analysis, [loadingIndex])));
+  const line = w && analysis.loadings[loadingIndex].limitState !== 'service' && compressed() ? stabilityLine([w]) : '';
+  for (const r of out) {
+    stampMethod(r, s, model.members[memberIndex]);
+    if (line) r.stability = line;
+  }
+  return out;
+}
+
+function memberRecordsOf(model: Model, analysis: AnalysisResult, memberIndex: number, loadingIndex: number): CheckRecord[] {
   const member = model.members[memberIndex];
   const loading = analysis.loadings[loadingIndex];
   if (!member) throw new Error(`checkMember: member index ${memberIndex} does not exist`);

@@ -53,6 +53,10 @@ export interface CheckRecord {
   vehiclePosition?: number;
   /** moving loads: which envelope governed */
   envelope?: 'max' | 'min';
+  /** the analysis the forces come from (StabilitySummary.method), e.g. the direct analysis method */
+  analysis?: string;
+  /** first-order stability warning of a combination in which this member is in compression */
+  stability?: string;
 }
 
 export interface MemberUtilisation {

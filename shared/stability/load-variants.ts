@@ -19,20 +19,19 @@ export interface SwayDirection {
 /**
  * The horizontal directions in which the frame can sway, both signs: the two global axes
  * other than the vertical one, less the normal of a plane frame and any axis along which
- * every node has the same coordinate (nothing can lean that way).
+ * every node is held by a support (nothing can lean that way).
  */
 export function swayDirections(model: Model): SwayDirection[] {
   const up = model.settings.verticalAxis === 'Y' ? 1 : 2;
   const normal = model.inferred.planeFrame?.normal;
+  const held = [0, 1, 2].map((axis) => {
+    const nodes = new Set(model.supports.filter((s) => s.restrained[axis]).map((s) => s.node));
+    return model.nodes.length > 0 && model.nodes.every((n) => nodes.has(n.id));
+  });
   const out: SwayDirection[] = [];
   for (let axis = 0; axis < 3; axis++) {
-    if (axis === up) continue;
     const name = 'XYZ'[axis];
-    if (normal === name) continue;
-    const key = axis === 0 ? 'x' : axis === 1 ? 'y' : 'z';
-    let lo = Infinity, hi = -Infinity;
-    for (const n of model.nodes) { lo = Math.min(lo, n[key]); hi = Math.max(hi, n[key]); }
-    if (!(hi - lo > 1e-9 * Math.max(1, Math.abs(hi), Math.abs(lo)))) continue;
+    if (axis === up || normal === name || held[axis]) continue;
     out.push({ axis, sign: 1, label: `+${name}` }, { axis, sign: -1, label: `-${name}` });
   }
   return out;
