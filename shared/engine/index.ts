@@ -135,7 +135,8 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
 
   // member recovery: station values per case of the member asked for, loadings by superposition
   const forcesOf = memberResults({
-    mesh, nCases, loadSets, U, fefOf, stations: stationsOf,
+    // with moving loads, lane members also have stations where an extreme under an axle occurs (shared/moving)
+    mesh, nCases, loadSets, U, fefOf, stations: moving ? (mi) => moving!.basis.memberStations[mi] : stationsOf,
     addMoving: moving ? (mi, ld, rows) => addMovingPart(moving!, ld, moving!.basis.memberOff[mi], rows) : undefined,
   });
 

@@ -26,16 +26,19 @@ export interface Envelope {
 }
 
 /** Path positions of every node and station of the lane (targets for exact axle placement). */
-export function laneTargets(path: LanePathGeometry, basis: InfluenceBasis): number[] {
+export function laneTargets(path: LanePathGeometry, basis: InfluenceBasis | ((mi: number) => ArrayLike<number>)): number[] {
+  const stations = typeof basis === 'function' ? basis : (mi: number) => basis.memberStations[mi];
   const t: number[] = [...path.nodes];
   for (const g of path.segments) {
-    for (const x of basis.memberStations[g.member]) t.push(g.s0 + (g.reversed ? g.L - x : x));
+    const xs = stations(g.member);
+    for (let i = 0; i < xs.length; i++) t.push(g.s0 + (g.reversed ? g.L - xs[i] : xs[i]));
   }
   return t;
 }
 
 export function movingEnvelope(
   sys: LinearSystem, basis: InfluenceBasis, path: LanePathGeometry, axles: Axle[], step: number, directions: Direction[],
+  opts: { targets?: readonly number[]; extraLeads?: Partial<Record<Direction, readonly number[]>> } = {},
 ): Envelope {
   const { nFull, nBasis, QU, denseFull, denseOf } = basis;
   const nDense = denseFull.length;
@@ -83,14 +86,14 @@ export function movingEnvelope(
   };
   const extraD: number[] = [], extraV: number[] = [];
   const pt: PathPoint = { segment: 0, a: 0 };
-  const targets = laneTargets(path, basis);
+  const targets = opts.targets ?? laneTargets(path, basis);
   const offsets = axles.map((a) => a.offset);
   let positions = 0;
   let first = true;
 
   for (const direction of directions) {
     const dirCode = direction === 'forward' ? 0 : 1;
-    const { lead } = vehiclePositions(path.length, offsets, step, direction, targets);
+    const { lead } = vehiclePositions(path.length, offsets, step, direction, targets, opts.extraLeads?.[direction]);
     positions += lead.length;
     for (let p = 0; p < lead.length; p++) {
       const L0 = lead[p];

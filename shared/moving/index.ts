@@ -9,12 +9,14 @@ import type { ForceKey, Loading } from '../engine/types.js';
 import { FORCE_KEYS } from '../engine/types.js';
 import type { Model } from '../model/types.js';
 import { type Envelope, laneTargets, movingEnvelope } from './envelope.js';
+import { type AxleScan, scanAxles } from './axles.js';
 import { buildInfluenceBasis, type InfluenceBasis, type InfluenceInput, UnitLoadEffect } from './influence.js';
 import { buildLanePath, type LanePathGeometry, locate, type PathPoint } from './path.js';
 import type { Direction } from './positions.js';
-import type { InfluenceLine, MemberQuantity, MovingResults, VehicleAt } from './types.js';
+import { type InfluenceLine, type MemberExtremes, type MemberQuantity, MOVING_FORCE_KEYS, type MovingResults, type VehicleAt } from './types.js';
 
-export type { InfluenceLine, MemberQuantity, MovingResults, VehicleAt } from './types.js';
+export type { ForceExtreme, InfluenceLine, MemberExtremes, MemberQuantity, MovingForceKey, MovingResults, VehicleAt } from './types.js';
+export { MOVING_FORCE_KEYS } from './types.js';
 export { buildLanePath, locate, pathPosition } from './path.js';
 export { vehiclePositions, axlePosition } from './positions.js';
 
@@ -23,13 +25,24 @@ export interface MovingComputation {
   paths: Map<string, LanePathGeometry>;
   /** per model.movingLoads row */
   envelopes: Envelope[];
+  /** per model.movingLoads row: the extremes found under the axles (axles.ts) */
+  axleScans: AxleScan[];
   /** case index -> rows of model.movingLoads */
   rowsOfCase: Map<number, number[]>;
+  /** stations added to lane members at the governing axle positions */
+  extraStations: number;
   milliseconds: number;
 }
 
 export type MovingInput = Omit<InfluenceInput, 'laneMembers'>;
 
+/**
+ * Lane paths, the scan under the axles, the influence basis and the envelopes. The member
+ * stations of the result are the engine's stations plus, on lane members, every x where a
+ * force's extreme under an axle occurs (axles.ts), and the vehicle positions include those
+ * where the extreme occurs: so the station envelope — and every design check that reads
+ * stations — carries the true extremes of the vehicle, not only those at stations.
+ */
 export function computeMoving(inp: MovingInput): MovingComputation {
   const t0 = performance.now();
   const { model, sys } = inp;
@@ -41,10 +54,8 @@ export function computeMoving(inp: MovingInput): MovingComputation {
     paths.set(ml.lane, p);
     for (const g of p.segments) laneMembers.add(g.member);
   }
-  const basis = buildInfluenceBasis({ ...inp, laneMembers });
-  const envelopes: Envelope[] = [];
   const rowsOfCase = new Map<number, number[]>();
-  model.movingLoads.forEach((ml, j) => {
+  const runs = model.movingLoads.map((ml, j) => {
     const where = `moving load${ml.row !== undefined ? ` (row ${ml.row})` : ''} of case ${ml.case}`;
     const c = sys.caseIndex.get(ml.case);
     if (c === undefined) throw new Error(`${where}: the case does not exist`);
@@ -53,12 +64,31 @@ export function computeMoving(inp: MovingInput): MovingComputation {
     const path = paths.get(ml.lane)!;
     const step = ml.step ?? path.length / 200;
     const dirs: Direction[] = ml.direction === 'both' ? ['forward', 'backward'] : [ml.direction];
-    envelopes.push(movingEnvelope(sys, basis, path, axles, step, dirs));
     const list = rowsOfCase.get(c) ?? [];
     list.push(j);
     rowsOfCase.set(c, list);
+    // vehicle positions target the engine's stations (not the extra ones: those come with their own positions)
+    return { axles, path, step, dirs, targets: laneTargets(path, inp.stations) };
   });
-  return { basis, paths, envelopes, rowsOfCase, milliseconds: performance.now() - t0 };
+  const axleScans: AxleScan[] = [];
+  let extraStations = 0;
+  const basis = buildInfluenceBasis({ ...inp, laneMembers }, (lane) => {
+    const extra = new Map<number, number[]>();
+    for (const r of runs) {
+      const scan = scanAxles(sys, lane, r.path, r.axles, r.step, r.dirs, r.targets);
+      axleScans.push(scan);
+      for (const e of scan.extremes) {
+        const list = extra.get(e.member) ?? [];
+        list.push(e.x);
+        extra.set(e.member, list);
+      }
+    }
+    return extra;
+  });
+  for (const mi of laneMembers) extraStations += basis.memberStations[mi].length - inp.stations(mi).length;
+  const envelopes = runs.map((r, j) =>
+    movingEnvelope(sys, basis, r.path, r.axles, r.step, r.dirs, { targets: r.targets, extraLeads: axleScans[j].leads }));
+  return { basis, paths, envelopes, axleScans, rowsOfCase, extraStations, milliseconds: performance.now() - t0 };
 }
 
 /** Loadings with every one that includes a moving-load case split into a max and a min envelope. */
@@ -172,10 +202,36 @@ export function movingResults(model: Model, comp: MovingComputation, loadings: L
       });
       return { x: xs.slice(), max, min };
     },
+    memberExtremes(j, mi) {
+      const env = comp.envelopes[j];
+      if (!env) throw new Error(`moving load ${j} does not exist`);
+      if (!(mi >= 0 && mi < basis.memberStations.length)) throw new Error(`member index ${mi} out of range`);
+      const xs = basis.memberStations[mi];
+      const nSt = xs.length, o = basis.memberOff[mi];
+      const ml = model.movingLoads[j];
+      const at = (pos: number, dir: number): VehicleAt | null => (pos === pos
+        ? { movingLoad: j, lane: ml.lane, vehicle: ml.vehicle, direction: dir ? 'backward' : 'forward', lead: pos } : null);
+      const out = {} as MemberExtremes;
+      for (const key of MOVING_FORCE_KEYS) {
+        const f = o + ROW_OF[key] * nSt;
+        let iMax = 0, iMin = 0;
+        for (let i = 1; i < nSt; i++) {
+          if (env.max[f + i] > env.max[f + iMax]) iMax = i;
+          if (env.min[f + i] < env.min[f + iMin]) iMin = i;
+        }
+        out[key] = {
+          max: { value: env.max[f + iMax], x: xs[iMax], station: iMax, at: at(env.posMax[f + iMax], env.dirMax[f + iMax]) },
+          min: { value: env.min[f + iMin], x: xs[iMin], station: iMin, at: at(env.posMin[f + iMin], env.dirMin[f + iMin]) },
+        };
+      }
+      return out;
+    },
     diagnostics: {
       basis: basis.nBasis,
       quantities: basis.denseFull.length,
       positions: comp.envelopes.reduce((n, e) => n + e.positions, 0),
+      extraStations: comp.extraStations,
+      refined: comp.axleScans.reduce((n, a) => n + a.leads.forward.length + a.leads.backward.length, 0),
       milliseconds: comp.milliseconds,
     },
   };

@@ -21,7 +21,7 @@ import type { Model } from '../model/types.js';
 import { vecToGlobal12, vecToLocal12 } from '../engine/axes.js';
 import { elementReleases, PLANE, SUPPORT } from '../engine/discretise.js';
 import { fixedEndForces } from '../engine/fixedEnd.js';
-import type { LoadSet } from '../engine/loadSet.js';
+import { type LoadSet, uniqueSorted } from '../engine/loadSet.js';
 import { caseStations, ROWS } from '../engine/recovery.js';
 import { internalForces } from '../engine/statics.js';
 import { elementLocal, type LinearSystem } from '../engine/system.js';
@@ -37,50 +37,45 @@ export interface InfluenceInput {
   laneMembers: Set<number>;
 }
 
-export interface InfluenceBasis {
+/** The lanes' unit-load columns: what a load on a lane member does before any result quantity is laid out. */
+export interface LaneBasis {
   nUser: number;
-  /** offset of each member's station table in the full layout */
-  memberOff: Int32Array;
-  memberStations: Float64Array[];
-  nFull: number;
-  /** members whose N row is constant and stored at station 0 only */
-  constantN: Uint8Array;
   /** basis column of each mesh freedom (−1: none) */
   basisOf: Int32Array;
   nBasis: number;
-  /** dense quantities: full index of each, and QU (nBasis × nDense, row-major) */
-  denseFull: Int32Array;
-  denseOf: Int32Array;
-  QU: Float64Array;
   /** unit downward vector in global axes */
   down: [number, number, number];
   /** mesh freedom restrained (reaction there) */
   restrained: Uint8Array;
 }
 
-export function buildInfluenceBasis(inp: InfluenceInput): InfluenceBasis {
+/** A lane basis with its solved columns: displacement of mesh freedom g under basis column b. */
+export interface LaneResponse extends LaneBasis {
+  disp(b: number, g: number): number;
+}
+
+export interface InfluenceBasis extends LaneBasis {
+  /** offset of each member's station table in the full layout */
+  memberOff: Int32Array;
+  memberStations: Float64Array[];
+  nFull: number;
+  /** members whose N row is constant and stored at station 0 only */
+  constantN: Uint8Array;
+  /** dense quantities: full index of each, and QU (nBasis × nDense, row-major) */
+  denseFull: Int32Array;
+  denseOf: Int32Array;
+  QU: Float64Array;
+}
+
+/**
+ * `extend` (optional) is called once the lane columns are solved and returns extra stations
+ * per member (m from the start node); the layout then uses the member's stations plus these.
+ */
+export function buildInfluenceBasis(inp: InfluenceInput, extend?: (r: LaneResponse) => Map<number, number[]>): InfluenceBasis {
   const { model, sys, laneMembers } = inp;
   const { mesh, eq, nEq, status, kgAll } = sys;
   const nUser = mesh.nUserNodes, nDofAll = mesh.nNodes * 6;
   const nMem = mesh.members.length;
-  // full layout
-  const memberOff = new Int32Array(nMem + 1);
-  const memberStations: Float64Array[] = [];
-  const constantN = new Uint8Array(nMem);
-  let off = nUser * 12;
-  const downOf = model.settings.verticalAxis === 'Y' ? [0, -1, 0] : [0, 0, -1];
-  for (let mi = 0; mi < nMem; mi++) {
-    const xs = inp.stations(mi);
-    memberStations.push(xs);
-    memberOff[mi] = off;
-    off += ROWS * xs.length;
-    const m = mesh.members[mi];
-    // a prismatic truss member carries a constant N unless a vertical load on it has an axial part
-    const axialLoad = Math.abs(m.R[0] * downOf[0] + m.R[1] * downOf[1] + m.R[2] * downOf[2]) > 1e-12;
-    if (m.truss && m.elementCount === 1 && !(laneMembers.has(mi) && axialLoad)) constantN[mi] = 1;
-  }
-  memberOff[nMem] = off;
-  const nFull = off;
   const restrained = new Uint8Array(nDofAll);
   for (let g = 0; g < nDofAll; g++) restrained[g] = status[g] === SUPPORT || status[g] === PLANE ? 1 : 0;
 
@@ -104,6 +99,37 @@ export function buildInfluenceBasis(inp: InfluenceInput): InfluenceBasis {
       if (used[i] && eq[g] >= 0 && basisOf[g] < 0) basisOf[g] = nBasis++;
     }
   }
+  // refuse before solving when the base stations alone are already too many (checked exactly below)
+  const constantN = new Uint8Array(nMem);
+  let baseCand = nUser * 6;
+  for (let mi = 0; mi < nMem; mi++) {
+    const m = mesh.members[mi];
+    // a prismatic truss member carries a constant N unless a vertical load on it has an axial part
+    const axialLoad = Math.abs(m.R[0] * down[0] + m.R[1] * down[1] + m.R[2] * down[2]) > 1e-12;
+    if (m.truss && m.elementCount === 1 && !(laneMembers.has(mi) && axialLoad)) constantN[mi] = 1;
+    baseCand += constantN[mi] ? 1 : ROWS * inp.stations(mi).length;
+  }
+  guardSize(nBasis, baseCand);
+  // one block solve
+  const B = new Float64Array(nEq * nBasis);
+  for (let g = 0; g < nDofAll; g++) if (basisOf[g] >= 0) B[basisOf[g] * nEq + eq[g]] = 1;
+  const X = nBasis > 0 ? inp.solve(B, nBasis) : new Float64Array(0);
+  const extra = extend?.({ nUser, basisOf, nBasis, down, restrained, disp: (b, g) => (eq[g] >= 0 ? X[b * nEq + eq[g]] : 0) });
+
+  // full layout
+  const memberOff = new Int32Array(nMem + 1);
+  const memberStations: Float64Array[] = [];
+  let off = nUser * 12;
+  for (let mi = 0; mi < nMem; mi++) {
+    const add = extra?.get(mi);
+    const xs = add && add.length > 0 ? withStations(inp.stations(mi), add, mesh.members[mi].L) : inp.stations(mi);
+    memberStations.push(xs);
+    memberOff[mi] = off;
+    off += ROWS * xs.length;
+  }
+  memberOff[nMem] = off;
+  const nFull = off;
+
   // candidate quantities (full indices)
   const cand: number[] = [];
   for (let i = 0; i < nUser * 6; i++) cand.push(i);
@@ -116,18 +142,9 @@ export function buildInfluenceBasis(inp: InfluenceInput): InfluenceBasis {
     for (let q = memberOff[mi]; q < memberOff[mi + 1]; q++) cand.push(q);
   }
   const nCand = cand.length;
-  // the influence matrix holds every result quantity for every lane freedom: refuse plainly
-  // rather than exhaust memory (4·10^7 numbers = 320 MB)
-  if (nBasis * nCand > 4e7) {
-    throw new Error(`moving loads: ${nCand} result quantities × ${nBasis} lane freedoms is more than this version can hold (4·10^7 influence values); use shorter lanes or fewer frame members`);
-  }
+  guardSize(nBasis, nCand);
   const candVals = new Float64Array(nBasis * nCand);
   const nonZero = new Uint8Array(nCand);
-
-  // one block solve
-  const B = new Float64Array(nEq * nBasis);
-  for (let g = 0; g < nDofAll; g++) if (basisOf[g] >= 0) B[basisOf[g] * nEq + eq[g]] = 1;
-  const X = nBasis > 0 ? inp.solve(B, nBasis) : new Float64Array(0);
 
   // reaction elements: those touching a supported node (plane-frame restraints elsewhere carry nothing in plane)
   const supported = new Uint8Array(mesh.nNodes);
@@ -203,6 +220,24 @@ export function buildInfluenceBasis(inp: InfluenceInput): InfluenceBasis {
     for (let d = 0; d < nDense; d++) QU[dst + d] = candVals[src + keep[d]];
   }
   return { nUser, memberOff, memberStations, nFull, constantN, basisOf, nBasis, denseFull, denseOf, QU, down, restrained };
+}
+
+/**
+ * The influence matrix holds every result quantity for every lane freedom: refuse plainly
+ * rather than exhaust memory (4·10^7 numbers = 320 MB).
+ */
+function guardSize(nBasis: number, nCand: number): void {
+  if (nBasis * nCand > 4e7) {
+    throw new Error(`moving loads: ${nCand} result quantities × ${nBasis} lane freedoms is more than this version can hold (4·10^7 influence values); use shorter lanes or fewer frame members`);
+  }
+}
+
+/** A member's stations with extra positions merged in (ascending, duplicates within 1e-9·L dropped, ends exact). */
+export function withStations(xs: Float64Array, extra: readonly number[], L: number): Float64Array {
+  const u = uniqueSorted([...xs, ...extra.filter((x) => x > 0 && x < L)], L * 1e-9);
+  u[0] = 0;
+  u[u.length - 1] = L;
+  return Float64Array.from(u);
 }
 
 /** Local fixed-end forces of a load P along `down` at distance a on prismatic member mi (into out12). */

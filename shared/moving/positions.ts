@@ -4,7 +4,8 @@
  * in +s until its last axle has left the end (lead = length + last offset); axle i stands
  * at lead − offset_i. Backward: it enters at the end (lead = length) and moves in −s until
  * lead = −last offset; axle i stands at lead + offset_i. Positions are the regular steps
- * plus every position where some axle stands exactly on a target point (nodes, stations).
+ * plus every position where some axle stands exactly on a target point (nodes, stations),
+ * plus any extra leading-axle positions given (those found under the axles, axles.ts).
  */
 
 export type Direction = 'forward' | 'backward';
@@ -17,6 +18,7 @@ export interface VehiclePositions {
 
 export function vehiclePositions(
   length: number, offsets: readonly number[], step: number, direction: Direction, targets: readonly number[],
+  extraLeads: readonly number[] = [],
 ): VehiclePositions {
   if (!(step > 0)) throw new Error(`vehicle step must be > 0 (got ${step})`);
   const last = Math.max(0, ...offsets);
@@ -32,6 +34,10 @@ export function vehiclePositions(
       const dist = direction === 'forward' ? t + o : length - (t - o);
       if (dist >= -tol && dist <= travel + tol) d.push(Math.min(travel, Math.max(0, dist)));
     }
+  }
+  for (const lead of extraLeads) {
+    const dist = direction === 'forward' ? lead : length - lead;
+    if (dist >= -tol && dist <= travel + tol) d.push(Math.min(travel, Math.max(0, dist)));
   }
   d.sort((p, q) => p - q);
   const out: number[] = [];

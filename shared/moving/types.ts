@@ -39,6 +39,23 @@ export interface MemberQuantity {
   station: number;
 }
 
+/** The member forces whose extremes are reported (deflections stay at stations). */
+export const MOVING_FORCE_KEYS = ['N', 'V_major', 'V_minor', 'T', 'M_major', 'M_minor'] as const;
+export type MovingForceKey = (typeof MOVING_FORCE_KEYS)[number];
+
+/** One extreme of a member force: its value, where on the member and where the vehicle stood. */
+export interface ForceExtreme {
+  value: number;
+  /** distance from the member's start node (m) and the station index there */
+  x: number;
+  station: number;
+  /** null when no vehicle position reaches it (value 0) */
+  at: VehicleAt | null;
+}
+
+/** The absolute maximum and minimum of each force over the member and over all vehicle positions. */
+export type MemberExtremes = Record<MovingForceKey, { max: ForceExtreme; min: ForceExtreme }>;
+
 export interface MovingResults {
   lanes: { lane: string; length: number; segments: LaneSegmentInfo[] }[];
   /** axles of every vehicle (offset m, load N), by vehicle id */
@@ -53,5 +70,16 @@ export interface MovingResults {
   influenceLine(movingLoad: number, q: MemberQuantity): InfluenceLine;
   /** envelope (max and min over all positions) of the vehicle effect alone, unfactored, for one moving load */
   memberEnvelope(movingLoad: number, member: number): { x: Float64Array; max: Record<ForceKey, Float64Array>; min: Record<ForceKey, Float64Array> };
-  diagnostics: { basis: number; quantities: number; positions: number; milliseconds: number };
+  /**
+   * The absolute maximum and minimum of each force of member `member` under moving load
+   * `movingLoad` alone (unfactored), over the member and every vehicle position: on a lane
+   * member they occur under an axle or at an end, and the stations include every such x.
+   */
+  memberExtremes(movingLoad: number, member: number): MemberExtremes;
+  /**
+   * basis: unit-load columns; quantities: dense influence quantities; positions: vehicle
+   * positions evaluated; extraStations: stations added under axles; refined: positions found
+   * by refinement between the regular ones (axles.ts)
+   */
+  diagnostics: { basis: number; quantities: number; positions: number; extraStations: number; refined: number; milliseconds: number };
 }
