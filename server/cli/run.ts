@@ -6,7 +6,8 @@
  * computed for the first-order stability warning, and modes.csv when `modes` > 0. The
  * analysis is the one the settings ask for (`analysis` = first_order | second_order).
  * Exit codes: 0 success; 1 invalid input or usage (each problem printed as
- * `table row column: message`); 2 unstable model (node and freedom printed); 3 the
+ * `table row column: message`); 2 unstable model (node and freedom printed) or, second order,
+ * a loading at or above its critical load (loading and αcr printed); 3 the
  * analysis or the checks could not run for another reason. Nothing is written unless
  * every file could be produced.
  */
@@ -109,13 +110,16 @@ export async function runCli(args: string[], io: CliIO): Promise<number> {
       return EXIT.invalid;
     }
     for (const w of read.warnings) io.err(formatProblem(w));
-    const model = read.model;
+    const inputModel = read.model;
 
     let analysis: AnalysisResult;
     let stability: StabilitySummary;
+    /** the model the analysis ran on (second order under a code adds cases and combination variants) */
+    let model: Model;
+    let notes: string[];
     try {
       const { analyseModel } = await import('../../shared/stability/index.js');
-      ({ analysis, stability } = analyseModel(model));
+      ({ analysis, stability, model, notes } = analyseModel(inputModel));
     } catch (e) {
       if (e instanceof InstabilityError || (e as Error)?.name === 'InstabilityError') {
         const ie = e as InstabilityError;
@@ -124,12 +128,18 @@ export async function runCli(args: string[], io: CliIO): Promise<number> {
         io.err('nothing written');
         return EXIT.unstable;
       }
+      if ((e as Error)?.name === 'SecondOrderInstabilityError') {
+        // a loading at or above its critical load (second order): named with its αcr
+        io.err(`unstable at this load level: ${(e as Error).message}`);
+        io.err('nothing written');
+        return EXIT.unstable;
+      }
       io.err(`the analysis failed: ${(e as Error)?.message ?? String(e)}; nothing written`);
       return EXIT.failed;
     }
 
     const tables: ResultTable[] = [displacementTable(model, analysis), reactionTable(model, analysis), memberForceTable(model, analysis)];
-    const stabilityJson = stabilityToJson(stability);
+    const stabilityJson = stabilityToJson(stability, notes);
     const stabilityFiles = stabilityTables(stabilityJson, model.settings);
     if (checker) {
       if (model.settings.designCode === 'none') io.err('settings design_code: warning: design_code is none, so every member comes out not checked');
@@ -157,6 +167,7 @@ export async function runCli(args: string[], io: CliIO): Promise<number> {
       io.out(`moving loads: ${model.movingLoads.map((ml) => `${ml.vehicle} on ${ml.lane}`).join(', ')}; lanes ${lanes}; ${d.positions} vehicle positions, ${d.milliseconds.toFixed(0)} ms; envelope loadings in rows marked max/min`);
     }
     io.out(`analysis: ${stability.method}${stabilityLine(stabilityJson)}`);
+    for (const n of notes) io.out(`note: ${n}`);
     for (const w of stabilityJson.warnings) io.err(`stability warning: ${w.message}`);
     io.out(`wrote ${texts.map((t) => t.file).join(', ')} to ${out}`);
     return EXIT.ok;

@@ -28,9 +28,18 @@ export interface RunOutput {
   timings: Record<string, number>;
   diagnostics: { nodes: number; members: number; freedoms: number; loadings: number; maxEquilibriumResidual: number };
   stability: StabilitySummary;
+  /** remarks of the stability floor (how the code rules were applied) */
+  notes: string[];
+  /**
+   * The model the analysis ran on when it differs from the input (second order under a design
+   * code adds notional loads or sway imperfections as generated cases and combination
+   * variants); null when it is the input model.
+   */
+  analysedModel: Model | null;
 }
 
 export interface Analysed {
+  /** the model the analysis ran on: its combinations match `analysis.loadings` */
   model: Model;
   analysis: AnalysisResult;
   stability: StabilitySummary;
@@ -111,7 +120,7 @@ export function computeRun(
   lap('reading');
 
   onPhase('assembling');
-  const { analysis, stability } = analyseModel(model, { factorise: phaseReportingFactorise(onPhase) });
+  const { analysis, stability, model: analysed, notes } = analyseModel(model, { factorise: phaseReportingFactorise(onPhase) });
   const analysisMs = performance.now() - t;
   t = performance.now();
   let engineSum = 0;
@@ -126,7 +135,7 @@ export function computeRun(
   if (engineSum < analysisMs) timings[rest] = (timings[rest] ?? 0) + (analysisMs - engineSum);
 
   onPhase('checking');
-  const design = checkWithStability(model, analysis, stability);
+  const design = checkWithStability(analysed, analysis, stability);
   lap('checking');
 
   const nNodes = analysis.nodeIds.length;
@@ -141,7 +150,7 @@ export function computeRun(
 
   const equilibrium = analysis.diagnostics.equilibrium ?? [];
   return {
-    analysed: { model, analysis, stability },
+    analysed: { model: analysed, analysis, stability },
     output: {
       members: design.members,
       records: design.records,
@@ -158,6 +167,8 @@ export function computeRun(
         maxEquilibriumResidual: equilibrium.reduce((mx, e) => Math.max(mx, e.residual), 0),
       },
       stability,
+      notes,
+      analysedModel: analysed === model ? null : analysed,
     },
   };
 }
@@ -180,6 +191,8 @@ export interface PackedRun {
   stabilityJson: string;
   /** gzip(Float64 mode shapes then buckled shapes), see stability-codec.ts; empty when none */
   shapesData: Uint8Array;
+  /** gzip(JSON Model) of the model the analysis ran on when it differs from the input; empty otherwise */
+  analysedModelData: Uint8Array;
 }
 
 /**
@@ -204,8 +217,9 @@ export function packRun(out: RunOutput): PackedRun {
     nodeCount: out.nodeCount,
     timings: { ...out.timings },
     diagnostics: out.diagnostics,
-    stabilityJson: JSON.stringify(stabilityToJson(out.stability) satisfies RunStability),
+    stabilityJson: JSON.stringify(stabilityToJson(out.stability, out.notes) satisfies RunStability),
     shapesData: packedShapes(out.stability),
+    analysedModelData: out.analysedModel ? gz(Buffer.from(JSON.stringify(out.analysedModel), 'utf8')) : new Uint8Array(0),
   };
   packed.timings.packing = (packed.timings.packing ?? 0) + (performance.now() - t0);
   return packed;
@@ -222,7 +236,6 @@ function packedShapes(stability: StabilitySummary): Uint8Array {
  * same analysis as the run (first or second order), so the diagrams are the run's.
  */
 export function analyseOnly(modelJson: string, designCode: DesignCode): Analysed {
-  const model = readRunModel(modelJson, designCode);
-  const { analysis, stability } = analyseModel(model);
+  const { analysis, stability, model } = analyseModel(readRunModel(modelJson, designCode));
   return { model, analysis, stability };
 }

@@ -71,6 +71,11 @@ export interface RunResultRecord {
   nodeCount: number;
   /** gzip of Float64: mode shapes, then buckled shapes (server/runs/stability-codec.ts); null when none */
   shapesData: Buffer | null;
+  /**
+   * gzip(JSON Model) of the model the analysis ran on when it differs from the stored version
+   * (generated notional-load or sway-imperfection cases and combination variants); null otherwise
+   */
+  analysedModelData: Buffer | null;
 }
 
 export const RunResultEntity = new EntitySchema<RunResultRecord>({
@@ -84,5 +89,6 @@ export const RunResultEntity = new EntitySchema<RunResultRecord>({
     nodeData: { type: 'blob' },
     nodeCount: { type: 'integer' },
     shapesData: { type: 'blob', nullable: true },
+    analysedModelData: { type: 'blob', nullable: true },
   },
 });

@@ -219,6 +219,8 @@ function dispatch(ds: DataSource, runId: number, modelJson: string, designCode: 
   active.set(runId, done);
 }
 
+const blobOrNull = (b: Uint8Array) => (b.byteLength > 0 ? Buffer.from(b.buffer, b.byteOffset, b.byteLength) : null);
+
 async function saveResults(ds: DataSource, runId: number, out: PackedRun): Promise<void> {
   const t0 = performance.now();
   const result: RunResultRecord = {
@@ -228,7 +230,8 @@ async function saveResults(ds: DataSource, runId: number, out: PackedRun): Promi
     loadingsJson: JSON.stringify(out.loadings),
     nodeData: Buffer.from(out.nodeData.buffer, out.nodeData.byteOffset, out.nodeData.byteLength),
     nodeCount: out.nodeCount,
-    shapesData: out.shapesData.byteLength > 0 ? Buffer.from(out.shapesData.buffer, out.shapesData.byteOffset, out.shapesData.byteLength) : null,
+    shapesData: blobOrNull(out.shapesData),
+    analysedModelData: blobOrNull(out.analysedModelData),
   };
   const counts = out.counts;
   await ds.transaction(async (m) => {
@@ -422,9 +425,18 @@ export async function getRunShape(ds: DataSource, id: number, kind: string | und
   }
 }
 
+/**
+ * The model whose combinations match the run's loadings: the one the analysis ran on when the
+ * code rules added cases and combination variants, else the stored version.
+ */
+export async function analysedModelOf(ds: DataSource, run: RunRecord, result: RunResultRecord): Promise<Model> {
+  if (result.analysedModelData && result.analysedModelData.byteLength > 0) return decodeJson<Model>(result.analysedModelData);
+  return (await runModel(ds, run)).model;
+}
+
 export async function getRunGeometry(ds: DataSource, id: number, loading?: string): Promise<RunGeometry> {
   const { run, result } = await doneRun(ds, id);
-  const { model } = await runModel(ds, run);
+  const model = await analysedModelOf(ds, run, result);
   const loadings = loadingsOf(result);
   const firstCombo = loadings.findIndex((l) => l.kind === 'combination');
   const chosen = loadingIndex(loadings, loading, Math.max(0, firstCombo));

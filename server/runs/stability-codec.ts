@@ -10,10 +10,11 @@ import type { RunShape, RunStability, ShapeKind } from '../../shared/schemas/run
 /** JSON has no Infinity: an infinite αcr or amplifier becomes null. */
 const finite = (v: number): number | null => (Number.isFinite(v) ? v : null);
 
-export function stabilityToJson(s: StabilitySummary): RunStability {
+export function stabilityToJson(s: StabilitySummary, notes: string[] = []): RunStability {
   return {
     analysis: s.analysis,
     method: s.method,
+    notes: [...notes],
     ...(s.subdivisions !== undefined ? { subdivisions: s.subdivisions } : {}),
     ...(s.tolerance !== undefined ? { tolerance: s.tolerance } : {}),
     secondOrder: s.secondOrder.map((l) => ({

@@ -80,6 +80,8 @@ export const runStabilitySchema = z.object({
   analysis: z.enum(['first_order', 'second_order']),
   /** the method in words */
   method: z.string(),
+  /** how the code rules were applied, what was checked (in words) */
+  notes: z.array(z.string()),
   subdivisions: z.number().int().optional(),
   tolerance: z.number().optional(),
   secondOrder: z.array(

@@ -24,16 +24,25 @@ export const PORTAL: Record<string, string> = {
   'combinations.csv': 'combination,case,factor,limit_state\nULS-1,G,1.35,strength\nULS-1,W,1.5,strength\nSLS-1,G,1,service\n',
 };
 
+const withSettings = (extra: string, files = PORTAL) => ({ ...files, 'settings.csv': files['settings.csv'] + extra });
+
 let t: TestApp;
+let projectId = 0;
 let runId = 0;
-beforeAll(async () => {
-  t = await createTestApp();
-  const projectId = await newProject(t, 'Stability');
-  const preview = await upload(t, projectId, PORTAL);
+
+/** Imports the files as a new model and starts its run; returns the run id. */
+async function importAndRun(files: Record<string, string>): Promise<number> {
+  const preview = await upload(t, projectId, files);
   if (preview.status !== 201 || !preview.body.canCommit) throw new Error(`preview: ${preview.status} ${JSON.stringify(preview.body)}`);
   const commit = await t.as('engineer').post(`/api/projects/${projectId}/imports/${preview.body.id}/commit`).send({});
   const start = await t.as('engineer').post(`/api/models/${commit.body.model.id}/runs`).send({});
-  runId = start.body.id;
+  return start.body.id as number;
+}
+
+beforeAll(async () => {
+  t = await createTestApp();
+  projectId = await newProject(t, 'Stability');
+  runId = await importAndRun(PORTAL);
 }, 120_000);
 afterAll(async () => {
   await closeRunPool();
@@ -99,7 +108,7 @@ describe('a run with modes = 3 and buckling_modes = 2', () => {
     });
     expect(res.status).toBe(200);
     const wb = new ExcelJS.Workbook();
-    await wb.xlsx.load(res.body as Buffer);
+    await wb.xlsx.load(res.body as unknown as ArrayBuffer);
     const ws = wb.worksheets[0];
     const rows: string[] = [];
     ws.eachRow((row) => rows.push(String(row.getCell(1).value)));
@@ -108,5 +117,37 @@ describe('a run with modes = 3 and buckling_modes = 2', () => {
     expect(String(ws.getRow(at + 1).getCell(2).value)).toMatch(/first.order/i);
     const util = await t.as('engineer').get(`/api/runs/${runId}/exports/utilisation.xlsx`);
     expect(util.status).toBe(200);
+  });
+});
+
+describe('a second-order run', () => {
+  it('states the order, the method and the iterations per loading; member detail says second order', async () => {
+    const id = await importAndRun(withSettings('analysis,second_order\n'));
+    const run = await settle(t, id);
+    expect(run.status, String(run.message)).toBe('done');
+    const s = run.stability as { analysis: string; method: string; secondOrder: { loading: string; iterations: number; converged: boolean }[] };
+    expect(s.analysis).toBe('second_order');
+    expect(s.method).toMatch(/second.order/i);
+    expect(s.secondOrder.length).toBeGreaterThan(0);
+    for (const l of s.secondOrder) {
+      expect(l.converged).toBe(true);
+      expect(l.iterations).toBeGreaterThan(0);
+    }
+    const detail = await t.as('engineer').get(`/api/runs/${id}/members/C1`);
+    expect(detail.status).toBe(200);
+    expect(detail.body).toMatchObject({ analysis: 'second_order' });
+    // every loading the analysis ran (with the code's added variants) can be drawn
+    for (const l of detail.body.loadings as { id: string; envelope?: string }[]) {
+      const g = await t.as('engineer').get(`/api/runs/${id}/model?loading=${encodeURIComponent(l.id)}`);
+      expect(g.status, l.id).toBe(200);
+    }
+  });
+
+  it('fails with a plain message naming the combination when it is not stable at its load level', async () => {
+    const heavy = withSettings('analysis,second_order\n', { ...PORTAL, 'member_loads.csv': 'case,member,kind,direction,w1\nG,B1,uniform,global_y,-5000\n' });
+    const run = await settle(t, await importAndRun(heavy));
+    expect(run.status).toBe('failed');
+    expect(run.message).toMatch(/^The run failed: combination ULS-1\b.* is not stable at this load level.*: αcr [=≈] \d/);
+    expect(run.message).not.toMatch(/\.ts\b|\n\s+at /);
   });
 });
