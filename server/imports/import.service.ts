@@ -97,6 +97,11 @@ export function buildPreview(
           designCode: model.settings.designCode,
           combinationRule: model.settings.combinationRule,
           deflectionLimit: model.settings.deflectionLimit,
+          stations: model.settings.stations,
+          analysis: model.settings.analysis,
+          bucklingModes: model.settings.bucklingModes,
+          modes: model.settings.modes,
+          stabilityWarning: model.settings.stabilityWarning,
         }
       : null,
     inferences: {

@@ -48,6 +48,12 @@ export const importPreviewSchema = z.object({
       designCode: z.string(),
       combinationRule: z.string(),
       deflectionLimit: z.number(),
+      /** result stations per member (settings `stations`) */
+      stations: z.number().int().optional(),
+      analysis: z.enum(['first_order', 'second_order']).optional(),
+      bucklingModes: z.number().int().optional(),
+      modes: z.number().int().optional(),
+      stabilityWarning: z.boolean().optional(),
     })
     .nullable(),
   inferences: z.object({

@@ -88,6 +88,19 @@ describe('imports', () => {
   });
 });
 
+describe('import preview of the new settings', () => {
+  it('shows stations, analysis, buckling_modes, modes and stability_warning, and counts result_points', async () => {
+    const files = {
+      ...withFile('settings.csv', `${CSV['settings.csv']}stations,21\nanalysis,second_order\nbuckling_modes,2\nmodes,4\nstability_warning,off\n`),
+      'result_points.csv': 'member,x [m]\nM1,2.25\n',
+    };
+    const preview = await upload(t, projectId, files);
+    expect(preview.body.problems).toEqual([]);
+    expect(preview.body.settings).toMatchObject({ stations: 21, analysis: 'second_order', bucklingModes: 2, modes: 4, stabilityWarning: false });
+    expect(preview.body.counts.result_points).toBe(1);
+  });
+});
+
 describe('the stored model', () => {
   it('finds a non-finite number and names its table, row and column', () => {
     const m = readModel();
