@@ -48,7 +48,7 @@ export async function toXlsx(table: ResultTable, header: HeaderBlock): Promise<B
     header: h,
     ratio: h === 'ratio',
     numFmt: RATIO_COLUMNS.has(h) ? '0.000' : /^r[xyz] \[/.test(h) ? '0.000E+00' : h.includes('[') || h === 'demand' || h === 'capacity' ? '0.000###' : undefined,
-    width: Math.max(10, Math.min(40, h.length + 4)),
+    width: h === 'details' ? 100 : Math.max(10, Math.min(40, h.length + 4)),
   }));
   const statusCol = table.header.indexOf('status');
   const statuses = statusCol >= 0 ? table.rows.map((r) => String(r[statusCol])) : undefined;

@@ -216,7 +216,7 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
   const ctx = prepare(model, analysis);
   const strength = options.strengthLoadings ?? ctx.strength;
   const service = options.serviceLoadings ?? ctx.service;
-  const floor = noiseFloor(analysis, strength);
+  const floor = noiseFloor(model, analysis, strength);
   let scratch: StationForces | undefined;
   const ids = analysis.loadings.map((l) => l.id);
   const stability = options.stability;
@@ -388,7 +388,7 @@ export function checkMember(model: Model, analysis: AnalysisResult, memberIndex:
   const s = options.stability;
   if (!s) return out;
   const w = s.warnings.find((q) => q.loading === analysis.loadings[loadingIndex].id);
-  const compressed = () => hasCompression(denoise(analysis.memberForces(memberIndex, loadingIndex), noiseFloor(analysis, [loadingIndex])));
+  const compressed = () => hasCompression(denoise(analysis.memberForces(memberIndex, loadingIndex), noiseFloor(model, analysis, [loadingIndex])));
   const line = w && analysis.loadings[loadingIndex].limitState !== 'service' && compressed() ? stabilityLine([w]) : '';
   for (const r of out) {
     stampMethod(r, s, model.members[memberIndex]);
@@ -414,7 +414,7 @@ function memberRecordsOf(model: Model, analysis: AnalysisResult, memberIndex: nu
     chordDeflection(analysis.memberForces(memberIndex, loadingIndex), d);
     return [deflectionRecord(member.id, ctx.code, loading.id, d[0], d[1], p.setup.length, p.deflectionLimit, false)];
   }
-  const sf = denoise(analysis.memberForces(memberIndex, loadingIndex), noiseFloor(analysis, [...ctx.strength, loadingIndex]));
+  const sf = denoise(analysis.memberForces(memberIndex, loadingIndex), noiseFloor(model, analysis, [...ctx.strength, loadingIndex]));
   const out = p.plan.records(sf, loading.id, undefined, member.id).filter((r): r is CheckRecord => r !== null)
     .map((r) => (analysis.moving ? stampVehicle(analysis, memberIndex, loadingIndex, sf, r) : r));
   const sl = slendernessFor(p, ctx.code, slendernessOf(p), hasCompression(sf) ? loading.id : null, hasTension(sf) ? loading.id : null);

@@ -8,9 +8,10 @@
  * loadings considered — every load path of a supported model ends in a reaction. A
  * loading that is self-equilibrated (no reactions at all) then gives a floor of zero, so
  * nothing is treated as noise (the safe side). Moments use the force floor times the
- * longest member (the model's length scale).
+ * model's extent (the diagonal of the box around its nodes, at least 1 m).
  */
 import type { AnalysisResult, StationForces } from '../engine/types.js';
+import type { Model } from '../model/types.js';
 
 export const NOISE_RELATIVE = 1e-9;
 
@@ -21,8 +22,21 @@ export interface NoiseFloor {
   moment: number;
 }
 
-/** The noise floor of an analysis over the given loadings (all loadings when omitted). */
-export function noiseFloor(analysis: Pick<AnalysisResult, 'reactions' | 'loadings' | 'supportedNodes'> & Partial<Pick<AnalysisResult, 'memberLength' | 'memberIds'>>, loadings?: number[]): NoiseFloor {
+/** Diagonal of the box around the model's nodes (m), at least 1. */
+export function modelExtent(model: Pick<Model, 'nodes'>): number {
+  if (!model.nodes.length) return 1;
+  let x0 = Infinity, y0 = Infinity, z0 = Infinity, x1 = -Infinity, y1 = -Infinity, z1 = -Infinity;
+  for (const n of model.nodes) {
+    if (n.x < x0) x0 = n.x; if (n.x > x1) x1 = n.x;
+    if (n.y < y0) y0 = n.y; if (n.y > y1) y1 = n.y;
+    if (n.z < z0) z0 = n.z; if (n.z > z1) z1 = n.z;
+  }
+  const d = Math.hypot(x1 - x0, y1 - y0, z1 - z0);
+  return Number.isFinite(d) && d > 1 ? d : 1;
+}
+
+/** The noise floor over the given loadings (all loadings when omitted). */
+export function noiseFloor(model: Pick<Model, 'nodes'>, analysis: Pick<AnalysisResult, 'reactions' | 'loadings' | 'supportedNodes'>, loadings?: number[]): NoiseFloor {
   const ls = loadings ?? analysis.loadings.map((_, i) => i);
   let fmax = 0;
   for (const l of ls) {
@@ -34,11 +48,7 @@ export function noiseFloor(analysis: Pick<AnalysisResult, 'reactions' | 'loading
       }
     }
   }
-  let lmax = 1;
-  if (analysis.memberLength && analysis.memberIds) {
-    for (let i = 0; i < analysis.memberIds.length; i++) { const L = analysis.memberLength(i); if (L > lmax) lmax = L; }
-  }
-  return { force: NOISE_RELATIVE * fmax, moment: NOISE_RELATIVE * fmax * lmax };
+  return { force: NOISE_RELATIVE * fmax, moment: NOISE_RELATIVE * fmax * modelExtent(model) };
 }
 
 /** A value with noise removed: 0 when |v| < floor. */

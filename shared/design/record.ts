@@ -4,7 +4,7 @@
  */
 import type { DesignCode } from '../model/types.js';
 import type { Quantity } from '../units/index.js';
-import type { CheckFamily, CheckInput, CheckRecord, CheckStatus } from './types.js';
+import type { AxisPart, CheckFamily, CheckInput, CheckRecord, CheckStatus } from './types.js';
 
 export function inp(symbol: string, name: string, value: number | string, quantity: Quantity): CheckInput {
   return { symbol, name, value, quantity };
@@ -21,6 +21,8 @@ export interface RecordHead {
   /** unit kind of capacity and demand */
   quantity: Quantity;
   note?: string;
+  /** a check made about each axis: the parts (see AxisPart) */
+  axes?: AxisPart[];
 }
 
 /** pass when ratio ≤ 1.0, fail above. */
@@ -59,6 +61,7 @@ export function interactionRecord(
     status: statusOf(ratio),
   };
   if (head.note) rec.note = head.note;
+  if (head.axes) rec.axes = head.axes;
   return rec;
 }
 

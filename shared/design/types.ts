@@ -26,6 +26,17 @@ export interface CheckInput {
   quantity: Quantity;
 }
 
+/**
+ * One axis of a check made about each axis (AISC E3, EN 6.3.1): its own inputs and
+ * intermediates and its capacity; the record's capacity is the smallest of them.
+ */
+export interface AxisPart {
+  axis: 'major' | 'minor';
+  inputs: CheckInput[];
+  /** SI, same quantity as the record */
+  capacity: number;
+}
+
 export interface CheckRecord {
   member: string;
   family: CheckFamily;
@@ -57,6 +68,8 @@ export interface CheckRecord {
   analysis?: string;
   /** first-order stability warning of a combination in which this member is in compression */
   stability?: string;
+  /** a check made about each axis: one part per axis (exports write a row per axis) */
+  axes?: AxisPart[];
 }
 
 export interface MemberUtilisation {

@@ -5,7 +5,9 @@
  * numbers converted to that system (formatting happens in the serialisers).
  */
 import type { AnalysisResult } from '../engine/types.js';
-import { CHECK_FAMILIES, type CheckFamily, type CheckRecord, type MemberUtilisation } from '../design/types.js';
+import { CHECK_FAMILIES, type CheckFamily, type CheckInput, type CheckRecord, type MemberUtilisation } from '../design/types.js';
+import { clean, noiseFloor, type NoiseFloor } from '../design/noise.js';
+import { formatExportNumber } from './csv.js';
 import type { Model, UnitSystem } from '../model/types.js';
 import { fromSI, unitOf, type Quantity } from '../units/index.js';
 
@@ -41,7 +43,13 @@ function envelopeColumn(analysis: AnalysisResult): boolean {
   return analysis.loadings.some((l) => l.envelope !== undefined);
 }
 
-function nodeTable(name: string, model: Model, analysis: AnalysisResult, cols: [string, Quantity][], values: (l: number) => Float64Array, nodes: number[]): ResultTable {
+/** Noise (design/noise.ts) as zero: forces against the force floor, moments against the moment floor. */
+function denoised(v: number, q: Quantity, floor: NoiseFloor | null): number {
+  if (!floor) return v;
+  return q === 'force' ? clean(v, floor.force) : q === 'moment' ? clean(v, floor.moment) : v;
+}
+
+function nodeTable(name: string, model: Model, analysis: AnalysisResult, cols: [string, Quantity][], values: (l: number) => Float64Array, nodes: number[], floor: NoiseFloor | null = null): ResultTable {
   const sys = model.settings.units;
   const env = envelopeColumn(analysis);
   const header = ['loading', ...(env ? ['envelope'] : []), 'node', ...cols.map(([c, q]) => headerWithUnit(c, q, sys))];
@@ -50,7 +58,7 @@ function nodeTable(name: string, model: Model, analysis: AnalysisResult, cols: [
     const v = values(l);
     const lead: ResultCell[] = env ? [loading.id, loading.envelope ?? ''] : [loading.id];
     for (const i of nodes) {
-      rows.push([...lead, analysis.nodeIds[i], ...cols.map(([, q], k) => fromSI(v[i * 6 + k], q, sys))]);
+      rows.push([...lead, analysis.nodeIds[i], ...cols.map(([, q], k) => fromSI(denoised(v[i * 6 + k], q, floor), q, sys))]);
     }
   });
   return { name, header, rows };
@@ -62,9 +70,9 @@ export function displacementTable(model: Model, analysis: AnalysisResult): Resul
   return nodeTable('displacements', model, analysis, NODE_DISP, (l) => analysis.displacements(l), all);
 }
 
-/** Support reactions (supported nodes only) for every loading. */
+/** Support reactions (supported nodes only) for every loading; numerical noise written as 0. */
 export function reactionTable(model: Model, analysis: AnalysisResult): ResultTable {
-  return nodeTable('reactions', model, analysis, NODE_REACT, (l) => analysis.reactions(l), [...analysis.supportedNodes].sort((a, b) => a - b));
+  return nodeTable('reactions', model, analysis, NODE_REACT, (l) => analysis.reactions(l), [...analysis.supportedNodes].sort((a, b) => a - b), noiseFloor(model, analysis));
 }
 
 const FORCE_COLS: [keyof Omit<import('../engine/types.js').StationForces, 'x'>, Quantity][] = [
@@ -72,9 +80,10 @@ const FORCE_COLS: [keyof Omit<import('../engine/types.js').StationForces, 'x'>, 
   ['d_major', 'displacement'], ['d_minor', 'displacement'],
 ];
 
-/** Internal forces and local deflections at every station of every member, every loading. */
+/** Internal forces and local deflections at every station of every member, every loading; numerical noise written as 0. */
 export function memberForceTable(model: Model, analysis: AnalysisResult): ResultTable {
   const sys = model.settings.units;
+  const floor = noiseFloor(model, analysis);
   const env = envelopeColumn(analysis);
   const header = ['loading', ...(env ? ['envelope'] : []), 'member', headerWithUnit('x', 'length', sys), ...FORCE_COLS.map(([c, q]) => headerWithUnit(c, q, sys))];
   // Member by member (the engine caches one member's case stations), rows kept grouped by loading.
@@ -85,7 +94,7 @@ export function memberForceTable(model: Model, analysis: AnalysisResult): Result
       const f = analysis.memberForces(m, l);
       const out = byLoading[l];
       for (let s = 0; s < f.x.length; s++) {
-        out.push([...leads[l], id, fromSI(f.x[s], 'length', sys), ...FORCE_COLS.map(([c, q]) => fromSI(f[c][s], q, sys))]);
+        out.push([...leads[l], id, fromSI(f.x[s], 'length', sys), ...FORCE_COLS.map(([c, q]) => fromSI(denoised(f[c][s], q, floor), q, sys))]);
       }
     }
   });
@@ -114,23 +123,52 @@ export function utilisationTable(model: Model, design: DesignResultLike): Result
 }
 
 /**
+ * The `details` cell: every input and intermediate of a record as `symbol=value unit`
+ * separated by `; `, values in the model's unit system (at least 7 significant digits),
+ * then the position `x` where the demand governs. A `;` inside a text value is written
+ * as `,` so the separator stays unambiguous.
+ */
+export function detailsOf(inputs: CheckInput[], system: UnitSystem, x: number | null = null): string {
+  const parts = inputs.map((i) => {
+    if (typeof i.value === 'string') return `${i.symbol}=${i.value.replace(/;/g, ',')}`;
+    const u = unitOf(i.quantity, system);
+    const v = fromSI(i.value, i.quantity, system);
+    return `${i.symbol}=${Number.isFinite(v) ? formatExportNumber(v) : String(v)}${u && u !== '-' ? ` ${u}` : ''}`;
+  });
+  if (x !== null) parts.push(`x=${formatExportNumber(fromSI(x, 'length', system))} ${unitOf('length', system)}`);
+  return parts.join('; ');
+}
+
+/**
  * Every check record. Demand and capacity hold values of different kinds row by row, so
- * their unit is given in a `unit` column after the contract's columns.
+ * their unit is given in a `unit` column after the contract's columns, then `details`
+ * (detailsOf). A check made about each axis (AISC E3, EN 6.3.1: record.axes) is written
+ * as one row per axis, each with its own capacity, ratio, status and details; the largest
+ * of their ratios is the record's.
  */
 export function checksTable(model: Model, design: DesignResultLike): ResultTable {
   const sys = model.settings.units;
   const moving = design.records.some((r) => r.envelope !== undefined);
-  const header = ['member', 'combination', 'check', 'clause', 'demand', 'capacity', 'ratio', 'status', 'note', 'unit',
+  const header = ['member', 'combination', 'check', 'clause', 'demand', 'capacity', 'ratio', 'status', 'note', 'unit', 'details',
     ...(moving ? ['envelope', headerWithUnit('vehicle_position', 'length', sys)] : [])];
-  const rows = design.records.map((r): ResultCell[] => {
+  const rows: ResultCell[][] = [];
+  for (const r of design.records) {
     const unit = r.quantity === 'ratio' || r.quantity === 'text' ? '' : unitOf(r.quantity, sys);
-    return [
-      r.member, r.combination, r.title, r.clause,
+    const tail = moving ? [r.envelope ?? '', r.vehiclePosition === undefined ? null : fromSI(r.vehiclePosition, 'length', sys)] : [];
+    const row = (title: string, capacity: number | null, ratio: number | null, status: string, details: string): ResultCell[] => [
+      r.member, r.combination, title, r.clause,
       r.demand === null ? null : fromSI(r.demand, r.quantity, sys),
-      r.capacity === null ? null : fromSI(r.capacity, r.quantity, sys),
-      r.ratio, r.status, r.note ?? '', unit === '-' ? '' : unit,
-      ...(moving ? [r.envelope ?? '', r.vehiclePosition === undefined ? null : fromSI(r.vehiclePosition, 'length', sys)] : []),
+      capacity === null ? null : fromSI(capacity, r.quantity, sys),
+      ratio, status, r.note ?? '', unit === '-' ? '' : unit, details, ...tail,
     ];
-  });
+    if (r.axes && r.axes.length && r.demand !== null && r.status !== 'not checked') {
+      for (const a of r.axes) {
+        const ratio = r.demand === 0 ? 0 : a.capacity > 0 ? r.demand / a.capacity : Infinity;
+        rows.push(row(`${r.title}, ${a.axis} axis`, a.capacity, ratio, ratio <= 1 ? 'pass' : 'fail', detailsOf(a.inputs, sys, r.x)));
+      }
+    } else {
+      rows.push(row(r.title, r.capacity, r.ratio, r.status, detailsOf(r.inputs, sys, r.x)));
+    }
+  }
   return { name: 'checks', header, rows };
 }

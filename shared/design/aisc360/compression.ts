@@ -23,23 +23,42 @@ export function compressionScope(g: DesignGeometry, c: AiscContext): string | nu
   return e7Scope(g, c.E, c.Fy);
 }
 
-/** E3 flexural buckling about both principal axes; Lc = K·L for each axis (m). */
+/** E3 about one axis: slenderness, Fe, Fcr, Ae (E7 when slender), Pn and the design strength. */
+function e3Axis(g: DesignGeometry, c: AiscContext, Lc: number, r: number, slender: boolean) {
+  const s = Lc / r;
+  const Fe = (Math.PI * Math.PI * c.E) / (s * s);
+  const Fcr = fcrE3(c.Fy, Fe);
+  const Ae = slender ? effectiveAreaE7(g, c.E, c.Fy, Fcr) : g.A;
+  const Pn = Fcr * Ae;
+  return { s, Fe, Fcr, Ae, Pn, capacity: factorOn(c.method, AISC_FACTORS.compression) * Pn };
+}
+
+/**
+ * E3 flexural buckling about both principal axes; Lc = K·L for each axis (m). The record
+ * holds the governing (larger) slenderness; `axes` holds each axis's own Fe, Fcr and
+ * strength (exports write a row per axis).
+ */
 export function compressionE3(g: DesignGeometry, c: AiscContext, LcMajor: number, LcMinor: number): Capacity {
   const reason = compressionScope(g, c);
   if (reason) return { capacity: NaN, head: notCheckedHead('compression', c.code, 'E3', 'flexural buckling', reason) };
-  const sMaj = LcMajor / g.rmaj;
-  const sMin = LcMinor / g.rmin;
-  const s = Math.max(sMaj, sMin);
-  const Fe = (Math.PI * Math.PI * c.E) / (s * s);
-  const Fcr = fcrE3(c.Fy, Fe);
   const slender = hasSlenderElement(g, c.E, c.Fy);
-  const Ae = slender ? effectiveAreaE7(g, c.E, c.Fy, Fcr) : g.A;
-  const Pn = Fcr * Ae;
+  const maj = e3Axis(g, c, LcMajor, g.rmaj, slender);
+  const min = e3Axis(g, c, LcMinor, g.rmin, slender);
+  const gov = maj.s > min.s ? maj : min;
+  const { s, Fe, Fcr, Ae, Pn } = gov;
   const f = AISC_FACTORS.compression;
   const limit = 4.71 * Math.sqrt(c.E / c.Fy);
   const inelastic = c.Fy / Fe <= 2.25;
+  const axisInputs = (name: 'major' | 'minor', a: ReturnType<typeof e3Axis>, Lc: number, r: number) => [
+    inp('Fy', 'yield stress', c.Fy, 'stress'), inp('E', 'elastic modulus', c.E, 'stress'), inp('Ag', 'gross area', g.A, 'area'),
+    inp(`Lc,${name}`, `effective length, ${name} axis`, Lc, 'length'), inp(`r_${name}`, `radius of gyration, ${name} axis`, r, 'section_dim'),
+    inp('Lc/r', `slenderness, ${name} axis`, a.s, 'ratio'), inp('Fe', 'elastic buckling stress π²E/(Lc/r)²', a.Fe, 'stress'),
+    inp('Fcr', c.Fy / a.Fe <= 2.25 ? 'critical stress 0.658^(Fy/Fe)·Fy (Eq. E3-2)' : 'critical stress 0.877·Fe (Eq. E3-3)', a.Fcr, 'stress'),
+    ...(slender ? [inp('Ae', 'effective area (E7)', a.Ae, 'area')] : []), inp('Pn', 'nominal compressive strength', a.Pn, 'force'),
+    inp(c.method === 'lrfd' ? 'φc' : 'Ωc', c.method === 'lrfd' ? 'resistance factor' : 'safety factor', c.method === 'lrfd' ? f.phi : f.omega, 'ratio'),
+  ];
   return {
-    capacity: factorOn(c.method, f) * Pn,
+    capacity: gov.capacity,
     head: {
       family: 'compression', code: c.code, clause: slender ? 'E7' : 'E3', title: slender ? 'flexural buckling, slender elements' : 'flexural buckling',
       equation: `${factorWords(c.method, f, c.method === 'lrfd' ? 'φc·Pn' : 'Pn/Ωc', slender ? 'Fcr·Ae (E7-1)' : 'Fcr·Ag')}; Fe = π²E/(Lc/r)²; `
@@ -55,6 +74,10 @@ export function compressionE3(g: DesignGeometry, c: AiscContext, LcMajor: number
       ],
       quantity: 'force',
       note: slender ? 'slender elements (Table B4.1a): effective area per E7' : 'nonslender elements (Table B4.1a)',
+      axes: [
+        { axis: 'major', inputs: axisInputs('major', maj, LcMajor, g.rmaj), capacity: maj.capacity },
+        { axis: 'minor', inputs: axisInputs('minor', min, LcMinor, g.rmin), capacity: min.capacity },
+      ],
     },
   };
 }

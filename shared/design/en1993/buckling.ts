@@ -17,9 +17,14 @@ export type BucklingCurve = 'a0' | 'a' | 'b' | 'c' | 'd';
 /** Table 6.1 imperfection factors. */
 export const ALPHA: Record<BucklingCurve, number> = { a0: 0.13, a: 0.21, b: 0.34, c: 0.49, d: 0.76 };
 
+/** Φ = 0.5[1 + α(λ̄ − 0.2) + λ̄²] (6.49). */
+export function phiOf(lambda: number, alpha: number): number {
+  return 0.5 * (1 + alpha * (lambda - 0.2) + lambda * lambda);
+}
+
 /** χ from λ̄ and α (6.49). */
 export function chi(lambda: number, alpha: number): number {
-  const phi = 0.5 * (1 + alpha * (lambda - 0.2) + lambda * lambda);
+  const phi = phiOf(lambda, alpha);
   const x = 1 / (phi + Math.sqrt(phi * phi - lambda * lambda));
   return x > 1 ? 1 : x;
 }
@@ -89,9 +94,26 @@ export function flexuralBuckling(g: DesignGeometry, c: EnContext, LcrY: number, 
       inp('λ̄y', 'non-dimensional slenderness, major', lambdaY, 'ratio'), inp('λ̄z', 'non-dimensional slenderness, minor', lambdaZ, 'ratio'),
       inp('curve y', `buckling curve (Table 6.2: ${curves.row})`, curves.y, 'text'), inp('curve z', 'buckling curve (Table 6.2)', curves.z, 'text'),
       inp('αy', 'imperfection factor (Table 6.1)', ALPHA[curves.y], 'ratio'), inp('αz', 'imperfection factor (Table 6.1)', ALPHA[curves.z], 'ratio'),
+      inp('Φy', 'Φ = 0.5[1 + α(λ̄ − 0.2) + λ̄²], major', phiOf(lambdaY, ALPHA[curves.y]), 'ratio'), inp('Φz', 'Φ = 0.5[1 + α(λ̄ − 0.2) + λ̄²], minor', phiOf(lambdaZ, ALPHA[curves.z]), 'ratio'),
       inp('χy', 'reduction factor, major', chiY, 'ratio'), inp('χz', 'reduction factor, minor', chiZ, 'ratio'),
     ],
     quantity: 'force',
+    axes: (['major', 'minor'] as const).map((axis) => {
+      const y = axis === 'major';
+      const lam = y ? lambdaY : lambdaZ, curve = y ? curves.y : curves.z, x = y ? chiY : chiZ;
+      return {
+        axis,
+        inputs: [
+          eff ? inp('Aeff', 'effective area (class 4)', area, 'area') : inp('A', 'area', g.A, 'area'), inp('fy', 'yield strength', c.fy, 'stress'), inp('γM1', 'partial factor', c.gammaM1, 'ratio'),
+          inp('E', 'elastic modulus', c.E, 'stress'), inp(y ? 'Iy' : 'Iz', `second moment, ${axis}`, y ? g.Imaj : g.Imin, 'inertia'),
+          inp(y ? 'Lcr,y' : 'Lcr,z', `buckling length, ${axis}`, y ? LcrY : LcrZ, 'length'), inp(y ? 'Ncr,y' : 'Ncr,z', 'elastic critical force π²EI/Lcr²', y ? NcrY : NcrZ, 'force'),
+          inp(y ? 'λ̄y' : 'λ̄z', 'non-dimensional slenderness', lam, 'ratio'), inp(y ? 'curve y' : 'curve z', `buckling curve (Table 6.2: ${curves.row})`, curve, 'text'),
+          inp(y ? 'αy' : 'αz', 'imperfection factor (Table 6.1)', ALPHA[curve], 'ratio'), inp(y ? 'Φy' : 'Φz', 'Φ = 0.5[1 + α(λ̄ − 0.2) + λ̄²]', phiOf(lam, ALPHA[curve]), 'ratio'),
+          inp(y ? 'χy' : 'χz', 'reduction factor (6.49)', x, 'ratio'),
+        ],
+        capacity: (x * NRk) / c.gammaM1,
+      };
+    }),
   };
   return {
     capacity: (x * NRk) / c.gammaM1, chiY, chiZ, lambdaY, lambdaZ, head, area,

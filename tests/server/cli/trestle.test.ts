@@ -140,7 +140,7 @@ describe('trestle check on a sample', () => {
     expect(u).toHaveLength(1 + 7);
     for (const row of u.slice(1)) expect(['pass', 'fail', 'not checked']).toContain(row[9]);
     const c = readFileSync(join(outDir, 'checks.csv'), 'utf8').split('\r\n');
-    expect(c[0]).toBe('member,combination,check,clause,demand,capacity,ratio,status,note,unit');
+    expect(c[0]).toBe('member,combination,check,clause,demand,capacity,ratio,status,note,unit,details');
     expect(c.length).toBeGreaterThan(8);
   });
 });

@@ -29,7 +29,7 @@ describe('checks export without kept records', () => {
     const res = await t.as('engineer').get(`/api/runs/${runId}/exports/checks.csv`);
     expect(res.status).toBe(200);
     const lines = res.text.trim().split('\r\n');
-    expect(lines[0]).toBe('member,combination,check,clause,demand,capacity,ratio,status,note,unit');
+    expect(lines[0]).toBe('member,combination,check,clause,demand,capacity,ratio,status,note,unit,details');
     const members = new Set(lines.slice(1).map((l) => l.split(',')[0]));
     expect([...members].sort()).toEqual(['M1', 'M2']);
   });

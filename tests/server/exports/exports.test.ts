@@ -27,6 +27,13 @@ const binary = (r: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) 
   r.on('end', () => cb(null, Buffer.concat(chunks)));
 };
 
+/** The row of the table header ('member' in the first column), below the header block. */
+function tableHeaderRow(ws: ExcelJS.Worksheet): number {
+  let at = -1;
+  ws.eachRow((r, i) => { if (at < 0 && r.getCell(1).value === 'member') at = i; });
+  return at;
+}
+
 describe('export tables', () => {
   it('neutralises user text that begins with =, +, - or @ in CSV', () => {
     expect(neutralise('=SUM(A1)')).toBe("'=SUM(A1)");
@@ -98,15 +105,17 @@ describe('GET /api/runs/:id/exports', () => {
     await wb.xlsx.load(res.body as unknown as ArrayBuffer);
     const ws = wb.worksheets[0];
     expect(ws.getCell(2, 2).value).toBe('Export project');
-    expect(ws.getCell(15, 1).value).toBe('member');
-    expect(ws.getCell(16, 1).value).toBe('M1');
-    expect(ws.getCell(16, 2).value).toBe("'=cmd|calc");
-    expect(ws.getCell(17, 1).value).toBe('M2');
+    // the table starts below the header block (its length follows the block's lines)
+    const h = tableHeaderRow(ws);
+    expect(h).toBeGreaterThan(10);
+    expect(ws.getCell(h + 1, 1).value).toBe('M1');
+    expect(ws.getCell(h + 1, 2).value).toBe("'=cmd|calc");
+    expect(ws.getCell(h + 2, 1).value).toBe('M2');
   });
 
   it('exports checks, displacements, reactions and member forces as CSV with bracketed units', async () => {
     for (const [kind, head] of [
-      ['checks', 'member,combination,check,clause,demand,capacity,ratio,status,note,unit'],
+      ['checks', 'member,combination,check,clause,demand,capacity,ratio,status,note,unit,details'],
       ['displacements', 'loading,node,ux [mm],uy [mm],uz [mm],rx [rad],ry [rad],rz [rad]'],
       ['reactions', 'loading,node,fx [kN],fy [kN],fz [kN],mx [kNm],my [kNm],mz [kNm]'],
       ['forces', 'loading,member,x [m],N [kN],V_major [kN],V_minor [kN],T [kNm],M_major [kNm],M_minor [kNm],d_major [mm],d_minor [mm]'],
@@ -119,6 +128,20 @@ describe('GET /api/runs/:id/exports', () => {
     // statics: the supports carry the whole live load, 12 kN/m over 12 m = 144 kN upward; 0.1 % tolerance
     const fy = reactions.text.trim().split('\r\n').slice(1).reduce((s, line) => s + Number(line.split(',')[3]), 0);
     expect(Math.abs(fy - 144)).toBeLessThan(0.144);
+  });
+
+  it('exports the detailed checks as XLSX with a details column of symbol=value unit parts', async () => {
+    const res = await t.as('engineer').get(`/api/runs/${runId}/exports/checks.xlsx`).buffer(true).parse(binary as never);
+    expect(res.status).toBe(200);
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load(res.body as unknown as ArrayBuffer);
+    const ws = wb.worksheets[0];
+    const headerRow = tableHeaderRow(ws);
+    const header = (ws.getRow(headerRow).values as unknown[]).slice(1);
+    const at = header.indexOf('details') + 1;
+    expect(at).toBeGreaterThan(0);
+    const details = String(ws.getCell(headerRow + 1, at).value);
+    for (const part of details.split('; ')) expect(part).toMatch(/^[^=]+=.+/);
   });
 
   it('answers 404 for an unknown export', async () => {

@@ -167,9 +167,11 @@ describe('numerical noise', () => {
     return { m, a };
   }
   it('the floor is 1e-9 of the largest reaction force', () => {
-    const { a } = noisy(0);
+    const { m, a } = noisy(0);
     expect(NOISE_RELATIVE).toBe(1e-9);
-    expect(noiseFloor(a).force).toBeCloseTo(30e-6, 12);
+    expect(noiseFloor(m, a).force).toBeCloseTo(30e-6, 12);
+    // moments: force floor × model extent (6 m)
+    expect(noiseFloor(m, a).moment).toBeCloseTo(180e-6, 12);
   });
   it('an axial force of −1e-6 N (noise against 30 kN) is zero: no compression warning, no bracing warning', () => {
     const { m, a } = noisy(-1e-6);
