@@ -38,6 +38,23 @@ export function isAisc(model: Model): boolean {
   return model.settings.designCode === 'aisc360-lrfd' || model.settings.designCode === 'aisc360-asd';
 }
 
+/**
+ * A model without combinations analyses its cases as strength loadings; the code rules act on
+ * combinations, so each case becomes a strength combination of its own (factor 1.0), named as
+ * the reader names them (`1.0 D`).
+ */
+export function withCaseCombinations(model: Model): Model {
+  if (model.combinations.length > 0 || model.cases.length === 0) return model;
+  const ids = new Set(model.cases.map((c) => c.id));
+  const combinations = model.cases.map((c) => {
+    let id = `1.0 ${c.id}`;
+    while (ids.has(id)) id += "'";
+    ids.add(id);
+    return { id, limitState: 'strength' as const, terms: [{ case: c.id, factor: 1 }], generated: true, source: 'each case alone with factor 1.0 (no combinations)' };
+  });
+  return { ...model, combinations };
+}
+
 /** No code: the model as it is, unreduced stiffness, no additions. */
 export function plainPlan(model: Model): SecondOrderPlan {
   return { model, strength: { loadScale: 1 }, rule: '', additions: new Map(), notes: [] };

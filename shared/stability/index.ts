@@ -22,7 +22,7 @@ import type { CriticalLoadFactors, SecondOrderLoading, StabilitySummary, Stabili
 import { criticalLoadFactors } from './buckling.js';
 import { naturalModes } from './modes.js';
 import { analyseSecondOrder, MOVING_LOADS_REFUSED, SECOND_ORDER_DEFAULTS, type SecondOrderOptions } from './second-order.js';
-import { AISC_DRIFT_RATIO_LIMIT, aiscDirectAnalysis, enSwayImperfection, isAisc, plainPlan, type SecondOrderPlan } from './code-rules.js';
+import { AISC_DRIFT_RATIO_LIMIT, aiscDirectAnalysis, enSwayImperfection, isAisc, plainPlan, type SecondOrderPlan, withCaseCombinations } from './code-rules.js';
 import { stabilityWarnings } from './stability-warnings.js';
 
 export type { StabilitySummary, StabilityWarning } from './types.js';
@@ -138,6 +138,7 @@ function secondOrderRun(model: Model, options: AnalyseModelOptions, notes: strin
   const code = model.settings.designCode;
 
   let plan: SecondOrderPlan;
+  if (code !== 'none') model = withCaseCombinations(model);
   if (isAisc(model)) plan = aiscDirectAnalysis(model);
   else if (code === 'en1993-1-1') plan = enSwayImperfection(model, analyse(model, options));
   else plan = plainPlan(model);

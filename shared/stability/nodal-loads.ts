@@ -19,7 +19,12 @@ export interface NodalLoads {
   nNodes: number;
   /** [case][node][X, Y, Z] forces (N): nCases × nNodes × 3 */
   forces: Float64Array;
-  /** per case: true when any node or member force of the case has a horizontal component */
+  /**
+   * per case: true when the case's forces have a net horizontal resultant (above 1e-6 of the
+   * sum of its force magnitudes). Horizontal parts that cancel (a pitched roof loaded normal
+   * to its slopes symmetrically, a pair of thrusts) leave the case gravity-only: notional
+   * loads are then added, on the safe side.
+   */
   lateral: boolean[];
   /** index of the vertical axis (1 = Y, 2 = Z) */
   up: number;
@@ -33,13 +38,14 @@ export function nodalLoads(model: Model): NodalLoads {
   const caseIndex = new Map(model.cases.map((c, i) => [c.id, i]));
   const nodeIndex = new Map(model.nodes.map((n, i) => [n.id, i]));
   const forces = new Float64Array(nCases * nNodes * 3);
-  // horizontal and vertical sums of magnitudes per case, for the "lateral" test
-  const horizontal = new Float64Array(nCases), vertical = new Float64Array(nCases);
+  // net force per case (X, Y, Z) and sum of magnitudes, for the "lateral" test
+  const net = new Float64Array(nCases * 3), magnitude = new Float64Array(nCases);
   const add = (c: number, n: number, f: ArrayLike<number>) => {
     const o = (c * nNodes + n) * 3;
     for (let k = 0; k < 3; k++) {
       forces[o + k] += f[k];
-      if (k === up) vertical[c] += Math.abs(f[k]); else horizontal[c] += Math.abs(f[k]);
+      net[c * 3 + k] += f[k];
+      magnitude[c] += Math.abs(f[k]);
     }
   };
   for (const nl of model.nodeLoads) {
@@ -76,7 +82,8 @@ export function nodalLoads(model: Model): NodalLoads {
       add(c, m.end, ge);
     }
   });
-  const lateral = model.cases.map((_, c) => horizontal[c] > 1e-9 * Math.max(1, vertical[c]));
+  const h = [0, 1, 2].filter((k) => k !== up);
+  const lateral = model.cases.map((_, c) => Math.hypot(net[c * 3 + h[0]], net[c * 3 + h[1]]) > 1e-6 * Math.max(1, magnitude[c]));
   return { nNodes, forces, lateral, up, caseIndex };
 }
 

@@ -4,7 +4,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { ModelBuilder } from '../engine/builders.js';
-import { aiscDirectAnalysis } from '../../../shared/stability/code-rules.js';
+import { aiscDirectAnalysis, withCaseCombinations } from '../../../shared/stability/code-rules.js';
 import { directAnalysisStiffness, notionalLoad, tauB } from '../../../shared/stability/notional-loads.js';
 import { nodalLoads, gravityPerNode } from '../../../shared/stability/nodal-loads.js';
 import type { Model } from '../../../shared/model/types.js';
@@ -148,5 +148,24 @@ describe('AISC 360-22 C2.3 stiffness reduction', () => {
     const { stiffness, withoutFy } = directAnalysisStiffness(b.build());
     expect(withoutFy).toEqual(['AB']);
     expect(stiffness(0, -1e12)).toEqual({ EA: 0.8, EI: 0.8 });
+  });
+});
+
+describe('which combinations are gravity-only', () => {
+  it('a case whose horizontal forces cancel (net resultant zero) counts as gravity-only; a net horizontal force is lateral', () => {
+    const m = twoStorey('aisc360-lrfd');
+    m.cases.push({ id: 'T', category: 'other', title: 'thrust pair', selfWeight: 0, mass: false });
+    m.nodeLoads.push({ case: 'T', node: 'C', values: [5e3, 0, 0, 0, 0, 0] }, { case: 'T', node: 'D', values: [-5e3, 0, 0, 0, 0, 0] });
+    m.combinations = [{ id: 'UT', limitState: 'strength', terms: [{ case: 'D', factor: 1.2 }, { case: 'T', factor: 1 }] }];
+    expect(nodalLoads(m).lateral).toEqual([false, false, true, false]);
+    expect(aiscDirectAnalysis(m).model.combinations.map((c) => c.id)).toEqual(['UT +X notional', 'UT -X notional']);
+  });
+
+  it('a model without combinations gets one strength combination per case (factor 1.0) before the rules apply', () => {
+    const m = twoStorey('aisc360-lrfd');
+    m.combinations = [];
+    const withCombos = withCaseCombinations(m);
+    expect(withCombos.combinations.map((c) => c.id)).toEqual(['1.0 D', '1.0 L', '1.0 W']);
+    expect(aiscDirectAnalysis(withCombos).model.combinations.map((c) => c.id)).toEqual(['1.0 D +X notional', '1.0 D -X notional', '1.0 L +X notional', '1.0 L -X notional', '1.0 W']);
   });
 });
