@@ -80,7 +80,7 @@ class DeformedAxis {
   private readonly m: MemberInfo;
   private readonly chordV: Float64Array; // per element node: v, w at nodes 0..n
   private readonly chordW: Float64Array;
-  private readonly f1s: Float64Array[]; // per element start end forces (6)
+  private readonly f1s: Float64Array[]; // per element: start end forces (6) for its own deflection
   private readonly parts: (LoadSet | undefined)[];
   private readonly infos: MemberInfo[];
   readonly startForces: Float64Array;
@@ -106,8 +106,14 @@ class DeformedAxis {
     for (let k = 0; k < n; k++) {
       const e = m.firstElement + k;
       elementEndForces(st, e, f, k1, k2);
-      this.f1s.push(f.slice(0, 6));
       const x0 = mesh.elX0[e], h = mesh.elL[e];
+      // the element's own deflection from the statics of its deformed free body: the axial force
+      // about the rotated chord adds −s·t·f1x to the moments (s the chord slope), i.e. f1y, f1z
+      // less s·f1x; the curvature between its ends (P-δ within one sub-element) is left out
+      const f1 = f.slice(0, 6);
+      f1[1] -= ((this.chordV[k + 1] - this.chordV[k]) / h) * f[0];
+      f1[2] -= ((this.chordW[k + 1] - this.chordW[k]) / h) * f[0];
+      this.f1s.push(f1);
       this.parts.push(ls && n > 1 ? clipLoadSet(ls, x0, x0 + h, k === n - 1) : ls);
       const b = st.eiFactor ? st.eiFactor[e] : 1;
       this.infos.push({
@@ -116,7 +122,8 @@ class DeformedAxis {
         props: m.tapered ? (t: number) => m.props((x0 + t * h) / m.L) : m.props,
       });
     }
-    this.startForces = this.f1s[0];
+    elementEndForces(st, m.firstElement, f, k1, k2);
+    this.startForces = f.slice(0, 6);
   }
 
   private elementOf(x: number): number {

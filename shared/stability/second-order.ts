@@ -261,10 +261,14 @@ function maxAbs(a: ArrayLike<number>): number {
   return m;
 }
 
-/** Largest node translation among the user's nodes. */
-function maxTranslation(u: Float64Array, nUser: number): number {
+/**
+ * Largest horizontal node translation (perpendicular to the vertical axis) among the user's
+ * nodes: the sway that second order amplifies (the vertical shortening of the columns is not).
+ */
+function maxSway(u: Float64Array, nUser: number, vertical: 'Y' | 'Z'): number {
+  const a = vertical === 'Y' ? 2 : 1;
   let m = 0;
-  for (let n = 0; n < nUser; n++) m = Math.max(m, Math.hypot(u[n * 6], u[n * 6 + 1], u[n * 6 + 2]));
+  for (let n = 0; n < nUser; n++) m = Math.max(m, Math.hypot(u[n * 6], u[n * 6 + a]));
   return m;
 }
 
@@ -398,7 +402,8 @@ function solveLoading(
   }
   const st: SecondOrderState = { mesh, u, axial: used, eaFactor: rule ? ea : undefined, eiFactor: rule ? ei : undefined, loadSet, fef };
   const R = secondOrderReactions(model, sys, st, ld, scale);
-  const t1 = maxTranslation(u1, mesh.nUserNodes), t2 = maxTranslation(u, mesh.nUserNodes);
+  const vertical = model.settings.verticalAxis;
+  const t1 = maxSway(u1, mesh.nUserNodes, vertical), t2 = maxSway(u, mesh.nUserNodes, vertical);
   const report: SecondOrderLoading = { loading: ld.id, iterations, converged, change };
   if (t1 > 0) report.amplification = t2 / t1;
   return { ...st, scale, R, report };
