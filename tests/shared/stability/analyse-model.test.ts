@@ -81,6 +81,36 @@ describe('analyseModel: AISC 360-22 direct analysis method', () => {
   });
 });
 
+describe('analyseModel: AISC 360-22 C2.2b(4)', () => {
+  it('a lateral combination whose drift ratio exceeds 1.7 gets notional loads too', () => {
+    // P = 0.9 MN on the fixed-free column: P/Pcr(0.8EI) = 0.9/(0.8·3.084) = 0.365, second- over first-order
+    // drift ≈ 1/(1 − 0.365)/0.8 ≈ 1.97 (first order at the unreduced EI) > 1.7; αPr/Py = 0.9/3.45 = 0.26: τb = 1
+    const P = 0.9e6, H = 10e3;
+    const r = analyseModel(column('aisc360-lrfd', P, H));
+    expect(r.model.combinations.map((c) => c.id)).toEqual(['U +X notional', 'U -X notional', 'S']);
+    expect(r.notes.join('\n')).toMatch(/above 1\.7 in U: notional loads added/);
+    // +X variant: H + 0.002·P at the tip (Ni = 0.002·1.0·Yi, C2-1), on 0.8·EI — exact beam-column within 0.3%
+    const m = Math.abs(r.analysis.memberForces(0, loadingIndex(r, 'U +X notional')).M_major[0]);
+    within(m, baseMoment(P, H + 0.002 * P, 0.8 * EI), 3e-3);
+    const mMinus = Math.abs(r.analysis.memberForces(0, loadingIndex(r, 'U -X notional')).M_major[0]);
+    within(mMinus, baseMoment(P, H - 0.002 * P, 0.8 * EI), 3e-3);
+  });
+
+  it('notional loads reach the supports: Σ horizontal reactions = −0.002·ΣYi (statics, two-column frame)', () => {
+    const b = new ModelBuilder({ planeNormal: 'Y' }).node('A', 0, 0, 0).node('B', 6, 0, 0).node('C', 0, 0, L).node('D', 6, 0, L)
+      .support('A', 'fixed').support('B', 'fixed').member('AC', 'A', 'C').member('BD', 'B', 'D').member('CD', 'C', 'D')
+      .loadCase('D').memberLoad('D', 'CD', 'uniform', 'global_z', -30e3).combination('G', { D: 1.4 });
+    b.model.materials[0].fy = 345e6;
+    b.model.settings.designCode = 'aisc360-lrfd';
+    b.model.settings.analysis = 'second_order';
+    const r = analyseModel(b.build());
+    const R = r.analysis.reactions(loadingIndex(r, 'G +X notional'));
+    const ia = r.analysis.nodeIds.indexOf('A'), ib = r.analysis.nodeIds.indexOf('B');
+    // ΣYi = 1.4 · 30 kN/m · 6 m = 252 kN → ΣNi = 0.504 kN along +X
+    within(R[ia * 6] + R[ib * 6], -0.002 * 252e3, 1e-6);
+  });
+});
+
 describe('analyseModel: EN 1993-1-1 second order', () => {
   it('adds the sway imperfection to every strength combination and reports αcr of each', () => {
     const m = column('en1993-1-1', 200e3, 10e3);
