@@ -71,8 +71,8 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
   const combScope = !g.hasDims || g.shape === 'angle' || g.shape === 'tee' || Number.isNaN(bMaj.Mc) || Number.isNaN(bMin.Mc);
   const eff = g.hasDims ? effectiveSection(g, cx.fy) : null;
   const scp = stressClassPlan(g, cx.fy);
-  const mzNoise = 1e-6 * cx.fy * g.Smin;
-  const clsAt = (Ni: number, My: number, Mz: number): EnClass => scp.applies ? stationClass(scp, -Ni, My, Mz > mzNoise) : Ni < 0 ? clsComb : clsBend;
+  // numerical noise is removed before the plan sees the forces (shared/design/noise.ts): any Mz acts
+  const clsAt = (Ni: number, My: number, Mz: number): EnClass => scp.applies ? stationClass(scp, -Ni, My, Mz > 0) : Ni < 0 ? clsComb : clsBend;
   const fyM0 = cx.fy / cx.gammaM0;
   const NRd = g.A * fyM0;
   const ab12 = axialBendingPlan(g, 1, NRd, g.Zmaj * fyM0, g.Zmin * fyM0);
