@@ -58,7 +58,10 @@ export function validateMemberCell(field: EditableMemberField, raw: unknown, cho
   }
   if (typeof raw === 'number' ? !Number.isFinite(raw) : !NUMBER.test(text)) return { ok: false, message: `"${text}" is not a number` };
   const n = Number(text);
-  if (!(n > 0)) return { ok: false, message: 'must be greater than zero' };
+  // `1e309` passes the pattern but is Infinity, which JSON would send as null (a cleared cell)
+  if (!Number.isFinite(n)) return { ok: false, message: `"${text}" is not a finite number (too large)` };
+  // lb = 0: continuously braced (tables.md members)
+  if (field === 'lb' ? !(n >= 0) : !(n > 0)) return { ok: false, message: field === 'lb' ? 'must be zero or more' : 'must be greater than zero' };
   return { ok: true, value: n };
 }
 
