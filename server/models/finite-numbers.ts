@@ -37,33 +37,42 @@ export interface NonFinite {
 
 /** The first number in the model that is not finite, or null. */
 export function findNonFinite(model: Model): NonFinite | null {
-  const found = (table: string, row: number | undefined, column: string, path: string): NonFinite => ({
-    table, row, column, path,
-    message: `${table}${row !== undefined ? ` row ${row}` : ''}, ${column}: the value is not a finite number (it overflowed); nothing was saved`,
-  });
-  const walk = (value: unknown, table: string, row: number | undefined, column: string, path: string): NonFinite | null => {
-    if (typeof value === 'number') return Number.isFinite(value) ? null : found(table, row, column, path);
+  // walk without building names (a 50k-member model has millions of values); on a hit the
+  // keys on the way down say where it was
+  const keys: (string | number)[] = [];
+  const rows: (number | undefined)[] = [];
+  const walk = (value: unknown): boolean => {
+    if (typeof value === 'number') return !Number.isFinite(value);
+    if (value === null || typeof value !== 'object') return false;
     if (Array.isArray(value)) {
       for (let i = 0; i < value.length; i++) {
-        const col = (column === 'values' || column === 'springs') && SIX[table] ? SIX[table][i] : column;
-        const hit = walk(value[i], table, row, col, `${path}[${i}]`);
-        if (hit) return hit;
+        const v = value[i];
+        if (typeof v === 'number' ? !Number.isFinite(v) : v !== null && typeof v === 'object' && walk(v)) { keys.push(i); return true; }
       }
-      return null;
+      return false;
     }
-    if (value && typeof value === 'object') {
-      const r = (value as { row?: unknown }).row;
-      const rowHere = typeof r === 'number' ? r : row;
-      for (const [k, v] of Object.entries(value)) {
-        const hit = walk(v, table, rowHere, columnName(k), `${path}.${k}`);
-        if (hit) return hit;
+    for (const k in value) {
+      const v = (value as Record<string, unknown>)[k];
+      if (typeof v === 'number' ? !Number.isFinite(v) : v !== null && typeof v === 'object' && walk(v)) {
+        keys.push(k);
+        const r = (value as { row?: unknown }).row;
+        rows.push(typeof r === 'number' ? r : undefined);
+        return true;
       }
     }
-    return null;
+    return false;
   };
-  for (const [key, value] of Object.entries(model)) {
-    const hit = walk(value, TABLE_OF[key] ?? key, undefined, key, key);
-    if (hit) return hit;
-  }
-  return null;
+  if (!walk(model)) return null;
+  const row = rows.find((r) => r !== undefined); // pushed innermost first
+  keys.reverse();
+  const top = String(keys[0]);
+  const table = TABLE_OF[top] ?? top;
+  const last = keys.length - 1;
+  let column = columnName(String(keys.findLast((k) => typeof k === 'string') ?? top));
+  if (typeof keys[last] === 'number' && (keys[last - 1] === 'values' || keys[last - 1] === 'springs') && SIX[table]) column = SIX[table][keys[last] as number];
+  const path = keys.map((k) => (typeof k === 'number' ? `[${k}]` : `.${k}`)).join('').slice(1);
+  return {
+    table, row, column, path,
+    message: `${table}${row !== undefined ? ` row ${row}` : ''}, ${column}: the value is not a finite number (it overflowed); nothing was saved`,
+  };
 }
