@@ -86,7 +86,7 @@ export function analyseModel(model: Model, options: AnalyseModelOptions = {}): M
   if (bucklingModes > 0 || warn || enReport) {
     const staticModel = model.movingLoads.length ? { ...model, movingLoads: [], vehicles: [], lanes: [] } : model;
     if (model.movingLoads.length) notes.push('critical load factors from the static loads only: the moving loads are not included');
-    critical = criticalLoadFactors(staticModel, Math.max(1, bucklingModes), { shapes: bucklingModes > 0 });
+    critical = criticalLoadFactors(staticModel, Math.max(1, bucklingModes), { ...solverOptions(options), shapes: bucklingModes > 0 });
     if (warn) {
       warnings = stabilityWarnings(code, critical);
       method += code === 'en1993-1-1'
@@ -103,11 +103,20 @@ export function analyseModel(model: Model, options: AnalyseModelOptions = {}): M
     analysis: s.analysis, method, ...extra, secondOrder, critical, modes: [], warnings,
   };
   if (modeCount > 0) {
-    const m = naturalModes(model, modeCount);
+    const m = naturalModes(model, modeCount, solverOptions(options));
     stability.modes = m.modes;
     stability.totalMass = m.totalMass;
   }
   return { analysis, stability, model: analysed, notes };
+}
+
+/** The options every floor shares: tapered sub-elements and the solver. */
+function solverOptions(o: AnalyseModelOptions): Pick<AnalyseOptions, 'taperSegments' | 'solver' | 'factorise'> {
+  return {
+    ...(o.taperSegments !== undefined ? { taperSegments: o.taperSegments } : {}),
+    ...(o.solver ? { solver: o.solver } : {}),
+    ...(o.factorise ? { factorise: o.factorise } : {}),
+  };
 }
 
 function wholeCount(key: string, v: number): number {
