@@ -12,7 +12,8 @@
  *   max|Nᵏ⁺¹|. The ordering and symbolic factorisation are done once for all loadings.
  * - A loading at or above its critical load (a non-positive pivot of K + K_G, or axial forces
  *   that stop converging while K + K_G(N) is no longer positive definite) throws
- *   SecondOrderInstabilityError naming it with αcr (bisection, ≈, 1 %).
+ *   SecondOrderInstabilityError naming it with αcr of those axial forces and that stiffness
+ *   (eigen solution, or bisection to 1 % shown with ≈ when that fails).
  * - `loadScale` α: loads × α before the analysis, every result ÷ α after (AISC ASD at 1.6).
  * - `stiffness`: factors on EA and EI per member from its axial force at the analysed load
  *   level (AISC direct analysis method 0.8·EA, 0.8·τb·EI); GJ is kept. Fixed-end forces of
@@ -43,7 +44,7 @@ import { type FactorOptions, SingularMatrixError } from '../solver/types.js';
 import { assembleGeometricStiffness, elementAxialForces, localGeometricStiffness } from './geometric.js';
 import { type SecondOrderState, elementEndForces, secondOrderStations } from './p-delta.js';
 import { type NumericSolve, type Refactorisation, refactorisation } from './refactorisation.js';
-import { bisectCriticalFactor, instabilityMessage, SecondOrderInstabilityError } from './second-order-instability.js';
+import { criticalFactor, instabilityMessage, SecondOrderInstabilityError } from './second-order-instability.js';
 import type { SecondOrderLoading } from './types.js';
 
 export { SecondOrderInstabilityError } from './second-order-instability.js';
@@ -351,11 +352,12 @@ function solveLoading(
   const A = new Float64Array(pat.K.values.length);
   const K0 = pat.K.values;
   let u = u1, used = N, iterations = 0, change = Infinity, converged = false;
-  const instability = (reason: 'pivot' | 'divergence'): SecondOrderInstabilityError => {
+  // αcr of the axial forces that failed (their K + K_G is not positive definite, so αcr ≤ 1)
+  const instability = (): SecondOrderInstabilityError => {
     for (let i = 0; i < A.length; i++) A[i] = K0[i] + dK[i];
-    const alpha = refac ? bisectCriticalFactor(refac, A, KG) : Infinity;
-    const shown = reason === 'divergence' ? Math.min(alpha, 1) : alpha;
-    return new SecondOrderInstabilityError(ld.id, shown, true, instabilityMessage(ld.kind, ld.id, shown, true, scale));
+    const { alpha, approximate } = refac ? criticalFactor(refac, pat.K, A, KG) : { alpha: Infinity, approximate: true };
+    const shown = Math.min(alpha, 1);
+    return new SecondOrderInstabilityError(ld.id, shown, approximate, instabilityMessage(ld.kind, ld.id, shown, approximate, scale));
   };
   while (iterations < opt.maxIterations && nEq > 0) {
     if (rule) {
@@ -368,7 +370,7 @@ function solveLoading(
     try {
       fact = refac!.factor(A);
     } catch (err) {
-      if (err instanceof SingularMatrixError) throw instability('pivot');
+      if (err instanceof SingularMatrixError) throw instability();
       throw err;
     }
     iterations++;
@@ -385,7 +387,7 @@ function solveLoading(
     u = un;
     used = N;
     N = Nn;
-    if (!Number.isFinite(change)) throw instability('divergence');
+    if (!Number.isFinite(change)) throw instability();
     if (change <= opt.tolerance) { converged = true; break; }
   }
   if (nEq === 0) { converged = true; change = 0; }
@@ -396,7 +398,7 @@ function solveLoading(
     try {
       refac!.factor(A);
     } catch (err) {
-      if (err instanceof SingularMatrixError) throw instability('divergence');
+      if (err instanceof SingularMatrixError) throw instability();
       throw err;
     }
   }
