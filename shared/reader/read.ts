@@ -512,7 +512,7 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
   }
 
   // second order analyses each loading on its own; a moving-load envelope is a superposition
-  if (settings.analysis === 'second_order' && raw.has('moving_loads')) {
+  if (settings.analysis === 'second_order' && (parsed.moving_loads?.rows.length ?? 0) > 0) {
     problems.error('settings', sr.rows.analysis, 'value', 'analysis = second_order cannot be combined with moving loads (table moving_loads): second order analyses each loading on its own, and moving-load envelopes need superposition; use first_order or remove the moving_loads table');
   }
 
