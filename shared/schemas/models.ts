@@ -60,6 +60,12 @@ export const modelDetailSchema = modelSummarySchema.extend({
     gammaM0: z.number(),
     gammaM1: z.number(),
     gammaM2: z.number(),
+    /** issues 10–11 (tables.md settings); always present for models read today */
+    stations: z.number().int().optional(),
+    analysis: z.enum(['first_order', 'second_order']).optional(),
+    bucklingModes: z.number().int().optional(),
+    modes: z.number().int().optional(),
+    stabilityWarning: z.boolean().optional(),
   }),
   /** 2D models open face-on in the picture */
   planeFrame: z.object({ plane: z.enum(['XY', 'XZ', 'YZ']), normal: z.enum(['X', 'Y', 'Z']) }).nullable(),
