@@ -87,21 +87,23 @@ export function aiscDirectAnalysis(model: Model, alsoLateral: ReadonlySet<string
 }
 
 /**
- * EN 1993-1-1 5.3.2 sway imperfection on every strength combination; `firstOrder` is a
- * first-order analysis of `model` (the column loads N_Ed that fix m).
+ * EN 1993-1-1 5.3.2 sway imperfection on every strength combination; `firstOrder` gives a
+ * first-order analysis of `model` (the column loads N_Ed that fix m), asked for only when the
+ * model has columns.
  */
-export function enSwayImperfection(model: Model, firstOrder: AnalysisResult): SecondOrderPlan {
+export function enSwayImperfection(model: Model, firstOrder: AnalysisResult | (() => AnalysisResult)): SecondOrderPlan {
   const loads = nodalLoads(model);
   const directions = swayDirections(model);
   const h = structureHeight(model);
   const lines = columnLines(model);
+  const first = lines.length === 0 ? null : typeof firstOrder === 'function' ? firstOrder() : firstOrder;
   const index = new Map<string, number>();
-  firstOrder.loadings.forEach((l, i) => { if (l.kind === 'combination' && !index.has(l.id)) index.set(l.id, i); });
+  first?.loadings.forEach((l, i) => { if (l.kind === 'combination' && !index.has(l.id)) index.set(l.id, i); });
   const variants: LoadVariant[] = [];
   for (const cb of model.combinations) {
     if (cb.limitState !== 'strength') continue;
     const li = index.get(cb.id);
-    const lineLoads = li === undefined ? lines.map(() => 0) : columnLineLoads(lines, firstOrder, li);
+    const lineLoads = li === undefined || !first ? lines.map(() => 0) : columnLineLoads(lines, first, li);
     variants.push(...imperfectionVariants(loads, cb, directions, h, lines, lineLoads).variants);
   }
   const { model: analysed, additions } = withVariants(model, variants, 'sway imperfection');

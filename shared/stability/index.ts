@@ -149,7 +149,7 @@ function secondOrderRun(model: Model, options: AnalyseModelOptions, notes: strin
   let plan: SecondOrderPlan;
   if (code !== 'none') model = withCaseCombinations(model);
   if (isAisc(model)) plan = aiscDirectAnalysis(model);
-  else if (code === 'en1993-1-1') plan = enSwayImperfection(model, analyse(model, options));
+  else if (code === 'en1993-1-1') { const m = model; plan = enSwayImperfection(m, () => analyse(m, options)); }
   else plan = plainPlan(model);
 
   let run = runPlan(plan, base);

@@ -5,7 +5,8 @@
 import { describe, expect, it } from 'vitest';
 import { ModelBuilder, STEEL_E } from '../engine/builders.js';
 import { analyseModel } from '../../../shared/stability/index.js';
-import { checkModel } from '../../../shared/design/index.js';
+import { checkMember, checkModel } from '../../../shared/design/index.js';
+import { catalogueSection } from '../../../shared/sections/index.js';
 import type { Model } from '../../../shared/model/types.js';
 
 const within = (a: number, b: number, rtol: number) => expect(Math.abs(a - b)).toBeLessThanOrEqual(rtol * Math.max(1, Math.abs(a), Math.abs(b)));
@@ -217,5 +218,44 @@ describe('analyseModel: requested modes', () => {
     expect(r.stability.critical[0].shapes?.length).toBe(2);
     expect(r.stability.modes.length).toBe(2);
     expect(r.stability.totalMass).toBeDefined();
+  });
+});
+
+describe('design records under second order', () => {
+  /** W12X26 / HEB200 cantilever column, 4 m, gravity-only combination G = 1.4·P (catalogue sections). */
+  function rolled(code: Model['settings']['designCode'], section: string): Model {
+    const m = column(code, 300e3, 0);
+    m.sections.push(catalogueSection(section)!);
+    m.members[0].section = section;
+    m.combinations = [{ id: 'G', limitState: 'strength', terms: [{ case: 'P', factor: 1.4 }] }];
+    return m;
+  }
+
+  it('AISC: every record names the method; the compression record says K = 1 under the direct analysis method (C3)', () => {
+    const r = analyseModel(rolled('aisc360-lrfd', 'W12X26'));
+    const d = checkModel(r.model, r.analysis, { stability: r.stability });
+    const comp = d.records.find((x) => x.family === 'compression' && x.status !== 'not checked')!;
+    expect(comp).toBeDefined();
+    expect(comp.note).toMatch(/K = 1: direct analysis method \(AISC 360-22 C3\)/);
+    expect(comp.analysis).toMatch(/direct analysis method/);
+    const li = r.analysis.loadings.findIndex((l) => l.id === 'G +X notional');
+    const recs = checkMember(r.model, r.analysis, 0, li, { stability: r.stability });
+    expect(recs.every((x) => x.analysis === r.stability.method)).toBe(true);
+  });
+
+  it('EN: the buckling record says the system length is used after the global second-order analysis (5.2.2(7)(b))', () => {
+    const r = analyseModel(rolled('en1993-1-1', 'HEB200'));
+    const d = checkModel(r.model, r.analysis, { stability: r.stability });
+    const comp = d.records.filter((x) => x.family === 'compression' && x.status !== 'not checked');
+    expect(comp.length).toBeGreaterThan(0);
+    for (const x of comp) expect(x.note).toMatch(/K = 1: buckling length from the system length/);
+  });
+
+  it('a member given k_major says so instead', () => {
+    const m = rolled('aisc360-lrfd', 'W12X26');
+    m.members[0].kMajor = 2;
+    const r = analyseModel(m);
+    const d = checkModel(r.model, r.analysis, { stability: r.stability });
+    expect(d.records.find((x) => x.family === 'compression' && x.status !== 'not checked')!.note).toMatch(/K given by the member \(k_major = 2, k_minor = 1\)/);
   });
 });
