@@ -7,7 +7,7 @@
  */
 import { inp, notCheckedHead } from '../record.js';
 import type { DesignGeometry } from '../geometry.js';
-import { AISC_FACTORS, factorOn, factorWords } from './factors.js';
+import { AISC_FACTORS, factorInput, factorOn, factorWords } from './factors.js';
 import { e7Scope, e7Words, effectiveAreaE7, hasSlenderElement } from './effective-area.js';
 import type { AiscContext, Capacity } from './context.js';
 
@@ -55,7 +55,7 @@ export function compressionE3(g: DesignGeometry, c: AiscContext, LcMajor: number
     inp('Lc/r', `slenderness, ${name} axis`, a.s, 'ratio'), inp('Fe', 'elastic buckling stress π²E/(Lc/r)²', a.Fe, 'stress'),
     inp('Fcr', c.Fy / a.Fe <= 2.25 ? 'critical stress 0.658^(Fy/Fe)·Fy (Eq. E3-2)' : 'critical stress 0.877·Fe (Eq. E3-3)', a.Fcr, 'stress'),
     ...(slender ? [inp('Ae', 'effective area (E7)', a.Ae, 'area')] : []), inp('Pn', 'nominal compressive strength', a.Pn, 'force'),
-    inp(c.method === 'lrfd' ? 'φc' : 'Ωc', c.method === 'lrfd' ? 'resistance factor' : 'safety factor', c.method === 'lrfd' ? f.phi : f.omega, 'ratio'),
+    factorInput(c.method, f, 'c'),
   ];
   return {
     capacity: gov.capacity,
@@ -70,7 +70,7 @@ export function compressionE3(g: DesignGeometry, c: AiscContext, LcMajor: number
         inp('Lc,minor', 'effective length, minor axis', LcMinor, 'length'), inp('r_minor', 'radius of gyration, minor axis', g.rmin, 'section_dim'),
         inp('Lc/r', 'governing slenderness', s, 'ratio'), inp('4.71√(E/Fy)', 'inelastic/elastic limit', limit, 'ratio'),
         inp('Fe', 'elastic buckling stress', Fe, 'stress'), inp('Fcr', 'critical stress', Fcr, 'stress'),
-        ...(slender ? [inp('Ae', 'effective area (E7)', Ae, 'area')] : []), inp('Pn', 'nominal compressive strength', Pn, 'force'),
+        ...(slender ? [inp('Ae', 'effective area (E7)', Ae, 'area')] : []), inp('Pn', 'nominal compressive strength', Pn, 'force'), factorInput(c.method, f, 'c'),
       ],
       quantity: 'force',
       note: slender ? 'slender elements (Table B4.1a): effective area per E7' : 'nonslender elements (Table B4.1a)',
@@ -112,7 +112,7 @@ export function compressionE4(g: DesignGeometry, c: AiscContext, Lcz: number, Lc
         inp('Cw', 'warping constant', g.Cw, 'warping'), inp('J', 'torsion constant', g.J, 'inertia'),
         inp('Ix', 'second moment, major', g.Imaj, 'inertia'), inp('Iy', 'second moment, minor', g.Imin, 'inertia'),
         inp('Lcz', 'torsional effective length', Lcz, 'length'), inp('Fe', 'elastic buckling stress', Fe, 'stress'),
-        inp('Fcr', 'critical stress', Fcr, 'stress'), ...(slender ? [inp('Ae', 'effective area (E7)', Ae, 'area')] : []), inp('Pn', 'nominal compressive strength', Pn, 'force'),
+        inp('Fcr', 'critical stress', Fcr, 'stress'), ...(slender ? [inp('Ae', 'effective area (E7)', Ae, 'area')] : []), inp('Pn', 'nominal compressive strength', Pn, 'force'), factorInput(c.method, f, 'c'),
       ],
       quantity: 'force',
       note: 'Lcz taken equal to the minor-axis effective length',
@@ -172,7 +172,7 @@ export function compressionE4Singly(g: DesignGeometry, c: AiscContext, Lcz: numb
         inp('y0', 'centroid to shear centre', y0, 'section_dim'), inp('H', 'flexural constant (Eq. E4-10)', H, 'ratio'),
         inp('Cw', 'warping constant', g.Cw, 'warping'), inp('J', 'torsion constant', g.J, 'inertia'), inp('Lcz', 'torsional effective length', Lcz, 'length'),
         inp('Fe', 'elastic buckling stress', Fe, 'stress'), inp('Fcr', 'critical stress', Fcr, 'stress'),
-        ...(slender ? [inp('Ae', 'effective area (E7)', Ae, 'area')] : []), inp('Pn', 'nominal compressive strength', Pn, 'force'),
+        ...(slender ? [inp('Ae', 'effective area (E7)', Ae, 'area')] : []), inp('Pn', 'nominal compressive strength', Pn, 'force'), factorInput(c.method, f, 'c'),
       ],
       quantity: 'force',
       note: 'Lcz taken equal to the minor-axis effective length; shear centre from thin-walled dimensions without fillets',

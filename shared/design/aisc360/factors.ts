@@ -34,3 +34,10 @@ export function factorOn(method: AiscMethod, f: AiscFactor): number {
 export function factorWords(method: AiscMethod, f: AiscFactor, sym: string, nominal: string): string {
   return method === 'lrfd' ? `${sym} = ${f.phi.toFixed(2)}·${nominal}` : `${sym} = ${nominal}/${f.omega.toFixed(2)}`;
 }
+
+/** The factor as a record input: φ (LRFD) or Ω (ASD) with its subscript, e.g. "φt", "Ωv". */
+export function factorInput(method: AiscMethod, f: AiscFactor, sub: string): import('../types.js').CheckInput {
+  return method === 'lrfd'
+    ? { symbol: `φ${sub}`, name: 'resistance factor (LRFD)', value: f.phi, quantity: 'ratio' }
+    : { symbol: `Ω${sub}`, name: 'safety factor (ASD)', value: f.omega, quantity: 'ratio' };
+}

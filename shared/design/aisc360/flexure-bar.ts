@@ -19,7 +19,7 @@ export function flexureF11(g: DesignGeometry, cx: AiscContext, axis: 'major' | '
   const S = axis === 'major' ? g.Smaj : g.Smin;
   const Mp = Math.min(Fy * Z, 1.6 * Fy * S);
   const words = ['yielding Mn = Mp = Fy·Z ≤ 1.6·Fy·S (Eq. F11-1)'];
-  const inputs = [inp('Fy', 'yield stress', Fy, 'stress'), inp('Z', 'plastic modulus', Z, 'modulus'), inp('S', 'elastic modulus', S, 'modulus'), inp('Mp', 'plastic moment', Mp, 'moment')];
+  const inputs = [inp('Fy', 'yield stress', Fy, 'stress'), inp('E', 'elastic modulus', E, 'stress'), inp('Z', 'plastic modulus', Z, 'modulus'), inp('S', 'elastic modulus', S, 'modulus'), inp('Mp', 'plastic moment', Mp, 'moment')];
   let M1 = Infinity;
   let ltb = 'not applicable';
   if (g.shape === 'rect' && axis === 'major' && g.h > g.b) {

@@ -54,7 +54,7 @@ export function flexureF7(g: DesignGeometry, cx: AiscContext, axis: 'major' | 'm
   let M1 = Infinity;
   let ltb = 'not applicable';
   const inputs = [
-    inp('Fy', 'yield stress', Fy, 'stress'), inp('Z', 'plastic modulus', Z, 'modulus'), inp('S', 'elastic modulus', S, 'modulus'),
+    inp('Fy', 'yield stress', Fy, 'stress'), inp('E', 'elastic modulus', E, 'stress'), inp('Z', 'plastic modulus', Z, 'modulus'), inp('S', 'elastic modulus', S, 'modulus'),
     inp('b/t', 'flange slenderness', flange.ratio, 'ratio'), inp('flange', 'flange class (Table B4.1b)', fc, 'text'),
     inp('h/t', 'web slenderness', web.ratio, 'ratio'), inp('web', 'web class (Table B4.1b)', wc, 'text'),
     ...(fc === 'slender' ? [inp('Se', 'effective section modulus (F7.2(c))', Se, 'modulus')] : []),
@@ -122,7 +122,7 @@ export function flexureF8(g: DesignGeometry, cx: AiscContext, axis: 'major' | 'm
     factor, Mcap: Mn, M1: Infinity, ltb: '',
     head: {
       family, code: cx.code, clause: 'F8', title, equation: `${phiWords(cx)}; ${words}`,
-      inputs: [inp('Fy', 'yield stress', Fy, 'stress'), inp('Z', 'plastic modulus', Z, 'modulus'), inp('S', 'elastic modulus', S, 'modulus'), inp('D/t', 'wall slenderness', Dt, 'ratio'), inp('wall', 'wall class (Table B4.1b)', cls, 'text')],
+      inputs: [inp('Fy', 'yield stress', Fy, 'stress'), inp('E', 'elastic modulus', E, 'stress'), inp('Z', 'plastic modulus', Z, 'modulus'), inp('S', 'elastic modulus', S, 'modulus'), inp('D/t', 'wall slenderness', Dt, 'ratio'), inp('wall', 'wall class (Table B4.1b)', cls, 'text')],
       quantity: 'moment',
     },
   };

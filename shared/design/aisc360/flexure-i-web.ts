@@ -92,7 +92,7 @@ export function flexureWebF4F5(g: DesignGeometry, cx: AiscContext, Lb: number, f
       family: 'bending_major', code: cx.code, clause, title: 'flexure, major axis',
       equation: `${phiWords}; compression flange yielding Mn = ${slenderWeb ? 'Rpg·Fy·Sx (F5-1)' : 'Rpc·Myc (F4-1)'}; lateral-torsional buckling: ${ltb}${flb}`,
       inputs: [
-        inp('Fy', 'yield stress', Fy, 'stress'), inp('Sx', 'elastic modulus, major', Sx, 'modulus'), inp('Zx', 'plastic modulus, major', g.Zmaj, 'modulus'),
+        inp('Fy', 'yield stress', Fy, 'stress'), inp('E', 'elastic modulus', E, 'stress'), inp('Sx', 'elastic modulus, major', Sx, 'modulus'), inp('Zx', 'plastic modulus, major', g.Zmaj, 'modulus'),
         inp('h/tw', `web slenderness (${slenderWeb ? 'slender' : 'noncompact'}, Table B4.1b case 15)`, lam, 'ratio'), inp('aw', 'hc·tw/(bf·tf) (F4-12)', aw, 'ratio'),
         inp(rName.split(' ')[0], `web plastification / bending strength reduction factor ${rName}`, R, 'ratio'),
         inp('bf/2tf', 'flange slenderness', lf, 'ratio'), inp('flange', 'flange class (Table B4.1b)', fl, 'text'),

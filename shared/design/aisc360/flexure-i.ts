@@ -77,7 +77,7 @@ export function flexureMajorI(g: DesignGeometry, cx: AiscContext, Lb: number): F
       family: 'bending_major', code: cx.code, clause, title: 'flexure, major axis',
       equation: `${phiWords}; yielding Mn = Mp = Fy·Zx (Eq. F2-1); lateral-torsional buckling: ${ltb}${flb}`,
       inputs: [
-        inp('Fy', 'yield stress', Fy, 'stress'), inp('Zx', 'plastic modulus, major', g.Zmaj, 'modulus'), inp('Sx', 'elastic modulus, major', Sx, 'modulus'),
+        inp('Fy', 'yield stress', Fy, 'stress'), inp('E', 'elastic modulus', E, 'stress'), inp('Zx', 'plastic modulus, major', g.Zmaj, 'modulus'), inp('Sx', 'elastic modulus, major', Sx, 'modulus'),
         inp('Mp', 'plastic moment', Mp, 'moment'), inp('bf/2tf', 'flange slenderness', lam, 'ratio'), inp('flange', 'flange class (Table B4.1b)', fl, 'text'),
         inp('h/tw', 'web slenderness', web.ratio, 'ratio'), inp('Lb', 'unbraced length', Lb, 'length'), inp('Lp', 'limiting length, yielding (Eq. F2-5)', Lp, 'length'),
         inp('Lr', 'limiting length, inelastic LTB (Eq. F2-6)', Lr, 'length'), inp('rts', 'effective radius of gyration (Eq. F2-7)', rts, 'section_dim'),

@@ -37,7 +37,7 @@ export function flexureMinorF6(g: DesignGeometry, cx: AiscContext): FlexureCapac
       family: 'bending_minor', code: cx.code, clause: 'F6', title: 'flexure, minor axis',
       equation: `${phiWords}; ${words}`,
       inputs: [
-        inp('Fy', 'yield stress', Fy, 'stress'), inp('Zy', 'plastic modulus, minor', g.Zmin, 'modulus'), inp('Sy', 'elastic modulus, minor', g.Smin, 'modulus'),
+        inp('Fy', 'yield stress', Fy, 'stress'), inp('E', 'elastic modulus', E, 'stress'), inp('Zy', 'plastic modulus, minor', g.Zmin, 'modulus'), inp('Sy', 'elastic modulus, minor', g.Smin, 'modulus'),
         inp('λ', `flange slenderness ${flange.symbol}`, lam, 'ratio'), inp('λpf', 'compact limit', flange.lambdaP, 'ratio'), inp('λrf', 'noncompact limit', flange.lambdaR, 'ratio'),
         inp('flange', 'flange class (Table B4.1b)', cls, 'text'),
       ],

@@ -36,6 +36,11 @@ export function flexureAt(fc: FlexureCapacity, cb: number, cbSource: string): Ca
   const governs = ltbGoverns ? `lateral-torsional buckling governs (${fc.ltb})` : fc.M1 === Infinity ? 'no lateral-torsional buckling' : `limit Mcap governs; LTB ${fc.ltb}`;
   return {
     capacity,
-    head: { ...fc.head, inputs: [...inputs, inp('Mn', 'nominal flexural strength', capacity / fc.factor, 'moment')], note: fc.head.note ? `${fc.head.note}; ${governs}` : governs },
+    head: {
+      ...fc.head,
+      inputs: [...inputs, inp('Mn', 'nominal flexural strength', capacity / fc.factor, 'moment'),
+        fc.head.code === 'aisc360-asd' ? inp('Ωb', 'safety factor (ASD)', 1 / fc.factor, 'ratio') : inp('φb', 'resistance factor (LRFD)', fc.factor, 'ratio')],
+      note: fc.head.note ? `${fc.head.note}; ${governs}` : governs,
+    },
   };
 }

@@ -10,7 +10,7 @@
  */
 import { inp, notCheckedHead } from '../record.js';
 import type { DesignGeometry } from '../geometry.js';
-import { AISC_FACTORS, factorOn, type AiscFactor } from './factors.js';
+import { AISC_FACTORS, factorInput, factorOn, type AiscFactor } from './factors.js';
 import type { AiscContext, Capacity } from './context.js';
 
 /** Web shear buckling coefficient Cv1 of G2.1(b) (Eqs. G2-3, G2-4). */
@@ -62,7 +62,7 @@ export function shearMajor(g: DesignGeometry, cx: AiscContext, Lv: number): Capa
       head: {
         family: 'shear_major', code: cx.code, clause: rolledI ? 'G2.1(a)' : 'G2.1(b)', title: 'shear, web',
         equation: `${words(cx, f)}; Vn = 0.6·Fy·Aw·Cv1 (Eq. G2-1), ${given ? 'Aw = Av given' : 'Aw = d·tw'}; ` + (rolledI ? 'rolled I with h/tw ≤ 2.24√(E/Fy): Cv1 = 1.0' : 'Cv1 from Eqs. G2-3/G2-4, kv = 5.34 (no stiffeners)'),
-        inputs: [inp('Fy', 'yield stress', Fy, 'stress'), inp('d', 'depth', g.d, 'section_dim'), inp('tw', 'web thickness', g.tw, 'section_dim'), inp('Aw', given ? 'shear area (Av given)' : 'web area', Aw, 'area'), inp('h/tw', 'web slenderness', hTw, 'ratio'), inp('Cv1', 'web shear strength coefficient', C, 'ratio'), inp('Vn', 'nominal shear strength', Vn, 'force')],
+        inputs: [inp('Fy', 'yield stress', Fy, 'stress'), inp('d', 'depth', g.d, 'section_dim'), inp('tw', 'web thickness', g.tw, 'section_dim'), inp('Aw', given ? 'shear area (Av given)' : 'web area', Aw, 'area'), inp('h/tw', 'web slenderness', hTw, 'ratio'), inp('Cv1', 'web shear strength coefficient', C, 'ratio'), inp('Vn', 'nominal shear strength', Vn, 'force'), factorInput(cx.method, f, 'v')],
         quantity: 'force',
         ...(given ? { note: GIVEN_NOTE } : {}),
       },
@@ -88,7 +88,7 @@ export function shearMinor(g: DesignGeometry, cx: AiscContext, Lv: number): Capa
       head: {
         family: 'shear_minor', code: cx.code, clause: 'G6', title: 'shear, flanges (minor axis)',
         equation: `${words(cx, f)}; Vn = 0.6·Fy·Av·Cv2, ${given ? 'Av = Av given' : 'Av = 2·bf·tf (bf·tf per flange, two flanges)'} (Eq. G6-1), Cv2 from G2.2 with h/tw = b/tf, kv = 1.2`,
-        inputs: [inp('Fy', 'yield stress', Fy, 'stress'), inp('bf', 'flange width', g.bf, 'section_dim'), inp('tf', 'flange thickness', g.tf, 'section_dim'), inp('Av', given ? 'shear area (given)' : 'shear area 2·bf·tf', Av, 'area'), inp('b/tf', 'flange slenderness', b / g.tf, 'ratio'), inp('Cv2', 'shear buckling coefficient', C, 'ratio'), inp('Vn', 'nominal shear strength', Vn, 'force')],
+        inputs: [inp('Fy', 'yield stress', Fy, 'stress'), inp('bf', 'flange width', g.bf, 'section_dim'), inp('tf', 'flange thickness', g.tf, 'section_dim'), inp('Av', given ? 'shear area (given)' : 'shear area 2·bf·tf', Av, 'area'), inp('b/tf', 'flange slenderness', b / g.tf, 'ratio'), inp('Cv2', 'shear buckling coefficient', C, 'ratio'), inp('Vn', 'nominal shear strength', Vn, 'force'), factorInput(cx.method, f, 'v')],
         quantity: 'force',
         ...(given ? { note: GIVEN_NOTE } : {}),
       },
@@ -113,7 +113,7 @@ export function shearG4(g: DesignGeometry, cx: AiscContext, family: 'shear_major
     head: {
       family, code: cx.code, clause: 'G4', title: 'shear, HSS walls',
       equation: `${words(cx, f)}; Vn = 0.6·Fy·Aw·Cv2 (Eq. G4-1), ${given ? 'Aw = Av given' : 'Aw = 2·h·t'}, h = outside − 3t, Cv2 from G2.2 with kv = 5`,
-      inputs: [inp('Fy', 'yield stress', Fy, 'stress'), inp('h', 'flat wall depth', h, 'section_dim'), inp('t', 'wall thickness', g.t, 'section_dim'), inp('Aw', given ? 'shear area (Av given)' : 'shear area', Aw, 'area'), inp('Cv2', 'shear buckling coefficient', C, 'ratio'), inp('Vn', 'nominal shear strength', Vn, 'force')],
+      inputs: [inp('Fy', 'yield stress', Fy, 'stress'), inp('h', 'flat wall depth', h, 'section_dim'), inp('t', 'wall thickness', g.t, 'section_dim'), inp('Aw', given ? 'shear area (Av given)' : 'shear area', Aw, 'area'), inp('Cv2', 'shear buckling coefficient', C, 'ratio'), inp('Vn', 'nominal shear strength', Vn, 'force'), factorInput(cx.method, f, 'v')],
       quantity: 'force',
       ...(given ? { note: GIVEN_NOTE } : {}),
     },
@@ -134,7 +134,7 @@ export function shearG5(g: DesignGeometry, cx: AiscContext, family: 'shear_major
     head: {
       family, code: cx.code, clause: 'G5', title: 'shear, round HSS',
       equation: `${words(cx, f)}; Vn = Fcr·Av, ${given ? 'Av = Av given' : 'Av = Ag/2'} (Eq. G5-1), Fcr = max(1.60E/(√(Lv/D)(D/t)^(5/4)), 0.78E/(D/t)^(3/2)) ≤ 0.6Fy (Eqs. G5-2a, G5-2b)`,
-      inputs: [inp('Fy', 'yield stress', Fy, 'stress'), inp('D/t', 'wall slenderness', Dt, 'ratio'), inp('Lv', 'shear span (member length, conservative)', Lv, 'length'), inp('Fcr', 'critical stress', Fcr, 'stress'), inp('Av', given ? 'shear area (given)' : 'shear area Ag/2', Av, 'area'), inp('Vn', 'nominal shear strength', Vn, 'force')],
+      inputs: [inp('Fy', 'yield stress', Fy, 'stress'), inp('D/t', 'wall slenderness', Dt, 'ratio'), inp('Lv', 'shear span (member length, conservative)', Lv, 'length'), inp('Fcr', 'critical stress', Fcr, 'stress'), inp('Av', given ? 'shear area (given)' : 'shear area Ag/2', Av, 'area'), inp('Vn', 'nominal shear strength', Vn, 'force'), factorInput(cx.method, f, 'v')],
       quantity: 'force',
       ...(given ? { note: GIVEN_NOTE } : {}),
     },

@@ -7,7 +7,7 @@ import { inp, notCheckedHead } from '../record.js';
 import type { DesignGeometry } from '../geometry.js';
 import type { NetArea } from '../../model/types.js';
 import { netAreaProblem } from '../net-area.js';
-import { AISC_FACTORS, factorOn, factorWords } from './factors.js';
+import { AISC_FACTORS, factorInput, factorOn, factorWords } from './factors.js';
 import type { AiscContext, Capacity } from './context.js';
 
 export function tensionYieldD2a(g: DesignGeometry, c: AiscContext): Capacity {
@@ -18,7 +18,7 @@ export function tensionYieldD2a(g: DesignGeometry, c: AiscContext): Capacity {
     head: {
       family: 'tension', code: c.code, clause: 'D2(a)', title: 'tensile yielding',
       equation: `${factorWords(c.method, f, c.method === 'lrfd' ? 'φt·Pn' : 'Pn/Ωt', 'Fy·Ag')} (Eq. D2-1)`,
-      inputs: [inp('Fy', 'yield stress', c.Fy, 'stress'), inp('Ag', 'gross area', g.A, 'area'), inp('Pn', 'nominal tensile strength', Pn, 'force')],
+      inputs: [inp('Fy', 'yield stress', c.Fy, 'stress'), inp('Ag', 'gross area', g.A, 'area'), inp('Pn', 'nominal tensile strength', Pn, 'force'), factorInput(c.method, f, 't')],
       quantity: 'force',
     },
   };
@@ -66,7 +66,7 @@ export function tensionRuptureD2b(g: DesignGeometry, c: AiscContext, net: NetAre
     head: {
       family: 'tension', code: c.code, clause: 'D2(b)', title: 'tensile rupture',
       equation: `${factorWords(c.method, f, c.method === 'lrfd' ? 'φt·Pn' : 'Pn/Ωt', 'Fu·Ae')} (Eq. D2-2), ${words}`,
-      inputs: [...inputs, ...(assumed.length ? [inp('assumed', 'assumptions', assumed.join('; '), 'text')] : []), inp('Pn', 'nominal tensile strength', Pn, 'force')],
+      inputs: [...inputs, ...(assumed.length ? [inp('assumed', 'assumptions', assumed.join(', '), 'text')] : []), inp('Pn', 'nominal tensile strength', Pn, 'force'), factorInput(c.method, f, 't')],
       quantity: 'force',
       note: assumed.length ? `assumptions: ${assumed.join('; ')}` : undefined,
     },

@@ -93,6 +93,7 @@ export function ltbPlan(g: DesignGeometry, c: EnContext, bend: EnBending, Lcr: n
         + '; Mcr = C1·π²EIz/L²·√(Iw/Iz + L²GIt/(π²EIz)), k = kw = 1, load at the shear centre',
       inputs: [
         inp('Wy', `section modulus (${bend.cls <= 2 ? 'Wpl' : bend.cls === 3 ? 'Wel' : 'Weff'})`, bend.W, 'modulus'), inp('fy', 'yield strength', c.fy, 'stress'), inp('γM1', 'partial factor', c.gammaM1, 'ratio'),
+        inp('E', 'elastic modulus', c.E, 'stress'), inp('G', 'shear modulus', c.G, 'stress'),
         inp('L', 'unbraced length', Lcr, 'length'), inp('Iz', 'second moment, minor', g.Imin, 'inertia'), inp('Iw', 'warping constant', Iw, 'warping'), inp('It', 'torsion constant', g.J, 'inertia'),
         inp('curve', `LTB curve (${method === '6.3.2.3' ? 'Table 6.5' : 'Table 6.4'})`, curve, 'text'), inp('αLT', 'imperfection factor (Table 6.3)', ALPHA[curve], 'ratio'),
       ],
@@ -142,6 +143,7 @@ export function ltbHead(p: LtbPlan, C1: number, c1Source: string): RecordHead {
   return {
     ...p.head,
     inputs: [...p.head.inputs, inp('C1', `moment-diagram factor (${c1Source})`, C1, 'ratio'), inp('Mcr', 'elastic critical moment', r.Mcr, 'moment'),
-      inp('λ̄LT', 'non-dimensional slenderness', r.lam, 'ratio'), inp('χLT', 'reduction factor', r.chi, 'ratio')],
+      inp('λ̄LT', 'non-dimensional slenderness', r.lam, 'ratio'), inp('λ̄LT,0', 'plateau length', p.lambda0, 'ratio'), inp('β', 'β (6.3.2.3; 1 for 6.3.2.2)', p.beta, 'ratio'),
+      inp('ΦLT', '0.5[1 + αLT(λ̄LT − λ̄LT,0) + β·λ̄LT²]', 0.5 * (1 + p.alpha * (r.lam - p.lambda0) + p.beta * r.lam * r.lam), 'ratio'), inp('χLT', 'reduction factor', r.chi, 'ratio')],
   };
 }

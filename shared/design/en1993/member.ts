@@ -243,7 +243,14 @@ export function enPlan(g: DesignGeometry, cx: EnContext, m: MemberSetup): Member
   function bendRecord(id: string, combination: string, sf: StationForces, b: EnBending, v: Resistance, i: number, M: Float64Array, V: Float64Array): CheckRecord {
     const Vi = Math.abs(V[i]);
     const cap = Number.isNaN(b.Mc) ? NaN : Number.isNaN(v.capacity) ? b.Mc : momentWithShear(b, Vi, v.capacity);
-    const head = cap < b.Mc ? { ...b.head, clause: '6.2.8', note: `VEd = ${(Vi / 1e3).toPrecision(4)} kN > 0.5·Vpl,Rd: moment resistance reduced` } : b.head;
+    const rho = ((2 * Vi) / v.capacity - 1) ** 2;
+    const head = cap < b.Mc ? {
+      ...b.head, clause: '6.2.8', note: `VEd = ${(Vi / 1e3).toPrecision(4)} kN > 0.5·Vpl,Rd: moment resistance reduced`,
+      inputs: [...b.head.inputs, inp('VEd', 'shear force at this station', Vi, 'force'), inp('Vpl,Rd', 'plastic shear resistance (6.18)', v.capacity, 'force'),
+        inp('ρ', '(2VEd/Vpl,Rd − 1)² (6.29)', Math.min(1, rho), 'ratio'),
+        ...(b.iWeb ? [inp('Wpl,y', 'plastic modulus', b.Wpl, 'modulus'), inp('Aw', 'hw·tw', b.Aw, 'area'), inp('tw', 'web thickness', b.tw, 'section_dim')] : []),
+        inp('MV,Rd', 'reduced moment resistance', cap, 'moment')],
+    } : b.head;
     return rec(id, combination, head, cap, Math.abs(M[i]), sf.x[i]);
   }
 

@@ -12,7 +12,7 @@ import { enPlan } from '../../../shared/design/en1993/member.js';
 import { designGeometry } from '../../../shared/design/geometry.js';
 import type { CheckRecord } from '../../../shared/design/types.js';
 import { checksTable, detailsOf, toCsv } from '../../../shared/exports/index.js';
-import { close, FT, HEB200, KIP, KSI, MPA, stations, W14X90 } from '../design/helpers.js';
+import { close, FT, HEB200, IN, IPE300, KIP, KSI, MPA, stations, W14X90, W18X50 } from '../design/helpers.js';
 import { model } from '../design/model-helpers.js';
 
 /** `symbol=value unit; …` → symbol → { value, unit } (text values kept as text). */
@@ -96,6 +96,54 @@ describe('details column', () => {
       const NbRd = (chi * A * fy) / d.get('γM1')!.value / 1e3; // kN
       expect(close(NbRd, Number(row[col(t.header, 'capacity')]), 1e-5)).toBe(true);
     }
+  });
+
+  it('AISC D2(a), D2(b) with An and U, G2.1 and F2 in the inelastic LTB range recomputed from details alone (φtFyAg; φtFuUAn; φv·0.6FyAwCv1; Cb[Mp − (Mp − 0.7FySx)(Lb − Lp)/(Lr − Lp)] ≤ Mp; Eqs. D2-1, D2-2, D3-1, G2-1, F2-2)', () => {
+    const L = 12 * FT;
+    const g = designGeometry(W18X50());
+    const cx = aiscContext('lrfd', 29000 * KSI, 11200 * KSI, 50 * KSI, 65 * KSI);
+    const plan = aiscPlan(g, cx, { id: 'B1', length: L, truss: false, LcMajor: L, LcMinor: L, Lb: L, cantilever: false, net: { An: 12 * IN * IN, U: 0.9 }, netSource: 'member B1' });
+    // uniform load on a simple span with axial tension: M = wx(L − x)/2, V = w(L/2 − x)
+    const w = 3 * KIP / FT;
+    const recs = records(plan.records(stations(L, { N: () => 50 * KIP, M_major: (x) => (w * x * (L - x)) / 2, V_major: (x) => w * (L / 2 - x) }), 'U1'));
+    const t = checksTable(model([], [], [], [], { units: 'us', designCode: 'aisc360-lrfd' }), { members: [], records: recs });
+    const get = (clause: string) => {
+      const row = t.rows.find((r) => r[col(t.header, 'clause')] === clause)!;
+      return { d: parseDetails(String(row[col(t.header, 'details')])), capacity: Number(row[col(t.header, 'capacity')]) };
+    };
+    const a = get('D2(a)');
+    expect(close(a.d.get('φt')!.value * a.d.get('Fy')!.value * a.d.get('Ag')!.value, a.capacity, 1e-5)).toBe(true);
+    const b = get('D2(b)');
+    expect(close(b.d.get('φt')!.value * b.d.get('Fu')!.value * b.d.get('U')!.value * b.d.get('An')!.value, b.capacity, 1e-5)).toBe(true);
+    const v = get('G2.1(a)');
+    expect(close(v.d.get('φv')!.value * 0.6 * v.d.get('Fy')!.value * v.d.get('Aw')!.value * v.d.get('Cv1')!.value, v.capacity, 1e-5)).toBe(true);
+    const f = get('F2');
+    const Fy = f.d.get('Fy')!.value, Zx = f.d.get('Zx')!.value, Sx = f.d.get('Sx')!.value, Lb = f.d.get('Lb')!.value, Lp = f.d.get('Lp')!.value, Lr = f.d.get('Lr')!.value, Cb = f.d.get('Cb')!.value;
+    expect(Lb > Lp && Lb <= Lr).toBe(true);
+    const Mp = Fy * Zx;
+    const Mn = Math.min(Mp, Cb * (Mp - (Mp - 0.7 * Fy * Sx) * ((Lb - Lp) / (Lr - Lp)))) / 12; // kip-in → kip-ft
+    expect(close(f.d.get('φb')!.value * Mn, f.capacity, 1e-5)).toBe(true);
+  });
+
+  it('EN 6.3.2.3 IPE 300 S235, L = 5 m recomputed from details alone (Mcr = C1·π²EIz/L²·√(Iw/Iz + L²GIt/(π²EIz)), λ̄LT = √(Wy·fy/Mcr), ΦLT, χLT = 1/(ΦLT + √(ΦLT² − βλ̄LT²)) ≤ 1/λ̄LT², Mb,Rd = χLT·Wy·fy/γM1; 6.55–6.57)', () => {
+    const L = 5;
+    const cx = { E: 210e9, G: 80.77e9, fy: 235 * MPA, fu: 360 * MPA, gammaM0: 1, gammaM1: 1, gammaM2: 1.25, hotFinished: false };
+    const plan = enPlan(designGeometry(IPE300()), cx, { id: 'B', length: L, truss: false, LcMajor: L, LcMinor: L, Lb: L, cantilever: false });
+    const recs = records(plan.records(stations(L, { M_major: (x) => 50e3 * (1 - x / L) }), 'U1'));
+    const t = checksTable(model([], [], [], []), { members: [], records: recs });
+    const row = t.rows.find((r) => r[col(t.header, 'clause')] === '6.3.2.3')!;
+    const d = parseDetails(String(row[col(t.header, 'details')]));
+    const v = (k: string) => d.get(k)!.value;
+    // units: E, G MPa; Iz, It mm4; Iw mm6; L m; Wy mm3; fy MPa → N·mm
+    const E = v('E'), G = v('G'), Iz = v('Iz'), Iw = v('Iw'), It = v('It'), Lmm = v('L') * 1000;
+    const Mcr = v('C1') * (Math.PI ** 2 * E * Iz) / Lmm ** 2 * Math.sqrt(Iw / Iz + (Lmm ** 2 * G * It) / (Math.PI ** 2 * E * Iz)) / 1e6; // kNm
+    expect(close(Mcr, v('Mcr'), 1e-5)).toBe(true);
+    const lam = Math.sqrt((v('Wy') * v('fy')) / 1e6 / Mcr);
+    expect(close(lam, v('λ̄LT'), 1e-5)).toBe(true);
+    const Phi = 0.5 * (1 + v('αLT') * (lam - v('λ̄LT,0')) + v('β') * lam * lam);
+    const chi = Math.min(1, 1 / lam ** 2, 1 / (Phi + Math.sqrt(Phi * Phi - v('β') * lam * lam)));
+    expect(close(chi, v('χLT'), 1e-5)).toBe(true);
+    expect(close((chi * v('Wy') * v('fy')) / v('γM1') / 1e6, Number(row[col(t.header, 'capacity')]), 1e-5)).toBe(true);
   });
 
   it('a record about one axis keeps one row whose details list its inputs and the position x', () => {
