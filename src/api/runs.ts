@@ -1,6 +1,6 @@
 /** Run endpoints: one function per route (shared/schemas/runs.ts). Numbers are SI. */
 import type {
-  MemberDetail, Run, RunComparison, RunGeometry, RunMembers, RunSummary, StartRunInput,
+  MemberDetail, Run, RunComparison, RunGeometry, RunMembers, RunShape, RunSummary, ShapeKind, StartRunInput,
 } from '../../shared/schemas/runs.js';
 import { http } from './http.js';
 
@@ -39,4 +39,10 @@ export function getRunGeometry(id: number, loading?: string | null): Promise<Run
 /** GET /api/runs/compare?a=&b=. */
 export function compareRuns(a: number, b: number): Promise<RunComparison> {
   return http.get<RunComparison>(`/api/runs/compare?a=${a}&b=${b}`);
+}
+
+/** GET /api/runs/:id/shapes?kind=&index=[&loading=] — a natural mode shape or a buckled shape. */
+export function getRunShape(id: number, kind: ShapeKind, index: number, loading?: string | null): Promise<RunShape> {
+  const q = `kind=${kind}&index=${index}${loading ? `&loading=${encodeURIComponent(loading)}` : ''}`;
+  return http.get<RunShape>(`/api/runs/${id}/shapes?${q}`);
 }

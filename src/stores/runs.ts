@@ -2,7 +2,7 @@
 import { defineStore } from 'pinia';
 import { computed, ref, shallowRef } from 'vue';
 import * as runsApi from '../api/runs.js';
-import type { MemberDetail, Run, RunComparison, RunGeometry, RunMembers, RunSummary } from '../../shared/schemas/runs.js';
+import type { MemberDetail, Run, RunComparison, RunGeometry, RunMembers, RunShape, RunSummary, ShapeKind } from '../../shared/schemas/runs.js';
 import { errorMessage } from '../utils/format.js';
 
 export const POLL_MS = 400;
@@ -20,6 +20,9 @@ export const useRunsStore = defineStore('runs', () => {
   const detail = shallowRef<MemberDetail | null>(null);
   const geometry = shallowRef<RunGeometry | null>(null);
   const comparison = shallowRef<RunComparison | null>(null);
+  /** the mode or buckled shape the picture draws (null: none) */
+  const shape = shallowRef<RunShape | null>(null);
+  const shapeLoading = ref(false);
   const loading = ref(false);
   const starting = ref(false);
   const error = ref<string | null>(null);
@@ -149,6 +152,24 @@ export const useRunsStore = defineStore('runs', () => {
     }
   }
 
+  /** Loads one shape for the picture; null clears it. */
+  async function loadShape(runId: number, choice: { kind: ShapeKind; index: number; loading?: string | null } | null): Promise<void> {
+    if (!choice) {
+      shape.value = null;
+      return;
+    }
+    shapeLoading.value = true;
+    error.value = null;
+    try {
+      shape.value = await runsApi.getRunShape(runId, choice.kind, choice.index, choice.loading);
+    } catch (err) {
+      shape.value = null;
+      error.value = errorMessage(err);
+    } finally {
+      shapeLoading.value = false;
+    }
+  }
+
   async function compare(a: number, b: number): Promise<void> {
     loading.value = true;
     error.value = null;
@@ -162,7 +183,7 @@ export const useRunsStore = defineStore('runs', () => {
   }
 
   return {
-    history, current, members, detail, geometry, comparison, loading, starting, error, running,
-    loadHistory, loadMembers, watchRun, stopWatching, start, openLatest, openRun, loadDetail, loadGeometry, compare,
+    history, current, members, detail, geometry, comparison, shape, shapeLoading, loading, starting, error, running,
+    loadHistory, loadMembers, watchRun, stopWatching, start, openLatest, openRun, loadDetail, loadGeometry, loadShape, compare,
   };
 });
