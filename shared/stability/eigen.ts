@@ -3,20 +3,26 @@
  * factorised once with the project's sparse solver), B symmetric — the mass matrix
  * (semidefinite) for natural modes, or −K_G (indefinite) for elastic critical load factors.
  *
- * Method: subspace iteration with shift-invert on the factorisation of K (the operator
- * A = K⁻¹B, whose largest eigenvalues μ = 1/λ are the wanted ones) and Rayleigh–Ritz on the
- * small projected pair (Xᵀ B X, Xᵀ K X) after every block solve, dense (ml-matrix, symmetric).
- * Subspace size q = min(2n, n + 8) (the usual rule), capped by the problem size. No Sturm
- * sequence check; no dense solve of the whole matrix: per iteration one block solve of q
- * right-hand sides and one sparse product with B.
+ * Both methods work with shift-invert on the factorisation of K: the operator A = K⁻¹B, whose
+ * largest eigenvalues μ = 1/λ are the wanted ones, is self-adjoint in the K inner product
+ * (also when B is indefinite), so everything is K-orthonormal and the projected problems are
+ * small dense symmetric ones (ml-matrix). No Sturm sequence check; no dense solve of the whole
+ * matrix; per step one block solve and a few sparse products.
  *
- * Converged when every wanted eigenvalue μ changed by at most `tolerance` (relative, default
- * 1e-8) between two iterations; the residual ‖Kφ − λBφ‖ / ‖Kφ‖ of every pair is reported.
+ * - Block Lanczos (default): blocks of min(n, 3) vectors (a repeated eigenvalue up to that
+ *   multiplicity is found), full reorthogonalisation (twice), projected matrix H = Vᵀ B V.
+ *   A Ritz pair (θ, x) is converged when ‖A x − θ x‖_K ≤ 1e-6·|θ| (its eigenvalue error is
+ *   then of order 1e-12·|θ|); the basis holds at most 3n + 40 vectors, after which subspace
+ *   iteration continues from the best Ritz vectors. Lanczos converges at both ends of the
+ *   spectrum, so negative μ (B indefinite) do not hold back the positive ones.
+ * - Subspace iteration: q = min(2n, n + 8) vectors (the usual rule), Rayleigh–Ritz after every
+ *   block solve; converged when every wanted μ changed by at most 1e-8 (relative) between two
+ *   iterations. It finds the μ of largest magnitude, of either sign: a converged negative μ
+ *   that ranks above the wanted ones is locked (every later block is made K-orthogonal to it)
+ *   so that it leaves the subspace free for the wanted ones.
  *
- * B indefinite: subspace iteration finds the μ of largest magnitude, of either sign. Only
- * positive μ are wanted (λ > 0: a load factor in the direction of the loading); a negative μ
- * of larger magnitude that has converged is locked (deflated: every later block is made
- * K-orthogonal to it) so that it leaves the subspace free for the wanted ones.
+ * Only positive μ are wanted (λ > 0: for buckling, a load factor in the direction of the
+ * loading). The residual ‖Kφ − λBφ‖ / ‖Kφ‖ of every pair is reported.
  */
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { instabilityAt } from '../engine/instability.js';
@@ -25,11 +31,19 @@ import type { LinearSystem } from '../engine/system.js';
 import { type FactorOptions, type Factorisation, SingularMatrixError, type SymmetricCsc } from '../solver/types.js';
 
 export interface EigenOptions {
-  /** vectors in the subspace; default min(2n, n + 8), at most the size of the problem */
-  subspace?: number;
-  /** largest relative change of a wanted eigenvalue between two iterations; default 1e-8 */
+  /** default 'lanczos' (falls back on subspace iteration from its Ritz vectors if its basis fills up) */
+  method?: 'lanczos' | 'subspace';
+  /** Lanczos: Ritz residual ‖A x − θ x‖_K ≤ tolerance·|θ|; default 1e-6 (eigenvalue error of order its square) */
   tolerance?: number;
-  /** default 300 */
+  /** Lanczos: vectors per block; default min(n, 3) (repeated eigenvalues up to that multiplicity) */
+  block?: number;
+  /** Lanczos: largest basis; default 3n + 40 */
+  maxBasis?: number;
+  /** subspace iteration: vectors in the subspace; default min(2n, n + 8), at most the size of the problem */
+  subspace?: number;
+  /** subspace iteration: largest relative change of a wanted eigenvalue between two iterations; default 1e-8 */
+  subspaceTolerance?: number;
+  /** subspace iteration: default 300 */
   maxIterations?: number;
 }
 
@@ -46,6 +60,8 @@ export interface EigenResult {
   solves: number;
   /** unwanted (negative λ) pairs locked out of the subspace */
   locked: number;
+  /** which method gave the result */
+  method: 'lanczos' | 'subspace' | 'lanczos+subspace';
 }
 
 /** y = S x for a symmetric lower-CSC S and q vectors stored row by row (x[i*q + c]). */
@@ -81,33 +97,48 @@ export function symmetricProduct(S: SymmetricCsc, X: Float64Array, q: number): F
   return Y;
 }
 
+/** Rows per chunk of the dense block kernels (a chunk of every vector stays in cache). */
+const CHUNK = 1024;
+
 /** Aᵀ B for column-major n × qa and n × qb blocks: a qa × qb dense matrix (row-major). */
 function innerProducts(A: Float64Array, qa: number, B: Float64Array, qb: number, n: number): Float64Array {
   const out = new Float64Array(qa * qb);
-  for (let a = 0; a < qa; a++) {
-    const ao = a * n;
-    for (let b = 0; b < qb; b++) {
-      const bo = b * n;
-      let s = 0;
-      for (let i = 0; i < n; i++) s += A[ao + i] * B[bo + i];
-      out[a * qb + b] = s;
+  for (let i0 = 0; i0 < n; i0 += CHUNK) {
+    const i1 = Math.min(n, i0 + CHUNK);
+    for (let a = 0; a < qa; a++) {
+      const ao = a * n;
+      for (let b = 0; b < qb; b++) {
+        const bo = b * n;
+        let s = 0;
+        for (let i = i0; i < i1; i++) s += A[ao + i] * B[bo + i];
+        out[a * qb + b] += s;
+      }
     }
   }
   return out;
 }
 
+/** W −= X C for column-major n × q X, row-major q × r C and column-major n × r W. */
+function subtractProduct(W: Float64Array, X: Float64Array, q: number, C: Float64Array, r: number, n: number): void {
+  for (let i0 = 0; i0 < n; i0 += CHUNK) {
+    const i1 = Math.min(n, i0 + CHUNK);
+    for (let c = 0; c < r; c++) {
+      const wo = c * n;
+      for (let k = 0; k < q; k++) {
+        const z = C[k * r + c];
+        if (z === 0) continue;
+        const xo = k * n;
+        for (let i = i0; i < i1; i++) W[wo + i] -= z * X[xo + i];
+      }
+    }
+  }
+}
+
 /** X Z for a column-major n × q block X and a row-major q × r matrix Z: n × r, column-major. */
 function combine(X: Float64Array, q: number, Z: Float64Array, r: number, n: number): Float64Array {
   const out = new Float64Array(n * r);
-  for (let c = 0; c < r; c++) {
-    const oo = c * n;
-    for (let k = 0; k < q; k++) {
-      const z = Z[k * r + c];
-      if (z === 0) continue;
-      const xo = k * n;
-      for (let i = 0; i < n; i++) out[oo + i] += z * X[xo + i];
-    }
-  }
+  const neg = Z.map((v) => -v);
+  subtractProduct(out, X, q, neg, r, n);
   return out;
 }
 
@@ -175,14 +206,27 @@ export function lowestEigenpairs(
   const N = K.n;
   if (B.n !== N) throw new Error(`eigen: B is ${B.n}×${B.n} but K is ${N}×${N}`);
   if (!(Number.isInteger(n) && n >= 1)) throw new Error(`eigen: number of eigenpairs ${n} must be a positive integer`);
-  const empty = (): EigenResult => ({
-    values: new Float64Array(0), vectors: new Float64Array(0), residuals: new Float64Array(0),
-    iterations: 0, converged: true, solves: 0, locked: 0,
-  });
-  if (N === 0) return empty();
+  if (N === 0) {
+    return {
+      values: new Float64Array(0), vectors: new Float64Array(0), residuals: new Float64Array(0),
+      iterations: 0, converged: true, solves: 0, locked: 0, method: 'lanczos',
+    };
+  }
   n = Math.min(n, N);
+  if ((options.method ?? 'lanczos') === 'subspace') return subspaceIteration(fact, K, B, n, options);
+  const lz = blockLanczos(fact, K, B, n, options);
+  if (lz.converged) return lz;
+  // the basis filled up first: subspace iteration from the best Ritz vectors
+  const si = subspaceIteration(fact, K, B, n, options, lz.start);
+  return { ...si, iterations: lz.iterations + si.iterations, solves: lz.solves + si.solves, method: 'lanczos+subspace' };
+}
+
+function subspaceIteration(
+  fact: Factorisation, K: SymmetricCsc, B: SymmetricCsc, n: number, options: EigenOptions, start?: Float64Array,
+): EigenResult {
+  const N = K.n;
   const q = Math.min(N, Math.max(n, Math.floor(options.subspace ?? Math.min(2 * n, n + 8))));
-  const tol = options.tolerance ?? 1e-8;
+  const tol = options.subspaceTolerance ?? 1e-8;
   const maxIt = options.maxIterations ?? 300;
   const maxLocked = 4 * q + 2 * n;
 
@@ -203,6 +247,7 @@ export function lowestEigenpairs(
 
   let X: Float64Array = new Float64Array(N * q);
   randomFill(X, 0, N * q, 1);
+  if (start) X.set(start.subarray(0, Math.min(start.length, N * q)));
   let Y: Float64Array = symmetricProduct(B, X, q);
   let seed = 2;
   let prevPos: number[] = [], prevNeg: number[] = [];
@@ -270,31 +315,15 @@ export function lowestEigenpairs(
   }
 
   // the wanted pairs: positive μ, largest first → λ = 1/μ ascending
+  const muMax = Math.max(...Array.from(ritzMu, Math.abs));
   const picked: number[] = [];
-  for (let i = 0; i < ritzMu.length && picked.length < n; i++) if (ritzMu[i] > 1e-12 * Math.max(...Array.from(ritzMu, Math.abs))) picked.push(i);
+  for (let i = 0; i < ritzMu.length && picked.length < n; i++) if (ritzMu[i] > 1e-12 * muMax) picked.push(i);
   picked.sort((a, b) => ritzMu[b] - ritzMu[a]);
-  const m = picked.length;
-  const values = new Float64Array(m), vectors = new Float64Array(N * m), residuals = new Float64Array(m);
-  picked.forEach((c, k) => {
-    const mu = ritzMu[c];
-    values[k] = 1 / mu;
-    // φᵀ K φ = 1 from Rayleigh–Ritz, so φᵀ B φ = μ: scale to φᵀ B φ = 1
-    const f = 1 / Math.sqrt(mu);
-    for (let i = 0; i < N; i++) vectors[k * N + i] = X[c * N + i] * f;
-  });
-  if (m > 0) {
-    const KX = symmetricProduct(K, vectors, m), BX = symmetricProduct(B, vectors, m);
-    for (let k = 0; k < m; k++) {
-      let r2 = 0, k2 = 0;
-      for (let i = 0; i < N; i++) {
-        const kv = KX[k * N + i];
-        r2 += (kv - values[k] * BX[k * N + i]) ** 2;
-        k2 += kv * kv;
-      }
-      residuals[k] = Math.sqrt(r2 / Math.max(k2, 1e-300));
-    }
-  }
-  return { values, vectors, residuals, iterations, converged, solves, locked: lockedPhi.length };
+  const Xp = new Float64Array(N * picked.length);
+  picked.forEach((c, k) => Xp.set(X.subarray(c * N, (c + 1) * N), k * N));
+  return {
+    ...finish(K, B, Xp, picked.map((c) => ritzMu[c])), iterations, converged, solves, locked: lockedPhi.length, method: 'subspace',
+  };
 }
 
 /**
@@ -314,4 +343,152 @@ export function factoriseSystem(
     }
     throw err;
   }
+}
+
+/** K-normalised vectors X with their μ → λ = 1/μ, vectors scaled to φᵀBφ = 1, true residuals. */
+function finish(K: SymmetricCsc, B: SymmetricCsc, X: Float64Array, mu: number[]): { values: Float64Array; vectors: Float64Array; residuals: Float64Array } {
+  const N = K.n, m = mu.length;
+  const values = new Float64Array(m), vectors = new Float64Array(N * m), residuals = new Float64Array(m);
+  mu.forEach((u, k) => {
+    values[k] = 1 / u;
+    // φᵀ K φ = 1, so φᵀ B φ = μ: scale to φᵀ B φ = 1
+    const f = 1 / Math.sqrt(u);
+    for (let i = 0; i < N; i++) vectors[k * N + i] = X[k * N + i] * f;
+  });
+  if (m > 0) {
+    const KX = symmetricProduct(K, vectors, m), BX = symmetricProduct(B, vectors, m);
+    for (let k = 0; k < m; k++) {
+      let r2 = 0, k2 = 0;
+      for (let i = 0; i < N; i++) {
+        const kv = KX[k * N + i];
+        r2 += (kv - values[k] * BX[k * N + i]) ** 2;
+        k2 += kv * kv;
+      }
+      residuals[k] = Math.sqrt(r2 / Math.max(k2, 1e-300));
+    }
+  }
+  return { values, vectors, residuals };
+}
+
+/** Eigen-decomposition of a small symmetric matrix (row-major p × p): values and vectors (columns). */
+function symmetricEigen(G: Float64Array, p: number): { d: number[]; V: Matrix } {
+  const m = new Matrix(p, p);
+  for (let i = 0; i < p; i++) for (let j = 0; j < p; j++) m.set(i, j, 0.5 * (G[i * p + j] + G[j * p + i]));
+  const e = new EigenvalueDecomposition(m, { assumeSymmetric: true });
+  return { d: e.realEigenvalues, V: e.eigenvectorMatrix };
+}
+
+/**
+ * K-orthonormal basis of the block W (column-major N × p, K W given as KW): W U D^(-1/2) over the
+ * directions whose K-norm² exceeds `floor`; R = D^(1/2) Uᵀ (r × p, row-major) with W ≈ V R.
+ */
+function orthonormalise(W: Float64Array, KW: Float64Array, p: number, N: number, floor: number): { V: Float64Array; R: Float64Array; r: number } {
+  const { d, V: U } = symmetricEigen(innerProducts(W, p, KW, p, N), p);
+  const keep: number[] = [];
+  for (let i = 0; i < p; i++) if (d[i] > floor) keep.push(i);
+  const r = keep.length;
+  const T = new Float64Array(p * r), R = new Float64Array(r * p);
+  keep.forEach((k, c) => {
+    const s = Math.sqrt(d[k]);
+    for (let i = 0; i < p; i++) { T[i * r + c] = U.get(i, k) / s; R[c * p + i] = U.get(i, k) * s; }
+  });
+  return { V: combine(W, p, T, r, N), R, r };
+}
+
+/**
+ * Block Lanczos on A = K⁻¹B in the K inner product (A is self-adjoint there, also for an
+ * indefinite B), full reorthogonalisation (twice), blocks of `block` vectors. The projected
+ * matrix H = Vᵀ B V is small and dense; a Ritz pair (θ, V y) is converged when its residual
+ * ‖A x − θ x‖_K = ‖R y_last‖ ≤ tolerance·|θ|. Stops early when the Krylov space is exhausted.
+ */
+function blockLanczos(
+  fact: Factorisation, K: SymmetricCsc, B: SymmetricCsc, n: number, options: EigenOptions,
+): EigenResult & { start?: Float64Array } {
+  const N = K.n;
+  const p0 = Math.min(N, Math.max(1, Math.floor(options.block ?? Math.min(n, 3))));
+  const tol = options.tolerance ?? 1e-6;
+  const maxBasis = Math.min(N, Math.max(n + p0, Math.floor(options.maxBasis ?? 3 * n + 40)));
+  const blocks: Float64Array[] = [], sizes: number[] = [], offsets: number[] = [];
+  const H = new Float64Array(maxBasis * maxBasis);
+  let m = 0, solves = 0, iterations = 0;
+  // start: a deterministic random block, K-orthonormal
+  let W: Float64Array = new Float64Array(N * p0);
+  randomFill(W, 0, N * p0, 1);
+  let first = orthonormalise(W, symmetricProduct(K, W, p0), p0, N, 0);
+  let cur = first.V, pk = first.r;
+  let theta: number[] = [], Y: Matrix | null = null, wanted: number[] = [];
+  let converged = false;
+  while (pk > 0) {
+    iterations++;
+    blocks.push(cur); sizes.push(pk); offsets.push(m);
+    const off = m;
+    m += pk;
+    const Z = symmetricProduct(B, cur, pk);
+    W = fact.solve(Z, pk);
+    solves += pk;
+    let normBefore = 0;
+    for (let c = 0; c < pk; c++) {
+      let s = 0;
+      for (let i = 0; i < N; i++) s += W[c * N + i] * Z[c * N + i];
+      normBefore = Math.max(normBefore, Math.abs(s));
+    }
+    // first pass: the coefficients are the entries of H = Vᵀ B V (K W = Z)
+    for (let b = 0; b < blocks.length; b++) {
+      const C = innerProducts(blocks[b], sizes[b], Z, pk, N);
+      for (let i = 0; i < sizes[b]; i++) {
+        for (let j = 0; j < pk; j++) {
+          H[(offsets[b] + i) * maxBasis + off + j] = C[i * pk + j];
+          if (b < blocks.length - 1) H[(off + j) * maxBasis + offsets[b] + i] = C[i * pk + j];
+        }
+      }
+      subtractProduct(W, blocks[b], sizes[b], C, pk, N);
+    }
+    // second pass (rounding)
+    let KW = symmetricProduct(K, W, pk);
+    for (let b = 0; b < blocks.length; b++) subtractProduct(W, blocks[b], sizes[b], innerProducts(blocks[b], sizes[b], KW, pk, N), pk, N);
+    KW = symmetricProduct(K, W, pk);
+    const next = m < N ? orthonormalise(W, KW, pk, N, 1e-20 * normBefore) : { V: new Float64Array(0), R: new Float64Array(0), r: 0 };
+
+    // Ritz pairs of the basis so far
+    const Hm = new Float64Array(m * m);
+    for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) Hm[i * m + j] = H[i * maxBasis + j];
+    const e = symmetricEigen(Hm, m);
+    theta = e.d; Y = e.V;
+    const tMax = Math.max(1e-300, ...theta.map(Math.abs));
+    wanted = theta.map((_, i) => i).filter((i) => theta[i] > 1e-12 * tMax).sort((a, b) => theta[b] - theta[a]).slice(0, n);
+    const exhausted = next.r === 0;
+    const residualOk = wanted.every((i) => {
+      let r2 = 0;
+      for (let a = 0; a < next.r; a++) {
+        let s = 0;
+        for (let j = 0; j < pk; j++) s += next.R[a * pk + j] * Y!.get(off + j, i);
+        r2 += s * s;
+      }
+      return Math.sqrt(r2) <= tol * Math.abs(theta[i]);
+    });
+    if (exhausted || (wanted.length === n && residualOk)) { converged = true; break; }
+    if (m + next.r > maxBasis) break;
+    cur = next.V; pk = next.r;
+  }
+  // Ritz vectors x = V y (K-normalised)
+  const ritz = (cols: number[]): Float64Array => {
+    const X = new Float64Array(N * cols.length);
+    blocks.forEach((blk, b) => {
+      const C = new Float64Array(sizes[b] * cols.length);
+      for (let i = 0; i < sizes[b]; i++) cols.forEach((c, k) => { C[i * cols.length + k] = -Y!.get(offsets[b] + i, c); });
+      subtractProduct(X, blk, sizes[b], C, cols.length, N);
+    });
+    return X;
+  };
+  if (!converged) {
+    // start block for subspace iteration: the wanted Ritz vectors, then the others by |θ|
+    const q = Math.min(N, Math.max(n, Math.floor(options.subspace ?? Math.min(2 * n, n + 8))));
+    const rest = theta.map((_, i) => i).filter((i) => !wanted.includes(i)).sort((a, b) => Math.abs(theta[b]) - Math.abs(theta[a]));
+    const cols = [...wanted, ...rest].slice(0, q);
+    return {
+      values: new Float64Array(0), vectors: new Float64Array(0), residuals: new Float64Array(0),
+      iterations, converged, solves, locked: 0, method: 'lanczos', start: ritz(cols),
+    };
+  }
+  return { ...finish(K, B, ritz(wanted), wanted.map((i) => theta[i])), iterations, converged, solves, locked: 0, method: 'lanczos' };
 }

@@ -106,18 +106,21 @@ export function naturalModes(model: Model, n: number, options: ModesOptions = {}
 }
 
 /**
- * A mode on the user's nodes (× 6, ux…rz) scaled so that its largest translation is 1 (or its
- * largest rotation, when nothing translates), the largest component positive.
+ * A mode on the user's nodes (× 6, ux…rz), scaled so that its largest translation over the whole
+ * mesh (internal nodes of subdivided members included) is 1 — or its largest rotation, when
+ * nothing translates — with that component positive.
  */
 export function userShape(phi: ArrayLike<number>, eq: Int32Array, nUser: number): Float64Array {
-  const out = new Float64Array(nUser * 6);
-  for (let g = 0; g < out.length; g++) if (eq[g] >= 0) out[g] = phi[eq[g]];
-  let big = 0, at = -1;
-  for (let g = 0; g < out.length; g++) if (g % 6 < 3 && Math.abs(out[g]) > big) { big = Math.abs(out[g]); at = g; }
-  if (!(big > 0)) for (let g = 0; g < out.length; g++) if (Math.abs(out[g]) > big) { big = Math.abs(out[g]); at = g; }
-  if (big > 0) {
-    const f = (out[at] < 0 ? -1 : 1) / big;
-    for (let g = 0; g < out.length; g++) out[g] *= f;
+  let big = 0, sign = 1;
+  for (let pass = 0; pass < 2 && big === 0; pass++) {
+    for (let g = 0; g < eq.length; g++) {
+      if (eq[g] < 0 || (pass === 0 && g % 6 >= 3)) continue;
+      const v = phi[eq[g]];
+      if (Math.abs(v) > big) { big = Math.abs(v); sign = v < 0 ? -1 : 1; }
+    }
   }
+  const out = new Float64Array(nUser * 6);
+  const f = big > 0 ? sign / big : 0;
+  for (let g = 0; g < out.length; g++) if (eq[g] >= 0) out[g] = phi[eq[g]] * f;
   return out;
 }

@@ -36,10 +36,13 @@ describe('elastic critical load factors of single columns', () => {
   it('pinned–pinned: the second mode is 4π²EI/L² (within 0.5%) and the shapes are scaled to 1', () => {
     const [c] = criticalLoadFactors(column('ux uz', 'ux'), 2, { shapes: true });
     expect(relErr(c.alphaCr[1] * P, (4 * Math.PI ** 2 * EI) / L ** 2)).toBeLessThan(0.005);
-    // user nodes are the pinned ends: their translations are zero, so the shape is scaled on rotations
+    // scaled to a largest translation of 1 (at mid-height, an internal node): a half sine of amplitude 1
+    // turns by π/L at the pinned ends (ry at A and B); tolerance rel 0.5%
     expect(c.shapes).toHaveLength(2);
     const s = c.shapes![0];
-    expect(Math.max(...Array.from(s, Math.abs))).toBeCloseTo(1, 12);
+    expect(relErr(Math.abs(s[4]), Math.PI / L)).toBeLessThan(0.005);
+    expect(relErr(Math.abs(s[6 + 4]), Math.PI / L)).toBeLessThan(0.005);
+    expect(Math.abs(s[0]) + Math.abs(s[2])).toBeLessThan(1e-9); // the ends do not translate
   });
 
   it('fixed–free: the shape has its largest translation, 1, at the free top', () => {
