@@ -126,6 +126,12 @@ class DeformedAxis {
     this.startForces = f.slice(0, 6);
   }
 
+  /** v, w at the member's start and end (the end nodes' translations, local) */
+  endTranslations(): [number, number, number, number] {
+    const n = this.m.elementCount;
+    return [this.chordV[0], this.chordW[0], this.chordV[n], this.chordW[n]];
+  }
+
   private elementOf(x: number): number {
     const { mesh } = this.st;
     const m = this.m, n = m.elementCount;
@@ -202,8 +208,7 @@ export function secondOrderStations(st: SecondOrderState, mi: number, xs: Float6
   const f1 = axis.startForces;
   const ls = st.loadSet(mi) ?? EMPTY;
   const at = axis.evaluate(xs, true);
-  const ends = axis.evaluate([0, L], false);
-  const v0 = ends.v[0], w0 = ends.w[0], vL = ends.v[1], wL = ends.w[1];
+  const [v0, w0, vL, wL] = axis.endTranslations();
   // moments of the axial span loads about each station: Σ_{s<x} (w(s) − w(x))·Px + ∫₀ˣ (w(s) − w(x)) qx ds
   const axMaj = new Float64Array(nSt), axMin = new Float64Array(nSt);
   if (hasAxialLoad(ls)) axialLoadMoments(axis, ls, st.mesh, m, xs, at, axMaj, axMin);

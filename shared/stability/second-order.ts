@@ -524,6 +524,9 @@ function scaled(src: Float64Array, n: number, inv: number): Float64Array {
   return out;
 }
 
+/** second-order member results kept for asking again (member × loading) */
+const RECENT_MEMBER_FORCES = 256;
+
 function buildResult(
   model: Model, sys: LinearSystem, loadings: Loading[], U1: Float64Array<ArrayBuffer>, R1: Float64Array, solved: Map<number, Solved>,
   equilibrium: EquilibriumCheck[], timings: Record<string, number>, refac: Refactorisation | null,
@@ -546,6 +549,8 @@ function buildResult(
     return loadings[l];
   };
   const dispCache = new Map<number, Float64Array>(), reactCache = new Map<number, Float64Array>();
+  // the second-order station rows asked for last (design checks, exports and screens ask again)
+  const recent = new Map<number, Float64Array>();
   return {
     nodeIds: model.nodes.map((n) => n.id),
     memberIds: model.members.map((m) => m.id),
@@ -574,10 +579,18 @@ function buildResult(
       const ld = checkLoading(l), s = solved.get(l);
       if (!s) return firstOrder(mi, ld);
       const x = stationsOf(mi), nSt = x.length;
-      const rows = new Float64Array(ROWS * nSt);
-      secondOrderStations(s, mi, x, rows);
-      const inv = 1 / s.scale;
-      for (let i = 0; i < rows.length; i++) rows[i] *= inv;
+      const key = mi * loadings.length + l;
+      let cached = recent.get(key);
+      if (!cached) {
+        cached = new Float64Array(ROWS * nSt);
+        secondOrderStations(s, mi, x, cached);
+        const inv = 1 / s.scale;
+        for (let i = 0; i < cached.length; i++) cached[i] *= inv;
+        recent.set(key, cached);
+        if (recent.size > RECENT_MEMBER_FORCES) recent.delete(recent.keys().next().value!);
+      }
+      // fresh arrays on every call (callers may keep or change them)
+      const rows = cached.slice();
       const row = (r: number) => rows.subarray(r * nSt, (r + 1) * nSt);
       return {
         x: x.slice(), N: row(0), V_major: row(1), V_minor: row(2), T: row(3), M_major: row(4), M_minor: row(5), d_major: row(6), d_minor: row(7),
