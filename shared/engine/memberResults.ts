@@ -8,13 +8,11 @@
 import { vecToLocal12 } from './axes.js';
 import type { Mesh } from './discretise.js';
 import type { LoadSet } from './loadSet.js';
+import { STATIONS_MAX, STATIONS_MIN } from '../model/defaults.js';
 import type { Model } from '../model/types.js';
 import { caseStations, memberStations, ROWS } from './recovery.js';
 import { elementLocal } from './system.js';
 import type { Loading, StationForces } from './types.js';
-
-/** settings `stations`: allowed range (tables.md) */
-export const STATIONS_RANGE: readonly [number, number] = [3, 201];
 
 /**
  * The station set of every member, built on first use and kept: `settings.stations` equally
@@ -24,7 +22,7 @@ export const STATIONS_RANGE: readonly [number, number] = [3, 201];
  */
 export function stationSets(model: Model, mesh: Mesh, nCases: number, loadSets: (LoadSet | undefined)[]): (mi: number) => Float64Array {
   const count = model.settings.stations;
-  const [lo, hi] = STATIONS_RANGE;
+  const lo = STATIONS_MIN, hi = STATIONS_MAX;
   if (!(Number.isInteger(count) && count >= lo && count <= hi)) {
     throw new Error(`settings stations must be a whole number from ${lo} to ${hi} (got ${count})`);
   }

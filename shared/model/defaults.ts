@@ -22,6 +22,12 @@ export const SETTINGS_DEFAULTS: Omit<Settings, 'title'> = {
   stabilityWarning: true,
 };
 
+/** settings `stations`: allowed range, both ends included (tables.md) */
+export const STATIONS_MIN = 3;
+export const STATIONS_MAX = 201;
+/** settings `buckling_modes` and `modes`: our upper bound (more eigenpairs than a checker reads; each costs solves) */
+export const MODES_MAX = 50;
+
 /** Fill fields that older stored models lack; returns the same object. */
 export function withModelDefaults(model: Model): Model {
   model.settings = { ...SETTINGS_DEFAULTS, ...model.settings };

@@ -3,7 +3,7 @@ import {
   ANALYSIS_ORDERS, COMBINATION_RULES, DESIGN_CODES, type AnalysisOrder, type CombinationRule, type DesignCode, type Settings,
   type UnitSystem, type VerticalAxis,
 } from '../model/types.js';
-import { SETTINGS_DEFAULTS } from '../model/defaults.js';
+import { MODES_MAX, SETTINGS_DEFAULTS, STATIONS_MAX, STATIONS_MIN } from '../model/defaults.js';
 import { canonicalName, matchEnum } from './names.js';
 import type { Problems } from './problems.js';
 import { parseNumber, type RawTable } from './table.js';
@@ -25,12 +25,6 @@ const KEYS = [
 ] as const;
 export type SettingKey = (typeof KEYS)[number];
 type Key = SettingKey;
-
-/** Result stations per member, both ends included (tables.md "settings"). */
-export const STATIONS_MIN = 3;
-export const STATIONS_MAX = 201;
-/** Our bound on buckling_modes and modes: more eigenpairs than an engineer reads, at a cost that grows with each. */
-export const MODES_MAX = 50;
 
 /** Whole-number settings and their allowed ranges. */
 const INTEGER_RANGES: Partial<Record<Key, [number, number]>> = {
