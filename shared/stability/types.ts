@@ -13,7 +13,7 @@ export interface SecondOrderLoading {
   converged: boolean;
   /** largest change of an axial force in the last iteration, relative to the largest axial force */
   change: number;
-  /** ratio of the largest second-order to first-order node translation of this loading */
+  /** ratio of the largest second-order to first-order horizontal node translation (sway) of this loading */
   amplification?: number;
   /** what the code rules added (notional loads, sway imperfection), in words; empty when nothing */
   additions?: string;
