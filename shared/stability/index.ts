@@ -86,7 +86,17 @@ export function analyseModel(model: Model, options: AnalyseModelOptions = {}): M
   if (bucklingModes > 0 || warn || enReport) {
     const staticModel = model.movingLoads.length ? { ...model, movingLoads: [], vehicles: [], lanes: [] } : model;
     if (model.movingLoads.length) notes.push('critical load factors from the static loads only: the moving loads are not included');
-    critical = criticalLoadFactors(staticModel, Math.max(1, bucklingModes), { ...solverOptions(options), shapes: bucklingModes > 0 });
+    try {
+      critical = criticalLoadFactors(staticModel, Math.max(1, bucklingModes), { ...solverOptions(options), shapes: bucklingModes > 0 });
+    } catch (err) {
+      // asked for by the user: their error; only for the warning: the run goes on, saying it was not checked
+      if (bucklingModes > 0 || !warn) throw err;
+      const message = `stability not checked: the critical load factors could not be computed (${(err as Error).message}); `
+        + 'first-order forces may understate the sway effects — check αcr, or set analysis = second_order';
+      warnings = [{ loading: '', alphaCr: NaN, amplifier: NaN, reasons: [], message }];
+      return finish(model, analysis, analysed, notes, { analysis: s.analysis, method, ...extra, secondOrder, critical: [], modes: [], warnings }, modeCount, options);
+    }
+    notes.push('αcr: elastic critical load factors of (K + α·K_G(N))·φ = 0 with the unreduced stiffness and the first-order axial forces of each strength combination (no notional loads or imperfections)');
     if (warn) {
       warnings = stabilityWarnings(code, critical);
       method += code === 'en1993-1-1'
@@ -99,9 +109,13 @@ export function analyseModel(model: Model, options: AnalyseModelOptions = {}): M
     notes.push('stability warning turned off (stability_warning = off): first-order forces are used without checking αcr');
   }
 
-  const stability: StabilitySummary = {
-    analysis: s.analysis, method, ...extra, secondOrder, critical, modes: [], warnings,
-  };
+  return finish(model, analysis, analysed, notes, { analysis: s.analysis, method, ...extra, secondOrder, critical, modes: [], warnings }, modeCount, options);
+}
+
+/** Natural modes when asked for, then the result. */
+function finish(
+  model: Model, analysis: AnalysisResult, analysed: Model, notes: string[], stability: StabilitySummary, modeCount: number, options: AnalyseModelOptions,
+): ModelAnalysis {
   if (modeCount > 0) {
     const m = naturalModes(model, modeCount, solverOptions(options));
     stability.modes = m.modes;
