@@ -7,7 +7,7 @@ import { findProject } from '../projects/project.service.js';
 import { doneRun, loadingsOf, membersOf, nodeResultsOf, recordsOf, runMethod, runModel } from '../runs/run.service.js';
 import { runPool } from '../runs/worker-pool.js';
 import { toCsv, type ResultTable } from '../../shared/exports/index.js';
-import { checksExport, displacementsExport, reactionsExport, storedNodeResults, utilisationExport } from './tables.js';
+import { checksExport, displacementsExport, reactionsExport, storedNodeResults, storedNoiseFloor, utilisationExport } from './tables.js';
 import { toXlsx } from './xlsx.js';
 
 /** Member-force exports larger than this must name one loading. */
@@ -52,9 +52,12 @@ export async function exportRun(ds: DataSource, runId: number, kind: ExportKind,
     case 'displacements':
       table = displacementsExport(model, nodes());
       break;
-    case 'reactions':
-      table = reactionsExport(model, nodes());
+    case 'reactions': {
+      const { displacements, reactions } = nodeResultsOf(result);
+      const view = storedNodeResults(model, loadings, displacements, reactions, only);
+      table = reactionsExport(model, view, storedNoiseFloor(model, loadings, displacements, reactions));
       break;
+    }
     case 'forces': {
       const chosen = only ?? loadings.map((_, i) => i);
       const estimate = chosen.length * model.members.length * 11;

@@ -9,6 +9,7 @@ import type { AnalysisResult } from '../../shared/engine/types.js';
 import { checksTable, displacementTable, reactionTable, utilisationTable, type ResultTable } from '../../shared/exports/results.js';
 import type { Model } from '../../shared/model/types.js';
 import type { LoadingInfo } from '../../shared/schemas/runs.js';
+import { noiseFloor, type NoiseFloor } from '../../shared/design/noise.js';
 
 /** Just enough of AnalysisResult for the node tables, over stored loading-major arrays. */
 export function storedNodeResults(
@@ -45,6 +46,12 @@ export function displacementsExport(model: Model, nodes: AnalysisResult): Result
   return displacementTable(model, nodes);
 }
 
-export function reactionsExport(model: Model, nodes: AnalysisResult): ResultTable {
-  return reactionTable(model, nodes);
+/** `floor`: the noise floor over every loading of the run (shared/design/noise.ts), even when one loading is exported. */
+export function reactionsExport(model: Model, nodes: AnalysisResult, floor?: NoiseFloor): ResultTable {
+  return reactionTable(model, nodes, floor);
+}
+
+/** The run's noise floor from its stored reactions (every loading). */
+export function storedNoiseFloor(model: Model, loadings: LoadingInfo[], displacements: Float64Array, reactions: Float64Array): NoiseFloor {
+  return noiseFloor(model, storedNodeResults(model, loadings, displacements, reactions));
 }

@@ -70,9 +70,13 @@ export function displacementTable(model: Model, analysis: AnalysisResult): Resul
   return nodeTable('displacements', model, analysis, NODE_DISP, (l) => analysis.displacements(l), all);
 }
 
-/** Support reactions (supported nodes only) for every loading; numerical noise written as 0. */
-export function reactionTable(model: Model, analysis: AnalysisResult): ResultTable {
-  return nodeTable('reactions', model, analysis, NODE_REACT, (l) => analysis.reactions(l), [...analysis.supportedNodes].sort((a, b) => a - b), noiseFloor(model, analysis));
+/**
+ * Support reactions (supported nodes only) for every loading; numerical noise written as 0
+ * (floor over the analysis' loadings unless given, e.g. over every loading of a run when
+ * only one is exported).
+ */
+export function reactionTable(model: Model, analysis: AnalysisResult, floor: NoiseFloor = noiseFloor(model, analysis)): ResultTable {
+  return nodeTable('reactions', model, analysis, NODE_REACT, (l) => analysis.reactions(l), [...analysis.supportedNodes].sort((a, b) => a - b), floor);
 }
 
 const FORCE_COLS: [keyof Omit<import('../engine/types.js').StationForces, 'x'>, Quantity][] = [

@@ -112,6 +112,25 @@ describe('result tables', () => {
   });
 });
 
+describe('numerical noise in exports', () => {
+  it('writes reactions and member forces below 1e-9 of the largest reaction force as 0 (shared/design/noise.ts), and keeps the rest', () => {
+    const m = tinyModel('metric');
+    const a = fakeAnalysis();
+    const reac = new Float64Array(a.reactions(0));
+    reac[0] = 5e-6; // fx at A: 5e-10 of the 10 kN reaction → noise
+    reac[2] = 1e-3; // fz: 1e-7 of it → kept
+    const f = a.memberForces(0, 0);
+    const N = Float64Array.from([-2e-6, 0, 3]); // −2e-6 N is noise against 10 kN; 3 N is not
+    const noisy = { ...a, reactions: () => reac, memberForces: () => ({ ...f, N }) } as typeof a;
+    const r = reactionTable(m, noisy);
+    expect(r.rows[0][2]).toBe(0);
+    expect(r.rows[0][4]).toBeCloseTo(1e-6, 12); // kN
+    expect(r.rows[0][3]).toBeCloseTo(10, 12);
+    const mf = memberForceTable(m, noisy);
+    expect(mf.rows.slice(0, 3).map((row) => row[3])).toEqual([0, 0, 0.003]);
+  });
+});
+
 describe('CSV serialiser', () => {
   it('quotes commas, quotes and line breaks (RFC 4180)', () => {
     expect(csvCell('a,b')).toBe('"a,b"');
