@@ -126,6 +126,7 @@ function prepare(model: Model, analysis: AnalysisResult, only?: number): Context
   const plans = new Map<string, MemberPlan>();
   const geometries = new Map<string, DesignGeometry>();
   const prepared: Prepared[] = [];
+  const sectionNets = new Map(model.sections.map((q) => [q.id, q.net]));
   model.members.forEach((member, mi) => {
     if (only !== undefined && mi !== only) { prepared.push(null as unknown as Prepared); return; }
     const L = analysis.memberLength(mi);
@@ -135,8 +136,7 @@ function prepare(model: Model, analysis: AnalysisResult, only?: number): Context
     const cantilever = freeA !== freeB;
     const na = nodes.get(member.start), nb = nodes.get(member.end);
     const axis: [number, number, number] = na && nb && L > 0 ? [(nb.x - na.x) / L, (nb.y - na.y) / L, (nb.z - na.z) / L] : [1, 0, 0];
-    const sectionNet = model.sections.find((q) => q.id === member.section)?.net;
-    const { net, source: netSource } = memberNetArea(member.id, member.section, member.net, sectionNet);
+    const { net, source: netSource } = memberNetArea(member.id, member.section, member.net, sectionNets.get(member.section));
     const setup: MemberSetup = {
       id: member.id, length: L, truss: member.type === 'truss',
       LcMajor: member.kMajor * (member.lMajor ?? L), LcMinor: member.kMinor * (member.lMinor ?? L),
