@@ -186,3 +186,28 @@ describe('numerical noise', () => {
     expect(checkModel(m, a).members[0].warnings.join(' ')).toMatch(/no bracing defined/);
   });
 });
+
+describe('from the tables to the records (reader → engine → design)', () => {
+  it('An and U on a section, Ae on a member, lb = 0 and a given Av_major reach the checks', async () => {
+    const { readCsvFiles } = await import('../../../shared/reader/index.js');
+    const { analyse } = await import('../../../shared/engine/index.js');
+    const r = readCsvFiles([
+      { name: 'settings.csv', text: 'key,value\nunits,metric\ndesign_code,aisc360-lrfd\n' },
+      { name: 'nodes.csv', text: 'node,x,y\nA,0,0\nB,6,0\nC,12,0\n' },
+      { name: 'supports.csv', text: 'node,type\nA,pinned\nC,pinned\n' },
+      { name: 'sections.csv', text: 'section,shape,d,bf,tf,tw,r,An [mm2],U,Av_major [mm2]\nW,i,300,150,10.7,7.1,15,4000,0.85,2500\n' },
+      { name: 'members.csv', text: 'member,start,end,section,material,lb,Ae [mm2]\nM1,A,B,W,A992,0,\nM2,B,C,W,A992,,3000\n' },
+      { name: 'cases.csv', text: 'case,category\nD,dead\n' },
+      { name: 'node_loads.csv', text: 'case,node,fx,fy\nD,C,100,-20\n' },
+    ]);
+    if (!r.ok) throw new Error(JSON.stringify(r.problems));
+    const m = r.model;
+    const d = checkModel(m, analyse(m));
+    const rec = (member: string, clause: string) => d.records.find((q) => q.member === member && q.clause === clause)!;
+    // M1: section's An = 4000 mm², U = 0.85 → Ae = 3400 mm²; M2: member's Ae = 3000 mm² (member overrides section)
+    expect(close(Number(rec('M1', 'D2(b)').inputs.find((i) => i.symbol === 'Ae')!.value), 3400e-6, 1e-9)).toBe(true);
+    expect(close(Number(rec('M2', 'D2(b)').inputs.find((i) => i.symbol === 'Ae')!.value), 3000e-6, 1e-9)).toBe(true);
+    expect(rec('M1', 'F2').note).toMatch(/continuously braced/);
+    expect(close(Number(rec('M1', 'G2.1(a)').inputs.find((i) => i.symbol === 'Aw')!.value), 2500e-6, 1e-9)).toBe(true);
+  });
+});
