@@ -22,6 +22,7 @@ import { addElement, type Pattern } from '../engine/assembly.js';
 import type { Mesh } from '../engine/discretise.js';
 import { elementReleases } from '../engine/discretise.js';
 import { type EndReleases, localStiffness, toGlobalStiffness } from '../engine/element.js';
+import type { LoadSet } from '../engine/loadSet.js';
 
 const UNIT = { EA: 1, EIy: 1, EIz: 1, GJ: 1 };
 const NONE: EndReleases = { startMajor: false, startMinor: false, endMajor: false, endMinor: false };
@@ -139,13 +140,18 @@ export function assembleGeometricStiffness(
 }
 
 /**
- * Axial force of every element (tension positive; the mean of its two end values, so an
- * element under an axial span load carries its average) from full node displacements
- * `u` (nNodes × 6, global) and the element's fixed-end forces (local, may be undefined).
+ * Axial force of every element (tension positive) from full node displacements `u` (nNodes × 6,
+ * global) and the element's fixed-end forces (local, may be undefined): its mean along the
+ * element, N̄ = (1/h)∫N dx, so an element under an axial span load carries its average.
+ * Without `axialLoads` the mean of the two end values (exact for uniform axial loads); with the
+ * element's own load set (local, positions from the element start, as clipLoadSet gives) the
+ * exact mean, N̄ = −f1x − (1/h)·(Σ Px·(h − s) + ∫ (h − s)·qx ds) — which matters for a point load
+ * at a sub-element's start (it belongs wholly to that element).
  * `eaFactor[e]`, when given, multiplies the element's EA (reduced stiffness of a design method).
  */
 export function elementAxialForces(
   mesh: Mesh, u: ArrayLike<number>, fef?: (e: number) => ArrayLike<number> | undefined, eaFactor?: ArrayLike<number>,
+  axialLoads?: (e: number) => LoadSet | undefined,
 ): Float64Array {
   const out = new Float64Array(mesh.nElements);
   for (let e = 0; e < mesh.nElements; e++) {
@@ -154,8 +160,25 @@ export function elementAxialForces(
     const du = R[0] * (u[b] - u[a]) + R[1] * (u[b + 1] - u[a + 1]) + R[2] * (u[b + 2] - u[a + 2]);
     let N = ((eaFactor ? eaFactor[e] : 1) * mesh.elProps[e * 5] / mesh.elL[e]) * du;
     const f = fef?.(e);
-    if (f) N += (f[6] - f[0]) / 2;
+    const ls = f ? axialLoads?.(e) : undefined;
+    if (f && ls) N += meanFixedAxial(ls, f[0], mesh.elL[e]);
+    else if (f) N += (f[6] - f[0]) / 2;
     out[e] = N;
   }
   return out;
+}
+
+/** (1/h)∫₀ʰ N dx of the fixed-end state: N(x) = −f1x − Σ_{s<x} Px − ∫₀ˣ qx. */
+function meanFixedAxial(ls: LoadSet, f1x: number, h: number): number {
+  let m = 0;
+  for (let i = 0; i < ls.point.length; i += 4) m += ls.point[i + 1] * (h - ls.point[i]);
+  const d = ls.dist;
+  for (let i = 0; i < d.length; i += 8) {
+    const a = d[i], b = d[i + 1];
+    if (!(b > a)) continue;
+    // ∫ₐᵇ (h − s)(q1 + (q2 − q1)(s − a)/(b − a)) ds, exact by Simpson (quadratic integrand)
+    const qa = d[i + 2], qb = d[i + 5], mid = (a + b) / 2;
+    m += ((b - a) / 6) * ((h - a) * qa + 4 * (h - mid) * ((qa + qb) / 2) + (h - b) * qb);
+  }
+  return -f1x - m / h;
 }

@@ -190,7 +190,8 @@ class DeformedAxis {
   }
 }
 
-function hasAxialLoad(ls: LoadSet | undefined): boolean {
+/** Whether a load set has any load along the member axis. */
+export function hasAxialLoad(ls: LoadSet | undefined): boolean {
   if (!ls) return false;
   for (let i = 0; i < ls.dist.length; i += 8) if (ls.dist[i + 2] !== 0 || ls.dist[i + 5] !== 0) return true;
   for (let i = 0; i < ls.point.length; i += 4) if (ls.point[i + 1] !== 0) return true;

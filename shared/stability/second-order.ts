@@ -32,7 +32,7 @@ import { elementReleases, PLANE, SUPPORT } from '../engine/discretise.js';
 import { localStiffness, toGlobalStiffness, trussGlobalStiffness } from '../engine/element.js';
 import { appliedTotals, reactionTotals } from '../engine/equilibrium.js';
 import { instabilityAt } from '../engine/instability.js';
-import { emptyLoadSet, type LoadSet } from '../engine/loadSet.js';
+import { clipLoadSet, emptyLoadSet, type LoadSet } from '../engine/loadSet.js';
 import { memberResults, stationSets } from '../engine/memberResults.js';
 import { computeReactions } from '../engine/reactions.js';
 import { ROWS } from '../engine/recovery.js';
@@ -42,7 +42,7 @@ import type { EquilibriumCheck } from '../engine/types.js';
 import type { Model } from '../model/types.js';
 import { type FactorOptions, SingularMatrixError } from '../solver/types.js';
 import { assembleGeometricStiffness, elementAxialForces, localGeometricStiffness } from './geometric.js';
-import { type SecondOrderState, elementEndForces, secondOrderStations } from './p-delta.js';
+import { type SecondOrderState, elementEndForces, hasAxialLoad, secondOrderStations } from './p-delta.js';
 import { type NumericSolve, type Refactorisation, refactorisation } from './refactorisation.js';
 import { criticalFactor, instabilityMessage, SecondOrderInstabilityError } from './second-order-instability.js';
 import type { SecondOrderLoading } from './types.js';
@@ -345,8 +345,23 @@ function solveLoading(
     if (!lsCache.has(mi)) lsCache.set(mi, combineLoadSets(loadSets, nCases, mi, ld, scale));
     return lsCache.get(mi);
   };
+  // the element's own part of its member's loads, where they act along the member (exact mean N)
+  const partCache = new Map<number, LoadSet | null>();
+  const axialPart = (e: number): LoadSet | undefined => {
+    let p = partCache.get(e);
+    if (p === undefined) {
+      const mi = mesh.elMember[e], m = mesh.members[mi], ls = loadSet(mi);
+      p = null;
+      if (ls && hasAxialLoad(ls)) {
+        const x0 = mesh.elX0[e];
+        p = m.elementCount > 1 ? clipLoadSet(ls, x0, x0 + mesh.elL[e], e === m.firstElement + m.elementCount - 1) : ls;
+      }
+      partCache.set(e, p);
+    }
+    return p ?? undefined;
+  };
   const u1 = combineCases(U1, nDofAll, ld, scale);
-  let N = elementAxialForces(mesh, u1, fef);
+  let N = elementAxialForces(mesh, u1, fef, undefined, axialPart);
   const ea = new Float64Array(nEl).fill(1), ei = new Float64Array(nEl).fill(1);
   const KG = new Float64Array(pat.K.values.length), dK = new Float64Array(pat.K.values.length);
   const A = new Float64Array(pat.K.values.length);
@@ -379,7 +394,7 @@ function solveLoading(
     const X = fact.solve(rhs, 1);
     const un = new Float64Array(nDofAll);
     for (let g = 0; g < nDofAll; g++) un[g] = eq[g] >= 0 ? X[eq[g]] : pl ? pl[g] : 0;
-    const Nn = elementAxialForces(mesh, un, fef, rule ? ea : undefined);
+    const Nn = elementAxialForces(mesh, un, fef, rule ? ea : undefined, axialPart);
     let d = 0;
     for (let e = 0; e < nEl; e++) d = Math.max(d, Math.abs(Nn[e] - N[e]));
     const big = maxAbs(Nn);

@@ -5,8 +5,9 @@ import { factorise } from '../../../shared/solver/index.js';
 import { SingularMatrixError } from '../../../shared/solver/types.js';
 import type { Release } from '../../../shared/model/types.js';
 import {
-  assembleGeometricStiffness, elementGeometricGlobal, geometricScratch, localGeometricStiffness,
+  assembleGeometricStiffness, elementAxialForces, elementGeometricGlobal, geometricScratch, localGeometricStiffness,
 } from '../../../shared/stability/geometric.js';
+import { clipLoadSet } from '../../../shared/engine/loadSet.js';
 import { ModelBuilder, STEEL_E } from '../engine/builders.js';
 
 const ALL_RELEASES: EndReleases[] = [
@@ -137,5 +138,27 @@ describe('Euler loads from K + α K_G (8 sub-elements)', () => {
     // Rayleigh–Ritz with cubic shapes bounds from above; one element gives 12EI/L² (+21.6 %, closed form)
     expect(errs[0]).toBeCloseTo(12 / Math.PI ** 2 - 1, 4);
     for (let i = 1; i < errs.length; i++) { expect(errs[i]).toBeGreaterThan(0); expect(errs[i]).toBeLessThan(errs[i - 1]); }
+  });
+});
+
+describe('element axial forces', () => {
+  it('an axial point load at a sub-element node belongs wholly to the element that starts there (mean N by statics)', () => {
+    // column of 2 sub-elements, Z up, axial point load P down at mid-height (the start of the upper
+    // element); with u = 0 (the fixed state: the node at mid-height holds the load) no element
+    // carries it: N̄ = −f1x − (1/h)Σ Px (h − s) = 0 by statics of the element (closed form)
+    const P = 1000, L = 4;
+    const m = new ModelBuilder({ planeNormal: 'Y' }).node('A', 0, 0, 0).node('B', 0, 0, L).support('A', 'fixed')
+      .member('C', 'A', 'B').loadCase('D').memberLoad('D', 'C', 'point', 'global_z', -P, { a: L / 2 }).build();
+    const sys = buildSystem(m, 16, {}, 2);
+    const u = new Float64Array(sys.mesh.nNodes * 6);
+    const fef = (e: number) => sys.fefOf(e, 0);
+    const part = (e: number) => clipLoadSet(sys.loadSets[0]!, sys.mesh.elX0[e], sys.mesh.elX0[e] + sys.mesh.elL[e], e === 1);
+    const exact = elementAxialForces(sys.mesh, u, fef, undefined, part);
+    const ends = elementAxialForces(sys.mesh, u, fef);
+    // the element that starts at the load: the load sits at its start, so along it N = 0 (tolerance 1e-9·P)
+    const upper = 1;
+    expect(Math.abs(exact[upper])).toBeLessThanOrEqual(1e-9 * P);
+    // the mean of the end values would give half the load to it
+    expect(Math.abs(ends[upper])).toBeCloseTo(P / 2, 6);
   });
 });
