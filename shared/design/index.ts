@@ -184,10 +184,14 @@ function prepare(model: Model, analysis: AnalysisResult, only?: number): Context
   return { code, prepared, strength, service };
 }
 
-/** Largest slenderness K·L/r of a member over both axes (0 without geometry). */
-function slendernessOf(p: Prepared): number {
+/**
+ * Largest slenderness of a member over both axes (0 without geometry): K·L/r in
+ * compression (E2 user note), L/r in tension (D1 user note: unbraced lengths, no K).
+ */
+function slendernessOf(p: Prepared, tension = false): number {
   const g = p.geometry;
   if (!g || !(g.rmaj > 0) || !(g.rmin > 0)) return 0;
+  if (tension) return Math.max((p.member.lMajor ?? p.setup.length) / g.rmaj, (p.member.lMinor ?? p.setup.length) / g.rmin);
   return Math.max(p.setup.LcMajor / g.rmaj, p.setup.LcMinor / g.rmin);
 }
 
@@ -202,11 +206,12 @@ function hasTension(sf: StationForces): boolean {
 }
 
 /** The slenderness warning: compression limit if ever compressed, tension limit if ever in tension, else none. */
-function slendernessFor(p: Prepared, code: DesignCode, sl: number, compressionLoading: string | null, tensionLoading: string | null): CheckRecord | null {
+function slendernessFor(p: Prepared, code: DesignCode, compressionLoading: string | null, tensionLoading: string | null): CheckRecord | null {
+  const compression = compressionLoading !== null;
+  if (!compression && tensionLoading === null) return null;
+  const sl = slendernessOf(p, !compression);
   if (!(sl > 0)) return null;
-  if (compressionLoading !== null) return slendernessRecord(p.member.id, code, sl, true, compressionLoading);
-  if (tensionLoading !== null) return slendernessRecord(p.member.id, code, sl, false, tensionLoading);
-  return null;
+  return slendernessRecord(p.member.id, code, sl, compression, compression ? compressionLoading : tensionLoading!);
 }
 
 const MAX_SLOTS = 32;
@@ -288,7 +293,7 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
         }
       }
       // slenderness (warning only) and bracing warning
-      const rec = slendernessFor(p, ctx.code, slendernessOf(p), compression ? ids[compressionLoading] : null, tensionLoading >= 0 ? ids[tensionLoading] : null);
+      const rec = slendernessFor(p, ctx.code, compression ? ids[compressionLoading] : null, tensionLoading >= 0 ? ids[tensionLoading] : null);
       if (rec) {
         memberRecords.push(rec);
         if (rec.status === 'fail') warnings.push(rec.note ?? '');
@@ -417,7 +422,7 @@ function memberRecordsOf(model: Model, analysis: AnalysisResult, memberIndex: nu
   const sf = denoise(analysis.memberForces(memberIndex, loadingIndex), noiseFloor(model, analysis, [...ctx.strength, loadingIndex]));
   const out = p.plan.records(sf, loading.id, undefined, member.id).filter((r): r is CheckRecord => r !== null)
     .map((r) => (analysis.moving ? stampVehicle(analysis, memberIndex, loadingIndex, sf, r) : r));
-  const sl = slendernessFor(p, ctx.code, slendernessOf(p), hasCompression(sf) ? loading.id : null, hasTension(sf) ? loading.id : null);
+  const sl = slendernessFor(p, ctx.code, hasCompression(sf) ? loading.id : null, hasTension(sf) ? loading.id : null);
   if (sl) out.push(sl);
   return out;
 }

@@ -150,6 +150,13 @@ describe('tension slenderness warning only for members in tension', () => {
     expect(r.records.some((q) => q.family === 'slenderness')).toBe(false);
     expect(r.members[0].warnings.join(' ')).not.toMatch(/300/);
   });
+  it('in tension the slenderness is L/r without K (D1 user note): k = 2 does not change it; L/rz = 14/0.03350 = 417.9 (rtol 1e-3)', () => {
+    const mk = model([IPE300()], [member('B1', 'N1', 'N2', 'IPE300', { kMajor: 2, kMinor: 2 })], [['N1', 0, 0], ['N2', L, 0]], ['N1', 'N2'], { designCode: 'aisc360-lrfd' });
+    const r = checkModel(mk, analysis(mk, [loading('D', 'case', null)], () => stations(L, { N: () => 1e3 })));
+    const s = r.records.find((q) => q.family === 'slenderness')!;
+    expect(s.inputs[0].symbol).toBe('L/r');
+    expect(close(s.demand!, L / Math.sqrt(603.8e4 / 5381 * 1e-6), 1e-3)).toBe(true);
+  });
   it('a member in tension in some loading gets the 300 warning (D1 user note)', () => {
     const r = checkModel(m, analysis(m, [loading('D', 'case', null)], () => stations(L, { N: () => 1e3 })));
     expect(r.members[0].warnings.join(' ')).toMatch(/exceeds the recommended 300/);
