@@ -32,7 +32,7 @@ import type { StationForces } from '../../../shared/engine/types.js';
 import { catalogueSection } from '../../../shared/sections/index.js';
 import { sectionProperties } from '../../../shared/sections/properties.js';
 import type { Section, SectionDims, ShapeKind } from '../../../shared/model/types.js';
-import { HEA300, HEB200, IPE300, KSI, MPA, W18X50 } from './helpers.js';
+import { HEA300, HEB200, IPE300, KSI, MPA, section, W18X50 } from './helpers.js';
 
 const L = 5;
 const dimensioned = (id: string, shape: ShapeKind, dims: SectionDims): Section => ({ id, shape, dims, props: sectionProperties(shape, dims), given: [] });
@@ -44,6 +44,8 @@ const SECTIONS: Section[] = [
   dimensioned('RHS', 'rhs', { h: 0.2, b: 0.1, t: 0.008 }),
   dimensioned('CHS', 'chs', { D: 0.1683, t: 0.0071 }),
   dimensioned('BAR', 'rect', { h: 0.1, b: 0.03 }),
+  // welded I 1000×300×15×6: class 4 web (EN effective section, AISC slender web F5 / E7)
+  section('i', { d: 1000, bf: 300, tf: 15, tw: 6 }, { A: 14820, I_major: 2.6395115e9, I_minor: 6.752e7, J: 7.4e5, Cw: 1.6e13, S_major: 5.279023e6, S_minor: 4.5e5, Z_major: 6.0e6, Z_minor: 6.9e5 }, 0.001, 'W1000'),
 ];
 const aisc = aiscContext('lrfd', 29000 * KSI, 11200 * KSI, 50 * KSI, 65 * KSI);
 const en: EnContext = { E: 210e9, G: 80.77e9, fy: 355 * MPA, fu: 490 * MPA, gammaM0: 1, gammaM1: 1, gammaM2: 1.25, hotFinished: false };
