@@ -85,7 +85,7 @@ class DeformedAxis {
   private readonly infos: MemberInfo[];
   readonly startForces: Float64Array;
 
-  constructor(private readonly st: SecondOrderState, private readonly mi: number) {
+  constructor(private readonly st: SecondOrderState, mi: number) {
     const { mesh, u } = st;
     const m = (this.m = mesh.members[mi]);
     const n = m.elementCount;

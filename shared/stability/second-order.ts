@@ -27,7 +27,7 @@
  */
 import { type AnalysisResult, type Loading, type StationForces } from '../engine/index.js';
 import { addElement, type Pattern } from '../engine/assembly.js';
-import { toGlobal3, vecToGlobal12 } from '../engine/axes.js';
+import { vecToGlobal12 } from '../engine/axes.js';
 import { elementReleases, PLANE, SUPPORT } from '../engine/discretise.js';
 import { localStiffness, toGlobalStiffness, trussGlobalStiffness } from '../engine/element.js';
 import { appliedTotals, reactionTotals } from '../engine/equilibrium.js';
@@ -154,8 +154,8 @@ export function analyseSecondOrder(model: Model, options: SecondOrderOptions = {
   const timings: Record<string, number> = {};
   const sw = new Stopwatch(timings, options.clock);
   const sys = buildSystem(model, opt.taperSegments, sw, opt.subdivisions);
-  const { mesh, nCases, loadSets, eq, nEq, eqDof, pat, F, presc, fefOf, nodeIndex, caseIndex } = sys;
-  const nDofAll = mesh.nNodes * 6, nUser = mesh.nUserNodes;
+  const { mesh, nCases, loadSets, eq, nEq, eqDof, pat, F, presc, nodeIndex, caseIndex } = sys;
+  const nDofAll = mesh.nNodes * 6;
   const loadings = modelLoadings(model, caseIndex);
 
   const wanted = options.secondOrderLoadings ?? (model.combinations.length > 0 ? model.combinations.map((c) => c.id) : model.cases.map((c) => c.id));
