@@ -225,6 +225,25 @@ describe('options and contract', () => {
     }
   });
 
+  it('reports iterations and convergence: the sway portal converges in a few iterations, one iteration is not enough', () => {
+    // the overturning part of the column axial forces grows with the sway, so N changes between iterations
+    const h = 4, b = 4, P = 2e6, H = 200e3;
+    const model = new ModelBuilder({ planeNormal: 'Y' })
+      .node('A', 0, 0, 0).node('B', b, 0, 0).node('C', 0, 0, h).node('D', b, 0, h)
+      .support('A', 'fixed').support('B', 'fixed')
+      .member('C1', 'A', 'C').member('C2', 'B', 'D').member('BM', 'C', 'D')
+      .loadCase('D').nodeLoad('D', 'C', { fz: -P, fx: H }).nodeLoad('D', 'D', { fz: -P }).build();
+    const full = analyseSecondOrder(model).loadings[0];
+    expect(full.converged).toBe(true);
+    expect(full.change).toBeLessThanOrEqual(SECOND_ORDER_DEFAULTS.tolerance);
+    expect(full.iterations).toBeGreaterThanOrEqual(2);
+    expect(full.iterations).toBeLessThanOrEqual(6);
+    const one = analyseSecondOrder(model, { maxIterations: 1 }).loadings[0];
+    expect(one.converged).toBe(false);
+    expect(one.iterations).toBe(1);
+    expect(one.change).toBeGreaterThan(SECOND_ORDER_DEFAULTS.tolerance);
+  });
+
   it('refuses moving loads with a message', () => {
     const m = cantileverColumn(L, 1e3, 1e3);
     expect(() => analyseSecondOrder({ ...m, movingLoads: [{} as never] })).toThrow(MOVING_LOADS_REFUSED);
