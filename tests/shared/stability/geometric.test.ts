@@ -8,6 +8,7 @@ import {
   assembleGeometricStiffness, elementAxialForces, elementGeometricGlobal, geometricScratch, localGeometricStiffness,
 } from '../../../shared/stability/geometric.js';
 import { clipLoadSet } from '../../../shared/engine/loadSet.js';
+import { SECOND_ORDER_DEFAULTS } from '../../../shared/stability/second-order.js';
 import { ModelBuilder, STEEL_E } from '../engine/builders.js';
 
 const ALL_RELEASES: EndReleases[] = [
@@ -126,9 +127,11 @@ describe('Euler loads from K + α K_G (8 sub-elements)', () => {
     ['fixed–fixed (top slides vertically)', column('fixed', 'ux uy ry'), 4 * pe],
   ];
   for (const [name, model, exact] of cases) {
-    it(`${name}: within 0.5 %`, () => {
-      const p = eulerLoad(model, 8);
-      expect(Math.abs(p - exact) / exact).toBeLessThan(0.005);
+    it(`${name}: within 0.5 % (8 sub-elements, and the second-order default ${SECOND_ORDER_DEFAULTS.subdivisions})`, () => {
+      for (const n of [8, SECOND_ORDER_DEFAULTS.subdivisions]) {
+        const p = eulerLoad(model, n);
+        expect(Math.abs(p - exact) / exact).toBeLessThan(0.005);
+      }
     });
   }
 
