@@ -83,7 +83,7 @@ export function designGeometry(section: Section): DesignGeometry {
     D: dm.D ?? 0,
     hw, ho, rolled,
     hasDims: section.shape !== 'custom',
-    AvGivenMajor: section.given.includes('Av_major') ? p.Av_major : NaN,
-    AvGivenMinor: section.given.includes('Av_minor') ? p.Av_minor : NaN,
+    AvGivenMajor: section.given?.includes('Av_major') ? p.Av_major : NaN,
+    AvGivenMinor: section.given?.includes('Av_minor') ? p.Av_minor : NaN,
   };
 }

@@ -46,8 +46,16 @@ function words(cx: AiscContext, f: AiscFactor): string {
 }
 
 /** Shear along the web (local z). Lv: distance from maximum to zero shear for G5 (m). */
+/** A given shear area that is not positive cannot be used: the reason, or null. */
+function badGiven(g: DesignGeometry, family: 'shear_major' | 'shear_minor'): string | null {
+  const av = givenAv(g, family);
+  return Number.isNaN(av) || av > 0 ? null : `${family === 'shear_major' ? 'Av_major' : 'Av_minor'} given = ${av} is not positive: shear not evaluated`;
+}
+
 export function shearMajor(g: DesignGeometry, cx: AiscContext, Lv: number): Capacity {
   const { E, Fy } = cx;
+  const bad = badGiven(g, 'shear_major');
+  if (bad) return { capacity: NaN, head: notCheckedHead('shear_major', cx.code, 'G', 'shear', bad) };
   if (g.shape === 'i' || g.shape === 'channel') {
     const hTw = g.hw / g.tw;
     const given = !Number.isNaN(g.AvGivenMajor);
@@ -76,6 +84,8 @@ export function shearMajor(g: DesignGeometry, cx: AiscContext, Lv: number): Capa
 /** Shear along local y (parallel to the flanges). */
 export function shearMinor(g: DesignGeometry, cx: AiscContext, Lv: number): Capacity {
   const { E, Fy } = cx;
+  const bad = badGiven(g, 'shear_minor');
+  if (bad) return { capacity: NaN, head: notCheckedHead('shear_minor', cx.code, 'G', 'shear, minor axis', bad) };
   if (g.shape === 'i' || g.shape === 'channel') {
     const b = g.shape === 'i' ? g.bf / 2 : g.bf;
     const f = AISC_FACTORS.shear;

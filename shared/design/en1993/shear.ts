@@ -49,6 +49,7 @@ export function shearResistance(g: DesignGeometry, c: EnContext, axis: 'major' |
   const title = axis === 'major' ? 'shear, load parallel to web' : 'shear, load parallel to flanges';
   const givenAv = axis === 'major' ? g.AvGivenMajor : g.AvGivenMinor;
   const given = !Number.isNaN(givenAv);
+  if (given && !(givenAv > 0)) return { capacity: NaN, head: notCheckedHead(family, 'en1993-1-1', '6.2.6', title, `${axis === 'major' ? 'Av_major' : 'Av_minor'} given = ${givenAv} is not positive: shear not evaluated`) };
   const rule = g.hasDims ? shearArea(g, axis) : null;
   const av = rule && given ? { Av: givenAv, rule: `Av given in sections (in place of ${rule.rule})` } : rule;
   if (!av) {

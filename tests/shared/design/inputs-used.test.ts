@@ -135,6 +135,10 @@ describe('shear areas given in sections', () => {
     expect(close(r.capacity / 1e3, (3000 * 235) / Math.sqrt(3) / 1e3, 1e-9)).toBe(true);
     expect(r.head.note).toMatch(/given/);
   });
+  it('a given Av that is not positive is refused (not checked with the reason), never used as zero', () => {
+    expect(Number.isNaN(shearMajor(designGeometry(withAv(W18X50(), 0)), lrfd, 6).capacity)).toBe(true);
+    expect(shearResistance(designGeometry(withAv(IPE300(), undefined, -1e-4)), S235, 'minor').head.note).toMatch(/not positive/);
+  });
   it('a shape without a shear rule refuses the given Av with the reason (never read and ignored)', () => {
     const custom: Section = { id: 'C', shape: 'custom', dims: {}, props: { ...IPE300().props, Av_major: 2e-3 }, given: ['Av_major'] };
     expect(shearMajor(designGeometry(custom), lrfd, 6).head.note).toMatch(/Av_major is therefore not used/);
