@@ -13,7 +13,7 @@ import { RUN_PHASES, type LoadingInfo, type RunPhase, type RunStability } from '
 import { withModelDefaults } from '../../shared/model/defaults.js';
 import type { AnalyseOptions } from '../../shared/engine/index.js';
 import { factorise as factoriseSystem } from '../../shared/engine/solverBridge.js';
-import { checkModel, type DesignOptions } from '../../shared/design/index.js';
+import { checkMember, checkModel, type DesignOptions } from '../../shared/design/index.js';
 import { analyseModel, type StabilitySummary } from '../../shared/stability/index.js';
 import { packShapes, stabilityToJson } from './stability-codec.js';
 
@@ -43,6 +43,12 @@ export interface Analysed {
   model: Model;
   analysis: AnalysisResult;
   stability: StabilitySummary;
+}
+
+/** One member's records with the stability summary (the method, its warning) as the run had them. */
+export function checkMemberWithStability(model: Model, analysis: AnalysisResult, member: number, loading: number, stability: StabilitySummary): CheckRecord[] {
+  const check = checkMember as (m: Model, a: AnalysisResult, i: number, l: number, o?: { stability?: StabilitySummary }) => CheckRecord[];
+  return check(model, analysis, member, loading, { stability });
 }
 
 /**
@@ -233,9 +239,13 @@ function packedShapes(stability: StabilitySummary): Uint8Array {
 
 /**
  * Analysis only (member detail and force exports when the worker no longer holds it): the
- * same analysis as the run (first or second order), so the diagrams are the run's.
+ * same analysis as the run (first or second order, the same code rules and αcr), so the
+ * diagrams and records are the run's.
  */
 export function analyseOnly(modelJson: string, designCode: DesignCode): Analysed {
-  const { analysis, stability, model } = analyseModel(readRunModel(modelJson, designCode));
+  const input = readRunModel(modelJson, designCode);
+  // natural modes change neither forces nor checks: skip them here (the run kept them)
+  input.settings = { ...input.settings, modes: 0 };
+  const { analysis, stability, model } = analyseModel(input);
   return { model, analysis, stability };
 }

@@ -1,11 +1,10 @@
 /** What a worker does for each task; kept apart from the thread plumbing so tests can call it. */
 import { memberMovingDetail } from '../../shared/moving/detail.js';
 import type { AnalysisResult, StationForces } from '../../shared/engine/types.js';
-import { checkMember } from '../../shared/design/index.js';
 import { checksTable, memberForceTable } from '../../shared/exports/results.js';
 import type { Model } from '../../shared/model/types.js';
 import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
-import { analyseOnly, checkWithStability, computeRun, packRun, type Analysed } from './run-compute.js';
+import { analyseOnly, checkMemberWithStability, checkWithStability, computeRun, packRun, type Analysed } from './run-compute.js';
 import type { ChecksTask, ForcesTask, ForcesTaskResult, MemberTask, MemberTaskResult, ReadTask, WorkerTask } from './worker-protocol.js';
 import type { ReadResult } from '../../shared/model/types.js';
 import { readCsvFiles, readWorkbook } from '../../shared/reader/index.js';
@@ -62,12 +61,12 @@ export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => vo
       return packRun(output);
     }
     case 'member': {
-      const { model, analysis } = analysedFor(task);
+      const { model, analysis, stability } = analysedFor(task);
       const result: MemberTaskResult = {
         stations: stationsJson(analysis.memberForces(task.member, task.loading)),
-        governingRecords: task.governing >= 0 ? checkMember(model, analysis, task.member, task.governing) : [],
+        governingRecords: task.governing >= 0 ? checkMemberWithStability(model, analysis, task.member, task.governing, stability) : [],
         loadingRecords:
-          analysis.loadings[task.loading]?.kind === 'combination' ? checkMember(model, analysis, task.member, task.loading) : [],
+          analysis.loadings[task.loading]?.kind === 'combination' ? checkMemberWithStability(model, analysis, task.member, task.loading, stability) : [],
         ...(analysis.moving ? {
           moving: memberMovingDetail(analysis, task.member, model.members[task.member].type === 'truss',
             model.movingLoads.map((ml, j) => ({ movingLoad: j, vehicle: ml.vehicle, lane: ml.lane }))),

@@ -207,6 +207,10 @@ export const checkRecordSchema = z.object({
   note: z.string().optional(),
   vehiclePosition: z.number().optional(),
   envelope: z.enum(['max', 'min']).optional(),
+  /** the analysis the forces come from (the method in words) */
+  analysis: z.string().optional(),
+  /** first-order stability warning of a combination in which this member is in compression */
+  stability: z.string().optional(),
 });
 export type CheckRecordJson = z.infer<typeof checkRecordSchema>;
 
