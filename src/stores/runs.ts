@@ -4,6 +4,7 @@ import { computed, ref, shallowRef } from 'vue';
 import * as runsApi from '../api/runs.js';
 import type { MemberDetail, Run, RunComparison, RunGeometry, RunMembers, RunShape, RunSummary, ShapeKind } from '../../shared/schemas/runs.js';
 import { errorMessage } from '../utils/format.js';
+import { runFailureMessage } from '../utils/runFormat.js';
 
 export const POLL_MS = 400;
 
@@ -68,7 +69,7 @@ export const useRunsStore = defineStore('runs', () => {
           return;
         }
         pollTimer = null;
-        if (run.status === 'failed') error.value = `The run failed: ${run.message || 'no reason given'}`;
+        if (run.status === 'failed') error.value = runFailureMessage(run.message);
         else await loadMembers(run.id);
         await loadHistory(run.modelId);
       } catch (err) {

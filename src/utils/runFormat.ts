@@ -33,3 +33,10 @@ export function formatDuration(ms: number | null | undefined): string {
   const min = Math.floor(ms / 60_000);
   return `${min} min ${Math.round((ms - min * 60_000) / 1000)} s`;
 }
+
+/** What the screen says about a failed run: the server's message (which already says the run failed), or a plain fallback. */
+export function runFailureMessage(message: string | null | undefined): string {
+  const m = (message ?? '').trim();
+  if (!m) return 'The run failed: no reason given';
+  return /^the run failed\b/i.test(m) ? m : `The run failed: ${m}`;
+}

@@ -104,3 +104,14 @@ describe('shapes for the picture', () => {
     expect(swingFactor(1200, 1600)).toBeCloseTo(-1, 12);
   });
 });
+
+describe('a failed run on screen', () => {
+  it('shows the analysis message once, without doubling "The run failed"', async () => {
+    const { runFailureMessage } = await import('../../src/utils/runFormat.js');
+    expect(runFailureMessage('The run failed: combination ULS-3 is not stable at this load level: αcr = 0.83')).toBe(
+      'The run failed: combination ULS-3 is not stable at this load level: αcr = 0.83',
+    );
+    expect(runFailureMessage('Interrupted by a server restart; start the run again')).toBe('The run failed: Interrupted by a server restart; start the run again');
+    expect(runFailureMessage('')).toBe('The run failed: no reason given');
+  });
+});
