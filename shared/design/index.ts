@@ -24,7 +24,7 @@ import { notChecked } from './record.js';
 import { cantileverTip, chordDeflection, deflectionRecord } from './deflection.js';
 import { slendernessRecord } from './slenderness.js';
 import { memberNetArea } from './net-area.js';
-import { denoise, noiseFloor } from './noise.js';
+import { denoise, noiseCleaner, noiseFloor } from './noise.js';
 
 export type { DesignResult } from './types.js';
 export { generateCombinations } from './combinations.js';
@@ -221,8 +221,7 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
   const ctx = prepare(model, analysis);
   const strength = options.strengthLoadings ?? ctx.strength;
   const service = options.serviceLoadings ?? ctx.service;
-  const floor = noiseFloor(model, analysis, strength);
-  let scratch: StationForces | undefined;
+  const clean = noiseCleaner(noiseFloor(model, analysis, strength));
   const ids = analysis.loadings.map((l) => l.id);
   const stability = options.stability;
   const warned = new Map<string, StabilityWarning>((stability?.warnings ?? []).map((w) => [w.loading, w]));
@@ -260,7 +259,7 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
       let tensionLoading = -1;
       for (let k = 0; k < strength.length; k++) {
         const li = strength[k];
-        const sf = scratch = denoise(analysis.memberForces(mi, li), floor, scratch);
+        const sf = clean(analysis.memberForces(mi, li));
         plan.evaluate(sf, ratio, xo);
         evaluations++;
         for (let s = 0; s < n; s++) {
@@ -283,7 +282,7 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
         const li = pick[s];
         if (li < 0) continue;
         for (let t = 0; t < n; t++) want[t] = pick[t] === li ? 1 : 0;
-        const sfl = scratch = denoise(analysis.memberForces(mi, li), floor, scratch);
+        const sfl = clean(analysis.memberForces(mi, li));
         const recs = plan.records(sfl, ids[li], want, p.member.id);
         for (let t = 0; t < n; t++) {
           if (pick[t] !== li) continue;

@@ -56,21 +56,28 @@ export function clean(v: number, floor: number): number {
   return v < floor && v > -floor ? 0 : v;
 }
 
+/** Whether some value is noise (non-zero and below the floor). */
+function noisy(v: Float64Array, floor: number): boolean {
+  for (let i = 0; i < v.length; i++) { const a = v[i]; if (a !== 0 && a < floor && a > -floor) return true; }
+  return false;
+}
+
 function cleanInto(src: Float64Array, dst: Float64Array, floor: number): void {
   for (let i = 0; i < src.length; i++) { const v = src[i]; dst[i] = v < floor && v > -floor ? 0 : v; }
 }
 
 /**
- * Station forces with noise removed (N, V, T, M; deflections unchanged). Reuses `out`
- * when it has the same number of stations; returns `sf` itself when the floor is zero.
+ * Station forces with noise removed (N, V, T, M; deflections unchanged). Returns `sf`
+ * itself when the floor is zero or nothing is noise (the usual case: no copy); otherwise a
+ * fresh copy, or `into` when given with the same number of stations (a buffer the caller
+ * owns — never the engine's arrays).
  */
-export function denoise(sf: StationForces, floor: NoiseFloor, out?: StationForces): StationForces {
+export function denoise(sf: StationForces, floor: NoiseFloor, into?: StationForces): StationForces {
   if (!(floor.force > 0)) return sf;
+  if (!noisy(sf.N, floor.force) && !noisy(sf.V_major, floor.force) && !noisy(sf.V_minor, floor.force)
+    && !noisy(sf.T, floor.moment) && !noisy(sf.M_major, floor.moment) && !noisy(sf.M_minor, floor.moment)) return sf;
   const n = sf.x.length;
-  const o = out && out.x.length === n ? out : {
-    x: new Float64Array(n), N: new Float64Array(n), V_major: new Float64Array(n), V_minor: new Float64Array(n), T: new Float64Array(n),
-    M_major: new Float64Array(n), M_minor: new Float64Array(n), d_major: new Float64Array(n), d_minor: new Float64Array(n),
-  };
+  const o = into && into.x.length === n && into !== sf ? into : emptyForces(n);
   o.x.set(sf.x);
   cleanInto(sf.N, o.N, floor.force);
   cleanInto(sf.V_major, o.V_major, floor.force);
@@ -81,4 +88,25 @@ export function denoise(sf: StationForces, floor: NoiseFloor, out?: StationForce
   o.d_major.set(sf.d_major);
   o.d_minor.set(sf.d_minor);
   return o;
+}
+
+function emptyForces(n: number): StationForces {
+  return {
+    x: new Float64Array(n), N: new Float64Array(n), V_major: new Float64Array(n), V_minor: new Float64Array(n), T: new Float64Array(n),
+    M_major: new Float64Array(n), M_minor: new Float64Array(n), d_major: new Float64Array(n), d_minor: new Float64Array(n),
+  };
+}
+
+/**
+ * A cleaner with its own buffer, reused call after call (the result is valid until the
+ * next call): for loops over many members and loadings.
+ */
+export function noiseCleaner(floor: NoiseFloor): (sf: StationForces) => StationForces {
+  const buffers = new Map<number, StationForces>();
+  return (sf) => {
+    const n = sf.x.length;
+    let b = buffers.get(n);
+    if (!b) { b = emptyForces(n); buffers.set(n, b); }
+    return denoise(sf, floor, b);
+  };
 }

@@ -15,7 +15,7 @@ import { shearResistance } from '../../../shared/design/en1993/shear.js';
 import { enPlan } from '../../../shared/design/en1993/member.js';
 import type { EnContext } from '../../../shared/design/en1993/context.js';
 import { checkModel } from '../../../shared/design/index.js';
-import { NOISE_RELATIVE, noiseFloor } from '../../../shared/design/noise.js';
+import { NOISE_RELATIVE, noiseCleaner, noiseFloor } from '../../../shared/design/noise.js';
 import type { Section } from '../../../shared/model/types.js';
 import { close, IN, IPE300, KIP, KSI, MPA, section, stations, W18X50 } from './helpers.js';
 import { analysis, loading, member, model } from './model-helpers.js';
@@ -191,6 +191,17 @@ describe('numerical noise', () => {
     expect(r.records.some((q) => q.family === 'slenderness')).toBe(false);
     const h1 = r.records.find((q) => q.family === 'combined')!;
     expect(h1.inputs.find((i) => i.symbol === 'Pr')!.value).toBe(0);
+  });
+  it('cleaning never writes into the analysis arrays, and leaves noise-free forces as they are (no copy)', () => {
+    const clean = noiseCleaner({ force: 1e-3, moment: 1e-3 });
+    const quiet = stations(L, { N: () => 5 });
+    expect(clean(quiet)).toBe(quiet);
+    const noisyF = stations(L, { N: () => 1e-6, M_major: () => 2 });
+    const out = clean(noisyF);
+    expect(Array.from(out.N)).toEqual(new Array(11).fill(0));
+    expect(noisyF.N[0]).toBe(1e-6);
+    clean(quiet); clean(noisyF);
+    expect(quiet.N[0]).toBe(5);
   });
   it('an axial force of −1 N (above the floor) is compression', () => {
     const { m, a } = noisy(-1);
