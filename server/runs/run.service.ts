@@ -94,7 +94,9 @@ export async function getRun(ds: DataSource, id: number): Promise<Run> {
 
 /** The run's stability summary (null until done, and for runs from before it was kept). */
 export function stabilityOf(r: RunRecord): RunStability | null {
-  return r.status === 'done' && r.stabilityJson ? (JSON.parse(r.stabilityJson) as RunStability) : null;
+  if (r.status !== 'done' || !r.stabilityJson) return null;
+  // fields added after the first stability runs get their empty value
+  return { notes: [], secondOrder: [], critical: [], modes: [], warnings: [], ...(JSON.parse(r.stabilityJson) as Partial<RunStability>) } as RunStability;
 }
 
 export async function listRuns(ds: DataSource, modelId: number): Promise<RunSummary[]> {
