@@ -11,6 +11,7 @@ import { listRuns, startRun } from '../runs/run.service.js';
 import { editMembers, getEditableMembers, getModelDetail, listModels, listVersions, renameModel } from './model.service.js';
 import { forViewer, projectGuards, runVisibleTo } from '../membership/project-access.js';
 import { assertModelEditable } from '../reviews/lock.js';
+import { modelVersionWorkbook } from './model-workbook.js';
 
 export const MODEL_READERS = rolesAtLeast('viewer');
 export const MODEL_EDITORS = rolesAtLeast('engineer');
@@ -40,6 +41,12 @@ export function modelsRouter({ dataSource }: AppContext): Router {
   });
   router.get('/:id/versions', requireRole(...MODEL_READERS), guard.model('id'), async (req, res) => {
     res.json(await listVersions(dataSource, parseId(req.params.id, 'Model')));
+  });
+  router.get('/:id/versions/:version/workbook.xlsx', requireRole(...MODEL_READERS), guard.model('id'), async (req, res) => {
+    const file = await modelVersionWorkbook(dataSource, parseId(req.params.id, 'Model'), parseId(String(req.params.version), 'Version'));
+    res.set('Content-Type', file.contentType);
+    res.set('Content-Disposition', `attachment; filename="${file.fileName}"`);
+    res.send(file.body);
   });
   router.get('/:id/members', requireRole(...MODEL_READERS), guard.model('id'), async (req, res) => {
     res.json(await getEditableMembers(dataSource, parseId(req.params.id, 'Model'), optionalVersion(req.query.version)));

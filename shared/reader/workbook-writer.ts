@@ -268,6 +268,7 @@ function combinationPlan(model: Model): { rule: Model['settings']['combinationRu
 export function modelTables(model: Model): WrittenTable[] {
   const units = model.settings.units;
   const plan = combinationPlan(model);
+  type N = Model['nodes'][number];
   type C = Model['cases'][number];
   type NL = Model['nodeLoads'][number];
   type ST = Model['settlements'][number];
@@ -278,7 +279,7 @@ export function modelTables(model: Model): WrittenTable[] {
   type RP = Model['resultPoints'][number];
   const out: WrittenTable[] = [
     settingsTable(model, plan.rule),
-    table('nodes', [text('node', (n) => n.id), num('x', (n) => n.x, 'length'), num('y', (n) => n.y, 'length'), num('z', (n) => n.z, 'length')], model.nodes, units),
+    table<N>('nodes', [text('node', (n) => n.id), num('x', (n) => n.x, 'length'), num('y', (n) => n.y, 'length'), num('z', (n) => n.z, 'length')], model.nodes, units),
     supportsTable(model),
     materialsTable(model),
     sectionsTable(model),

@@ -21,20 +21,9 @@ import { readCsvFiles, readTables, readWorkbook } from '../../../shared/reader/i
 import { asRawTables, modelTables, tableCsv, writtenNumber } from '../../../shared/reader/workbook-writer.js';
 import type { Model, Problem } from '../../../shared/model/types.js';
 import { model as baseModel } from './helpers.js';
+import { comparable, expectSame } from './model-compare.js';
 
 const SAMPLES = join(__dirname, '../../../samples');
-
-/** The model without `row` fields, with what the written settings make explicit. */
-export function comparable(m: Model): unknown {
-  const strip = (v: unknown): unknown => {
-    if (Array.isArray(v)) return v.map(strip);
-    if (v && typeof v === 'object') {
-      return Object.fromEntries(Object.entries(v).filter(([k, x]) => k !== 'row' && x !== undefined).map(([k, x]) => [k, strip(x)]));
-    }
-    return v;
-  };
-  return strip({ ...m, inferred: { ...m.inferred, defaulted: [], verticalAxisInferred: false } });
-}
 
 const withoutRow = (list: Problem[]) => list.map(({ row: _row, ...p }) => p);
 
@@ -44,22 +33,6 @@ function reread(m: Model, warnings: Problem[] = []): Model {
   if (!r.ok) throw new Error(r.problems.map((p) => `${p.table} ${p.row} ${p.column}: ${p.message}`).join('\n'));
   expect(withoutRow(r.warnings)).toEqual(withoutRow(warnings));
   return r.model;
-}
-
-/** Deep equality, numbers within 4·ε relative (see above); names the path of a difference. */
-function expectSame(actual: unknown, expected: unknown, path = 'model'): void {
-  if (typeof actual === 'number' && typeof expected === 'number') {
-    if (Math.abs(actual - expected) > 4 * Number.EPSILON * Math.max(Math.abs(actual), Math.abs(expected))) {
-      expect(actual, path).toBe(expected);
-    }
-    return;
-  }
-  if (actual && expected && typeof actual === 'object' && typeof expected === 'object') {
-    expect(Object.keys(actual).sort(), path).toEqual(Object.keys(expected).sort());
-    for (const k of Object.keys(expected)) expectSame((actual as Record<string, unknown>)[k], (expected as Record<string, unknown>)[k], `${path}.${k}`);
-    return;
-  }
-  expect(actual, path).toEqual(expected);
 }
 
 const samples = readdirSync(SAMPLES).filter((d) => !d.startsWith('.'));
