@@ -19,6 +19,14 @@ export function listVersions(id: number): Promise<ModelVersionSummary[]> {
   return http.get<ModelVersionSummary[]>(`/api/models/${id}/versions`);
 }
 
+/**
+ * GET /api/models/:id/versions/:version/workbook.xlsx: the version as the importer's workbook.
+ * A download the browser fetches itself (same-origin cookie), so only its address is built here.
+ */
+export function workbookUrl(id: number, version: number): string {
+  return `/api/models/${id}/versions/${version}/workbook.xlsx`;
+}
+
 /** GET /api/models/:id/members (values in the model's unit system). */
 export function getEditableMembers(id: number): Promise<EditableMembers> {
   return http.get<EditableMembers>(`/api/models/${id}/members`);
