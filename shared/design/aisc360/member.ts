@@ -26,7 +26,7 @@ import { notCheckedHead } from '../record.js';
 /** Flexural strength; Lb = 0 (continuously braced) says in the record that LTB does not apply. */
 function flexure(g: DesignGeometry, cx: AiscContext, axis: 'major' | 'minor', Lb: number): FlexureCapacity {
   const f = flexureOf(g, cx, axis, Lb);
-  if (Lb === 0 && !Number.isNaN(f.Mcap)) {
+  if (Lb === 0 && axis === 'major' && !Number.isNaN(f.Mcap)) {
     const said = 'lb = 0: continuously braced, lateral-torsional buckling does not apply (Lb = 0 ≤ Lp)';
     return { ...f, M1: Infinity, head: { ...f.head, note: f.head.note ? `${f.head.note}; ${said}` : said } };
   }
