@@ -5,7 +5,8 @@
  * recomputed in a worker on demand (the worker that ran the model usually still holds its
  * analysis, so this costs no re-solve).
  */
-import { gunzipSync } from 'node:zlib';
+import { gunzip, gunzipSync } from 'node:zlib';
+import { promisify } from 'node:util';
 import { performance } from 'node:perf_hooks';
 import type { DataSource } from 'typeorm';
 import type { CheckRecord, MemberUtilisation } from '../../shared/design/types.js';
@@ -36,6 +37,8 @@ import type { PackedRun } from './run-compute.js';
 import { RunEntity, RunResultEntity, type RunRecord, type RunResultRecord } from './run.entity.js';
 import { runPool } from './worker-pool.js';
 import { shapeFromBlock } from './stability-codec.js';
+
+const gunzipAsync = promisify(gunzip);
 
 const PHASE_PROGRESS: Record<RunPhase, number> = {
   reading: 0.05, assembling: 0.15, factorising: 0.3, solving: 0.45, recovering: 0.55, checking: 0.65, saving: 0.9,
@@ -405,10 +408,10 @@ function analysisOf(run: RunRecord): Pick<MemberDetail, 'analysis' | 'method'> {
   return settings.analysis ? { analysis: settings.analysis } : {};
 }
 
-/** Node values of a shape as floats (gzip Float64 block of run_results.shapesData). */
-function shapesBlock(result: RunResultRecord): Float64Array {
+/** Every kept shape as floats (gzip Float64 block of run_results.shapesData), unzipped off the event loop. */
+async function shapesBlock(result: RunResultRecord): Promise<Float64Array> {
   if (!result.shapesData || result.shapesData.byteLength === 0) return new Float64Array(0);
-  const bytes = gunzipSync(result.shapesData);
+  const bytes = await gunzipAsync(result.shapesData);
   return new Float64Array(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength));
 }
 
@@ -421,7 +424,7 @@ export async function getRunShape(ds: DataSource, id: number, kind: string | und
   const stability = stabilityOf(run);
   if (!stability) throw badRequest(`Run ${id} kept no stability results; run the model again`);
   try {
-    return { runId: run.id, ...shapeFromBlock(stability, shapesBlock(result), result.nodeCount, kind as ShapeKind, i, loading || undefined) };
+    return { runId: run.id, ...shapeFromBlock(stability, await shapesBlock(result), result.nodeCount, kind as ShapeKind, i, loading || undefined) };
   } catch (err) {
     throw notFound((err as Error).message);
   }
