@@ -43,7 +43,8 @@ import type { Model } from '../model/types.js';
 import { type FactorOptions, SingularMatrixError } from '../solver/types.js';
 import { assembleGeometricStiffness, elementAxialForces, localGeometricStiffness } from './geometric.js';
 import { type SecondOrderState, elementEndForces, hasAxialLoad, secondOrderStations } from './p-delta.js';
-import { type NumericSolve, type Refactorisation, refactorisation } from './refactorisation.js';
+import { CondensedInstability, type CondensedSolver, condensedSolver } from './condensation.js';
+import { type Refactorisation, refactorisation } from './refactorisation.js';
 import { criticalFactor, instabilityMessage, SecondOrderInstabilityError } from './second-order-instability.js';
 import type { SecondOrderLoading } from './types.js';
 
@@ -140,6 +141,12 @@ function modelLoadings(model: Model, caseIndex: Map<string, number>): Loading[] 
   return out;
 }
 
+/** The condensed solver of every iteration, and the whole system's factorisation when αcr is wanted. */
+interface Solvers {
+  condensed: CondensedSolver | null;
+  full: () => Refactorisation;
+}
+
 /** A solved second-order loading (analysed load level) and what its results need. */
 interface Solved extends SecondOrderState {
   scale: number;
@@ -168,15 +175,21 @@ export function analyseSecondOrder(model: Model, options: SecondOrderOptions = {
   }
 
   // first order of every case: the start of each loading's iteration and the results of the others
-  let refac: Refactorisation | null = null;
+  // every solve goes through the user's nodes, the members' internal nodes condensed out
+  // (condensation.ts); the whole subdivided system is factorised only to find αcr of a refused loading
+  let condensed: CondensedSolver | null = null;
+  let fullRefac: Refactorisation | null = null;
+  const solvers: Solvers = {
+    condensed: null,
+    full: () => (fullRefac ??= refactorisation(pat.K, opt.solver)),
+  };
   let X1: Float64Array = new Float64Array(0);
   if (nEq > 0) {
+    condensed = solvers.condensed = condensedSolver(sys, opt.solver);
     try {
-      refac = refactorisation(pat.K, opt.solver);
-      const fact = refac.factor(pat.K.values);
-      X1 = nCases > 0 ? fact.solve(F, nCases) : X1;
+      X1 = nCases > 0 ? condensed.solve(pat.K.values, F, nCases) : X1;
     } catch (err) {
-      if (err instanceof SingularMatrixError) {
+      if (err instanceof CondensedInstability || err instanceof SingularMatrixError) {
         const g = eqDof[err.index];
         throw instabilityAt(mesh.nodeNames[Math.floor(g / 6)], g % 6);
       }
@@ -200,7 +213,7 @@ export function analyseSecondOrder(model: Model, options: SecondOrderOptions = {
     const own = options.loadingOptions?.(ld);
     const scale = checkScale(own?.loadScale ?? options.loadScale ?? SECOND_ORDER_DEFAULTS.loadScale, ld.id);
     const stiffness = own?.stiffness ?? options.stiffness;
-    solved.set(l, solveLoading(model, sys, refac, U1, ld, scale, stiffness, opt));
+    solved.set(l, solveLoading(model, sys, solvers, U1, ld, scale, stiffness, opt));
   }
   sw.lap('second order');
 
@@ -220,7 +233,7 @@ export function analyseSecondOrder(model: Model, options: SecondOrderOptions = {
   });
   sw.lap('recovery');
 
-  const result = buildResult(model, sys, loadings, U1, R1, solved, equilibrium, timings, refac);
+  const result = buildResult(model, sys, loadings, U1, R1, solved, equilibrium, timings, condensed ? condensed.nnzFactor : 0);
   return {
     analysis: result,
     loadings: [...solved.keys()].sort((a, b) => a - b).map((l) => solved.get(l)!.report),
@@ -310,7 +323,7 @@ function stiffnessFactors(
 }
 
 function solveLoading(
-  model: Model, sys: LinearSystem, refac: Refactorisation | null, U1: Float64Array, ld: Loading, scale: number,
+  model: Model, sys: LinearSystem, solvers: Solvers, U1: Float64Array, ld: Loading, scale: number,
   rule: ((mi: number, N: number) => StiffnessFactors) | undefined, opt: Resolved,
 ): Solved {
   const { mesh, nCases, loadSets, eq, nEq, F, presc, fefOf, pat } = sys;
@@ -370,7 +383,7 @@ function solveLoading(
   // αcr of the axial forces that failed (their K + K_G is not positive definite, so αcr ≤ 1)
   const instability = (): SecondOrderInstabilityError => {
     for (let i = 0; i < A.length; i++) A[i] = K0[i] + dK[i];
-    const { alpha, approximate } = refac ? criticalFactor(refac, pat.K, A, KG) : { alpha: Infinity, approximate: true };
+    const { alpha, approximate } = nEq > 0 ? criticalFactor(solvers.full(), pat.K, A, KG) : { alpha: Infinity, approximate: true };
     const shown = Math.min(alpha, 1);
     return new SecondOrderInstabilityError(ld.id, shown, approximate, instabilityMessage(ld.kind, ld.id, shown, approximate, scale));
   };
@@ -381,17 +394,16 @@ function solveLoading(
     }
     assembleGeometricStiffness(sys, N, KG);
     for (let i = 0; i < A.length; i++) A[i] = K0[i] + dK[i] + KG[i];
-    let fact: NumericSolve;
+    const rhs = Fl.slice();
+    if (pl) subtractPrescribed(sys, pl, N, ea, ei, rhs);
+    let X: Float64Array;
     try {
-      fact = refac!.factor(A);
+      X = solvers.condensed!.solve(A, rhs, 1);
     } catch (err) {
-      if (err instanceof SingularMatrixError) throw instability();
+      if (err instanceof CondensedInstability) throw instability();
       throw err;
     }
     iterations++;
-    const rhs = Fl.slice();
-    if (pl) subtractPrescribed(sys, pl, N, ea, ei, rhs);
-    const X = fact.solve(rhs, 1);
     const un = new Float64Array(nDofAll);
     for (let g = 0; g < nDofAll; g++) un[g] = eq[g] >= 0 ? X[eq[g]] : pl ? pl[g] : 0;
     const Nn = elementAxialForces(mesh, un, fef, rule ? ea : undefined, axialPart);
@@ -411,9 +423,9 @@ function solveLoading(
     assembleGeometricStiffness(sys, N, KG);
     for (let i = 0; i < A.length; i++) A[i] = K0[i] + dK[i] + KG[i];
     try {
-      refac!.factor(A);
+      solvers.condensed!.solve(A, new Float64Array(nEq), 1);
     } catch (err) {
-      if (err instanceof SingularMatrixError) throw instability();
+      if (err instanceof CondensedInstability) throw instability();
       throw err;
     }
   }
@@ -544,7 +556,7 @@ const RECENT_MEMBER_FORCES = 256;
 
 function buildResult(
   model: Model, sys: LinearSystem, loadings: Loading[], U1: Float64Array<ArrayBuffer>, R1: Float64Array, solved: Map<number, Solved>,
-  equilibrium: EquilibriumCheck[], timings: Record<string, number>, refac: Refactorisation | null,
+  equilibrium: EquilibriumCheck[], timings: Record<string, number>, nnzFactor: number,
 ): AnalysisResult {
   const { mesh, nCases, loadSets, fefOf, nEq, pat } = sys;
   const nDofAll = mesh.nNodes * 6, nUser = mesh.nUserNodes;
@@ -618,7 +630,7 @@ function buildResult(
       freedoms: nEq,
       cases: nCases,
       nnzK: pat.K.colPtr[nEq],
-      nnzFactor: refac ? refac.nnzFactor : 0,
+      nnzFactor,
       timings,
       equilibrium,
     },

@@ -306,6 +306,15 @@ describe('refusal and equilibrium', () => {
     expect(relErr(err.alphaCr, 1 / 1.2)).toBeLessThan(0.005);
   });
 
+  it('a pinned column held at both ends above its Euler load buckles between its ends: refused with αcr = Pe/P', () => {
+    // Euler (Timoshenko & Gere 2.1): Pe = π²EI/L²; P = 1.2·Pe → αcr = 0.83 (the 6 sub-elements: +0.01 %)
+    const L = 5, Pe = (Math.PI ** 2 * EI) / (L * L);
+    const model = new ModelBuilder({ planeNormal: 'Y' }).node('A', 0, 0, 0).node('B', 0, 0, L)
+      .support('A', 'ux uy uz').support('B', 'ux uy').member('C', 'A', 'B')
+      .loadCase('D').nodeLoad('D', 'B', { fz: -1.2 * Pe }).build();
+    expect(() => analyseSecondOrder(model)).toThrow('case D is not stable at this load level: αcr = 0.83');
+  });
+
   it('member loads, an axial point load at a sub-element node and self weight: forces balance exactly, moments on the displaced geometry to 2θ²', () => {
     const h = 4, b = 8;
     const model = new ModelBuilder({ planeNormal: 'Y' })

@@ -1,0 +1,233 @@
+/**
+ * Solving the subdivided system through the user's nodes only: the internal nodes of every
+ * member (its sub-elements' nodes) connect to nothing but their own member, so they are
+ * condensed out member by member — exactly, A_red = A_uu − Σ_m A_bi A_ii⁻¹ A_ib — and the
+ * sparse factorisation works on a system the size of the first-order one. The internal
+ * displacements follow per member, u_i = A_ii⁻¹ (f_i − A_ib u_b).
+ *
+ * The engine numbers the user's nodes first (shared/engine/assembly.ts numberEquations), so a
+ * user freedom keeps its equation number in the reduced system. Dense work per member: a
+ * Cholesky factorisation of its internal block (6 × (sub-elements − 1) freedoms at most).
+ * A member whose internal block is not positive definite buckles between its ends even with
+ * them held: that is reported as an InternalInstability, as is a reduced matrix that is not.
+ */
+import { buildPattern } from '../engine/assembly.js';
+import type { LinearSystem } from '../engine/system.js';
+import { SingularMatrixError, type FactorOptions, type SymmetricCsc } from '../solver/types.js';
+import { type Refactorisation, refactorisation } from './refactorisation.js';
+
+/** K_red or a member's internal block is not positive definite; `index` a full equation at fault. */
+export class CondensedInstability extends Error {
+  constructor(readonly index: number) {
+    super(`condensed system: not positive definite at equation ${index}`);
+    this.name = 'CondensedInstability';
+  }
+}
+
+interface MemberBlock {
+  /** internal equations: first and count (contiguous, the member's internal nodes are consecutive) */
+  i0: number;
+  ni: number;
+  /** boundary equations (free freedoms of the start and end nodes), ascending */
+  b: Int32Array;
+  /** positions in the full values of A_ii (lower, row-major dense index r*ni + c, r ≥ c) and of A_ib (r*nb + c) */
+  iiPos: Int32Array;
+  iiIdx: Int32Array;
+  ibPos: Int32Array;
+  ibIdx: Int32Array;
+  /** positions in the reduced values of the lower pairs of b (dense index r*nb + c, r ≥ c) */
+  redPos: Int32Array;
+  redIdx: Int32Array;
+}
+
+export interface CondensedSolver {
+  /** equations of the reduced system (the free freedoms of the user's nodes) */
+  nReduced: number;
+  nnzFactor: number;
+  /**
+   * Solve A X = B (A aligned with the full pattern, B and X full, nrhs columns); throws
+   * CondensedInstability when A is not positive definite.
+   */
+  solve(A: Float64Array, B: Float64Array, nrhs: number): Float64Array;
+}
+
+/** Position of (row, col) in a lower CSC (rows ascending per column), −1 when absent. */
+function find(K: SymmetricCsc, row: number, col: number): number {
+  let lo = K.colPtr[col], hi = K.colPtr[col + 1] - 1;
+  while (lo <= hi) {
+    const mid = (lo + hi) >> 1, r = K.rowIdx[mid];
+    if (r === row) return mid;
+    if (r < row) lo = mid + 1;
+    else hi = mid - 1;
+  }
+  return -1;
+}
+
+export function condensedSolver(sys: LinearSystem, options: FactorOptions = {}): CondensedSolver {
+  const { mesh, eq, nEq, pat } = sys;
+  const full = pat.K;
+  const nUser = mesh.nUserNodes;
+  // reduced equations: the user's free freedoms, numbered as in the full system
+  let nRed = 0;
+  for (let g = 0; g < nUser * 6; g++) if (eq[g] >= 0) nRed = eq[g] + 1;
+  const ms = Int32Array.from(mesh.members, (m) => m.start), me = Int32Array.from(mesh.members, (m) => m.end);
+  const red = buildPattern(nUser, ms, me, eq.subarray(0, nUser * 6), nRed).K;
+  // user–user entries of the full matrix
+  const uuFull: number[] = [], uuRed: number[] = [];
+  for (let c = 0; c < nRed; c++) {
+    for (let p = full.colPtr[c]; p < full.colPtr[c + 1]; p++) {
+      const r = full.rowIdx[p];
+      if (r >= nRed) continue;
+      const q = find(red, r, c);
+      if (q < 0) throw new Error(`condensed system: entry (${r}, ${c}) missing from the reduced pattern`);
+      uuFull.push(p); uuRed.push(q);
+    }
+  }
+  const blocks: MemberBlock[] = [];
+  for (const m of mesh.members) {
+    if (m.elementCount < 2) continue;
+    let i0 = -1, i1 = -1;
+    for (let k = 1; k < m.elementCount; k++) {
+      const n = mesh.elStart[m.firstElement + k];
+      for (let f = 0; f < 6; f++) {
+        const e = eq[n * 6 + f];
+        if (e < 0) continue;
+        if (i0 < 0) i0 = e;
+        i1 = e;
+      }
+    }
+    if (i0 < 0) continue;
+    const ni = i1 - i0 + 1;
+    const bl: number[] = [];
+    for (const n of [m.start, m.end]) for (let f = 0; f < 6; f++) if (eq[n * 6 + f] >= 0) bl.push(eq[n * 6 + f]);
+    const b = Int32Array.from(bl).sort();
+    const nb = b.length;
+    const iiPos: number[] = [], iiIdx: number[] = [], ibPos: number[] = [], ibIdx: number[] = [];
+    for (let c = 0; c < ni; c++) {
+      for (let p = full.colPtr[i0 + c]; p < full.colPtr[i0 + c + 1]; p++) {
+        const r = full.rowIdx[p] - i0;
+        if (r >= 0 && r < ni) { iiPos.push(p); iiIdx.push(r * ni + c); }
+      }
+    }
+    b.forEach((bc, c) => {
+      for (let p = full.colPtr[bc]; p < full.colPtr[bc + 1]; p++) {
+        const r = full.rowIdx[p] - i0;
+        if (r >= 0 && r < ni) { ibPos.push(p); ibIdx.push(r * nb + c); }
+      }
+    });
+    const redPos: number[] = [], redIdx: number[] = [];
+    for (let c = 0; c < nb; c++) {
+      for (let r = c; r < nb; r++) {
+        const q = find(red, b[r], b[c]);
+        if (q < 0) throw new Error(`condensed system: member ${m.id} coupling (${b[r]}, ${b[c]}) missing from the reduced pattern`);
+        redPos.push(q); redIdx.push(r * nb + c);
+      }
+    }
+    blocks.push({
+      i0, ni, b, iiPos: Int32Array.from(iiPos), iiIdx: Int32Array.from(iiIdx), ibPos: Int32Array.from(ibPos), ibIdx: Int32Array.from(ibIdx),
+      redPos: Int32Array.from(redPos), redIdx: Int32Array.from(redIdx),
+    });
+  }
+  const refac: Refactorisation | null = nRed > 0 ? refactorisation(red, options) : null;
+  const pivotTolerance = options.pivotTolerance ?? 1e-10;
+  const redValues = new Float64Array(red.values.length);
+
+  return {
+    nReduced: nRed,
+    nnzFactor: refac ? refac.nnzFactor : 0,
+    solve(A: Float64Array, B: Float64Array, nrhs: number): Float64Array {
+      if (B.length !== nEq * nrhs) throw new Error(`condensed system: right-hand side has ${B.length} values, expected ${nEq * nrhs}`);
+      redValues.fill(0);
+      for (let k = 0; k < uuFull.length; k++) redValues[uuRed[k]] += A[uuFull[k]];
+      const Bred = new Float64Array(nRed * nrhs);
+      for (let c = 0; c < nrhs; c++) for (let i = 0; i < nRed; i++) Bred[c * nRed + i] = B[c * nEq + i];
+      // per member: L Lᵀ = A_ii, W = A_ii⁻¹ A_ib, g = A_ii⁻¹ f_i; A_red −= A_ibᵀ W, f_red −= Wᵀ f_i
+      const Ws: Float64Array[] = new Array(blocks.length), Gs: Float64Array[] = new Array(blocks.length);
+      blocks.forEach((bk, k) => {
+        const { ni, b } = bk, nb = b.length;
+        const L = new Float64Array(ni * ni), Aib = new Float64Array(ni * nb);
+        for (let q = 0; q < bk.iiPos.length; q++) L[bk.iiIdx[q]] += A[bk.iiPos[q]];
+        for (let q = 0; q < bk.ibPos.length; q++) Aib[bk.ibIdx[q]] += A[bk.ibPos[q]];
+        cholesky(L, ni, pivotTolerance, bk.i0);
+        const W = Aib.slice();
+        cholSolve(L, ni, W, nb);
+        const g = new Float64Array(ni * nrhs);
+        for (let c = 0; c < nrhs; c++) for (let i = 0; i < ni; i++) g[i * nrhs + c] = B[c * nEq + bk.i0 + i];
+        cholSolve(L, ni, g, nrhs);
+        for (let q = 0; q < bk.redPos.length; q++) {
+          const idx = bk.redIdx[q], r = Math.floor(idx / nb), c = idx % nb;
+          let s = 0;
+          for (let i = 0; i < ni; i++) s += Aib[i * nb + r] * W[i * nb + c];
+          redValues[bk.redPos[q]] -= s;
+        }
+        for (let c = 0; c < nrhs; c++) {
+          for (let r = 0; r < nb; r++) {
+            let s = 0;
+            for (let i = 0; i < ni; i++) s += W[i * nb + r] * B[c * nEq + bk.i0 + i];
+            Bred[c * nRed + b[r]] -= s;
+          }
+        }
+        Ws[k] = W; Gs[k] = g;
+      });
+      let Xred: Float64Array = new Float64Array(0);
+      if (refac) {
+        try {
+          Xred = refac.factor(redValues).solve(Bred, nrhs);
+        } catch (err) {
+          if (err instanceof SingularMatrixError) throw new CondensedInstability(err.index);
+          throw err;
+        }
+      }
+      const X = new Float64Array(nEq * nrhs);
+      for (let c = 0; c < nrhs; c++) for (let i = 0; i < nRed; i++) X[c * nEq + i] = Xred[c * nRed + i];
+      blocks.forEach((bk, k) => {
+        const { ni, b } = bk, nb = b.length, W = Ws[k], g = Gs[k];
+        for (let c = 0; c < nrhs; c++) {
+          for (let i = 0; i < ni; i++) {
+            let s = g[i * nrhs + c];
+            for (let r = 0; r < nb; r++) s -= W[i * nb + r] * Xred[c * nRed + b[r]];
+            X[c * nEq + bk.i0 + i] = s;
+          }
+        }
+      });
+      return X;
+    },
+  };
+}
+
+/** In-place dense Cholesky of the lower triangle of L (n × n, row-major); a small pivot throws. */
+function cholesky(L: Float64Array, n: number, tol: number, eq0: number): void {
+  for (let j = 0; j < n; j++) {
+    const diag = L[j * n + j];
+    let d = diag;
+    for (let k = 0; k < j; k++) d -= L[j * n + k] * L[j * n + k];
+    if (!(d > tol * Math.abs(diag))) throw new CondensedInstability(eq0 + j);
+    const s = Math.sqrt(d);
+    L[j * n + j] = s;
+    for (let i = j + 1; i < n; i++) {
+      let v = L[i * n + j];
+      for (let k = 0; k < j; k++) v -= L[i * n + k] * L[j * n + k];
+      L[i * n + j] = v / s;
+    }
+  }
+}
+
+/** X ← (L Lᵀ)⁻¹ X for X n × m (row-major). */
+function cholSolve(L: Float64Array, n: number, X: Float64Array, m: number): void {
+  for (let i = 0; i < n; i++) {
+    for (let k = 0; k < i; k++) {
+      const l = L[i * n + k];
+      if (l !== 0) for (let c = 0; c < m; c++) X[i * m + c] -= l * X[k * m + c];
+    }
+    const d = L[i * n + i];
+    for (let c = 0; c < m; c++) X[i * m + c] /= d;
+  }
+  for (let i = n - 1; i >= 0; i--) {
+    for (let k = i + 1; k < n; k++) {
+      const l = L[k * n + i];
+      if (l !== 0) for (let c = 0; c < m; c++) X[i * m + c] -= l * X[k * m + c];
+    }
+    const d = L[i * n + i];
+    for (let c = 0; c < m; c++) X[i * m + c] /= d;
+  }
+}
