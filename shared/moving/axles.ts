@@ -10,13 +10,20 @@
  * columns) plus its own fixed-end forces and statics (the same decomposition as
  * influence.ts).
  *
- * Between positions the force under a given axle is a smooth function of the vehicle
+ * Between positions the moment under a given axle is a smooth function of the vehicle
  * position (a polynomial of degree ≤ 4 for a prismatic member until some axle crosses a
  * node; every such crossing is a vehicle position already), so the best sample is refined by
- * golden-section search between its neighbouring positions when it is an interior maximum
- * there — e.g. the classic absolute maximum moment of a simple span, with midspan bisecting
+ * parabolic interpolation (Brent's method as the fallback) towards the neighbouring position on the side where the force still
+ * rises (probed 1e-6 of a step away; a kink at a node crossing rises on neither side), when
+ * the sample is above both neighbours and the parabola through the three promises more than
+ * 1e-10 of it — e.g. the classic absolute maximum moment of a simple span, with midspan bisecting
  * the distance between the critical axle and the resultant, is found to round-off whatever
- * the step. Each axle's best sample within 2 % of the member's best is refined.
+ * the step. Each axle's best sample within 2 % of the member's best is refined (skipped when
+ * its parabola promises less than 99.9 % of what is found already). N, V and T under an axle
+ * are taken at the sampled positions only: between node crossings they are linear in the
+ * position on a determinate lane, so their extremes are at sampled positions; on an
+ * indeterminate lane a maximum between two positions is possible and is not refined (its
+ * shortfall shrinks with the square of the step).
  *
  * The result: per lane member and force, the maximum (sign +1) and minimum (sign −1) under an
  * axle with the vehicle position and x; index.ts turns each x into an extra station of that
@@ -29,7 +36,7 @@ import { internalForces } from '../engine/statics.js';
 import { elementLocal, type LinearSystem } from '../engine/system.js';
 import type { Axle } from './envelope.js';
 import type { LaneResponse } from './influence.js';
-import { unitFef } from './influence.js';
+import type { UnitFefMemo } from './influence.js';
 import { type LanePathGeometry, locate, type PathPoint } from './path.js';
 import { axlePosition, type Direction, vehiclePositions } from './positions.js';
 
@@ -64,77 +71,149 @@ export interface AxleScan {
   refinements: number;
 }
 
-const GOLD = (Math.sqrt(5) - 1) / 2;
 /** an axle's best sample is refined when within this fraction of the member's best */
 const REFINE_WITHIN = 0.02;
 
-interface AxleLoad { segment: number; a: number; load: number; axle: number }
-
 export function scanAxles(
   sys: LinearSystem, lane: LaneResponse, path: LanePathGeometry, axles: Axle[], step: number,
-  directions: Direction[], targets: readonly number[],
+  directions: Direction[], targets: readonly number[], stationsOf: (mi: number) => ArrayLike<number>, memo: UnitFefMemo,
 ): AxleScan {
   const { mesh } = sys;
+  const { X, nEq, basisOf, down } = lane;
   const nSeg = path.segments.length, nAx = axles.length;
   const offsets = axles.map((a) => a.offset);
   const kl = path.segments.map((g) => elementLocal(mesh, mesh.members[g.member].firstElement, new Float64Array(144)));
-  const fef = new Float64Array(12), fg = new Float64Array(12), ue = new Float64Array(12), ul = new Float64Array(12);
+  // equation number of each end freedom of each segment's member (−1: none)
+  const eqEnd = new Int32Array(12 * nSeg);
+  path.segments.forEach((g, k) => {
+    const m = mesh.members[g.member];
+    for (let j = 0; j < 12; j++) eqEnd[12 * k + j] = lane.eq[j < 6 ? m.start * 6 + j : m.end * 6 + j - 6];
+  });
+  // local load components of a unit load along −vertical, per segment
+  const comp = new Float64Array(3 * nSeg);
+  path.segments.forEach((g, k) => {
+    const R = mesh.members[g.member].R;
+    for (let r = 0; r < 3; r++) comp[3 * k + r] = R[3 * r] * down[0] + R[3 * r + 1] * down[1] + R[3 * r + 2] * down[2];
+  });
+  const fg = new Float64Array(12), ue = new Float64Array(12), ul = new Float64Array(12);
   const f1 = new Float64Array(6), out = new Float64Array(6);
   const ls: LoadSet = { dist: [], point: [], moment: [], eps: 0, grad: 0 };
-  const one: LoadSet = { dist: [], point: [0, 0, 0, 0], moment: [], eps: 0, grad: 0 };
   const w = new Float64Array(lane.nBasis);
   const wIdx: number[] = [];
   const pt: PathPoint = { segment: 0, a: 0 };
-  const loads: AxleLoad[] = [];
+  // axles on the lane at the current position
+  const lSeg = new Int32Array(nAx), lA = new Float64Array(nAx), lAxle = new Int32Array(nAx);
+  let nLoads = 0;
   const fefSum = new Float64Array(6 * nSeg);
   const loaded = new Uint8Array(nSeg);
   let evaluations = 0;
 
+  /** Unit-load effect at a path point: basis weights and the member's local start fixed-end forces. */
+  interface Unit { segment: number; a: number; n: number; nb: Int32Array; nw: Float64Array; f6: Float64Array }
+  const scratch: Unit = { segment: 0, a: 0, n: 0, nb: new Int32Array(12), nw: new Float64Array(12), f6: new Float64Array(6) };
+  /** the unit effect at distance a on segment k, into `u` */
+  const unitAt = (k: number, a: number, u: Unit): Unit => {
+    const mi = path.segments[k].member, m = mesh.members[mi];
+    const fef = memo.get(mi, a);
+    vecToGlobal12(m.R, fef, fg);
+    u.segment = k; u.a = a; u.n = 0;
+    for (let j = 0; j < 12; j++) {
+      const b = basisOf[j < 6 ? m.start * 6 + j : m.end * 6 + j - 6];
+      if (b >= 0 && fg[j] !== 0) { u.nb[u.n] = b; u.nw[u.n] = -fg[j]; u.n++; }
+    }
+    for (let j = 0; j < 6; j++) u.f6[j] = fef[j];
+    return u;
+  };
+
+  // the cache in flat pools (entry e: segment, a, count, 12 basis columns and weights, 6 forces)
+  const cacheOf = new Map<number, number>();
+  const CACHE_LIMIT = 2e5;
+  let cSeg = new Int32Array(1024), cA = new Float64Array(1024), cN = new Int32Array(1024);
+  let cB = new Int32Array(1024 * 12), cW = new Float64Array(1024 * 12), cF = new Float64Array(1024 * 6);
+  let nCached = 0;
+  const grow = <T extends Int32Array | Float64Array>(a: T, n: number): T => {
+    if (a.length >= n) return a;
+    const b = new (a.constructor as new (n: number) => T)(Math.max(n, 2 * a.length));
+    b.set(a);
+    return b;
+  };
+  const store = (u: Unit): number => {
+    if (nCached >= CACHE_LIMIT) return -1;
+    const e = nCached++;
+    cSeg = grow(cSeg, e + 1); cA = grow(cA, e + 1); cN = grow(cN, e + 1);
+    cB = grow(cB, 12 * (e + 1)); cW = grow(cW, 12 * (e + 1)); cF = grow(cF, 6 * (e + 1));
+    cSeg[e] = u.segment; cA[e] = u.a; cN[e] = u.n;
+    for (let j = 0; j < u.n; j++) { cB[12 * e + j] = u.nb[j]; cW[12 * e + j] = u.nw[j]; }
+    for (let j = 0; j < 6; j++) cF[6 * e + j] = u.f6[j];
+    return e;
+  };
+  const cached: Unit = { segment: 0, a: 0, n: 0, nb: new Int32Array(12), nw: new Float64Array(12), f6: new Float64Array(6) };
+  const load = (e: number): Unit => {
+    cached.segment = cSeg[e]; cached.a = cA[e]; cached.n = cN[e];
+    for (let j = 0; j < cached.n; j++) { cached.nb[j] = cB[12 * e + j]; cached.nw[j] = cW[12 * e + j]; }
+    for (let j = 0; j < 6; j++) cached.f6[j] = cF[6 * e + j];
+    return cached;
+  };
+
   /**
    * Place the vehicle at `lead`: nodal weights w, axle loads per segment with their fixed-end
    * forces summed in fefSum; then call `visit` for every axle on a member with the six forces
-   * just left of it (at the start node just right of it: the stations' face convention).
+   * just left of it (at the start node just right of it: the stations' face convention). With
+   * `only` ≥ 0 just that segment is evaluated, and an axle on one of its end nodes counts as
+   * on it (same nodal loads).
    */
-  const place = (direction: Direction, lead: number, visit: (ld: AxleLoad, f: Float64Array) => void, only = -1) => {
+  const place = (direction: Direction, lead: number, visit: (k: number, axle: number, a: number, f: Float64Array) => void, only = -1) => {
     evaluations++;
-    loads.length = 0;
+    nLoads = 0;
     for (let i = 0; i < nAx; i++) {
       const s = axlePosition(direction, lead, offsets[i]);
-      if (!(s >= 0 && s <= path.length) || !locate(path, s, pt)) continue;
-      if (only >= 0 && pt.segment !== only) {
-        // an axle on an end node of the segment asked for counts as on it (same nodal loads)
-        const g = path.segments[only], t = s - g.s0, tol = 1e-12 * path.length;
-        if (t >= -tol && t <= g.L + tol) {
-          const c = Math.min(g.L, Math.max(0, t));
-          pt.segment = only;
-          pt.a = g.reversed ? g.L - c : c;
+      if (!(s >= 0 && s <= path.length)) continue;
+      let u: Unit;
+      if (only < 0) {
+        // regular positions: unit effects cached by path position rounded to 1 nm (see envelope.ts)
+        const key = Math.round(s * 1e9);
+        let e = cacheOf.get(key);
+        if (e === undefined) {
+          if (!locate(path, s, pt)) continue;
+          unitAt(pt.segment, pt.a, scratch);
+          e = store(scratch);
+          if (e >= 0) cacheOf.set(key, e);
         }
+        u = e >= 0 ? load(e) : scratch;
+      } else {
+        if (!locate(path, s, pt)) continue;
+        if (pt.segment !== only) {
+          const g = path.segments[only], t = s - g.s0, tol = 1e-12 * path.length;
+          if (t >= -tol && t <= g.L + tol) {
+            const c = Math.min(g.L, Math.max(0, t));
+            pt.segment = only;
+            pt.a = g.reversed ? g.L - c : c;
+          }
+        }
+        // the fixed-end forces come from the memo shared with the envelopes (index.ts)
+        u = unitAt(pt.segment, pt.a, scratch);
       }
-      const k = pt.segment, mi = path.segments[k].member, m = mesh.members[mi];
-      const P = axles[i].load;
-      unitFef(sys, mi, pt.a, P, lane.down, fef, one);
-      vecToGlobal12(m.R, fef, fg);
-      for (let j = 0; j < 12; j++) {
-        const b = lane.basisOf[j < 6 ? m.start * 6 + j : m.end * 6 + j - 6];
-        if (b < 0 || fg[j] === 0) continue;
+      const P = axles[i].load, k = u.segment;
+      for (let j = 0; j < u.n; j++) {
+        const b = u.nb[j];
         if (w[b] === 0) wIdx.push(b);
-        w[b] -= fg[j];
+        w[b] += P * u.nw[j];
         if (w[b] === 0) w[b] = 1e-300;
       }
       if (!loaded[k]) { loaded[k] = 1; fefSum.fill(0, 6 * k, 6 * k + 6); }
-      for (let j = 0; j < 6; j++) fefSum[6 * k + j] += fef[j];
-      loads.push({ segment: k, a: pt.a, load: P, axle: i });
+      for (let j = 0; j < 6; j++) fefSum[6 * k + j] += P * u.f6[j];
+      lSeg[nLoads] = k; lA[nLoads] = u.a; lAxle[nLoads] = i; nLoads++;
     }
-    for (let n = 0; n < loads.length; n++) {
-      const k = loads[n].segment;
+    for (let n = 0; n < nLoads; n++) {
+      const k = lSeg[n];
       if (!loaded[k] || (only >= 0 && k !== only)) continue;
       loaded[k] = 0;
-      const g = path.segments[k], m = mesh.members[g.member];
+      const m = mesh.members[path.segments[k].member];
       // end displacements of the member from the solved lane columns, then its start end forces
       for (let j = 0; j < 12; j++) {
-        const gd = j < 6 ? m.start * 6 + j : m.end * 6 + j - 6;
+        const e = eqEnd[12 * k + j];
         let v = 0;
-        for (const b of wIdx) v += w[b] * lane.disp(b, gd);
+        if (e >= 0) for (let q = 0; q < wIdx.length; q++) v += w[wIdx[q]] * X[wIdx[q] * nEq + e];
         ue[j] = v;
       }
       vecToLocal12(m.R, ue, ul);
@@ -145,15 +224,15 @@ export function scanAxles(
         f1[i] = v;
       }
       ls.point.length = 0;
-      for (const l of loads) {
-        if (l.segment !== k) continue;
-        const R = m.R, d = lane.down, P = l.load;
-        ls.point.push(l.a, P * (R[0] * d[0] + R[1] * d[1] + R[2] * d[2]), P * (R[3] * d[0] + R[4] * d[1] + R[5] * d[2]), P * (R[6] * d[0] + R[7] * d[1] + R[8] * d[2]));
+      for (let q = n; q < nLoads; q++) {
+        if (lSeg[q] !== k) continue;
+        const P = axles[lAxle[q]].load;
+        ls.point.push(lA[q], P * comp[3 * k], P * comp[3 * k + 1], P * comp[3 * k + 2]);
       }
-      for (const l of loads) {
-        if (l.segment !== k) continue;
-        internalForces(ls, f1, l.a, l.a <= 0, out);
-        visit(l, out);
+      for (let q = n; q < nLoads; q++) {
+        if (lSeg[q] !== k) continue;
+        internalForces(ls, f1, lA[q], lA[q] <= 0, out);
+        visit(k, lAxle[q], lA[q], out);
       }
     }
     loaded.fill(0);
@@ -161,33 +240,55 @@ export function scanAxles(
     wIdx.length = 0;
   };
 
-  // best sample per (segment, row, sign, axle): value, position index, direction
+  // best sample per (segment, row, sign, axle): value, where, and the values at the positions
+  // just before and after it (−∞: the axle was not on that segment there, or not yet seen)
   const nSlot = nSeg * FORCE_ROWS * 2 * nAx;
   const best = new Float64Array(nSlot).fill(-Infinity);
   const bestP = new Int32Array(nSlot).fill(-1);
-  const bestD = new Uint8Array(nSlot);
+  const bestA = new Float64Array(nSlot);
+  const prevV = new Float64Array(nSlot).fill(-Infinity), nextV = new Float64Array(nSlot).fill(-Infinity);
+  const lastV = new Float64Array(nSlot), lastP = new Int32Array(nSlot).fill(-2);
   const leadsOf: Float64Array[] = [];
-  directions.forEach((direction, di) => {
+  // position indices run on across directions with a gap, so neighbours never span two directions
+  const firstOf: number[] = [];
+  let first = 0, gp = 0;
+  const record = (k: number, axle: number, a: number, f: Float64Array) => {
+    const base = k * FORCE_ROWS * 2 * nAx + axle;
+    for (let q = 0; q < 2 * FORCE_ROWS; q++) {
+      const r = q >> 1;
+      const v = (q & 1) === 0 ? f[r] : -f[r];
+      const i = base + q * nAx;
+      if (bestP[i] === gp - 1) nextV[i] = v;
+      if (v > best[i]) {
+        best[i] = v; bestP[i] = gp; bestA[i] = a;
+        prevV[i] = lastP[i] === gp - 1 ? lastV[i] : -Infinity;
+        nextV[i] = -Infinity;
+      }
+      lastV[i] = v; lastP[i] = gp;
+    }
+  };
+  for (const direction of directions) {
     const { lead } = vehiclePositions(path.length, offsets, step, direction, targets);
     leadsOf.push(lead);
+    firstOf.push(first);
     for (let p = 0; p < lead.length; p++) {
-      place(direction, lead[p], (l, f) => {
-        const base = (l.segment * FORCE_ROWS) * 2 * nAx;
-        for (let r = 0; r < FORCE_ROWS; r++) {
-          const v = f[r];
-          if (v === 0) continue;
-          const iMax = base + (r * 2) * nAx + l.axle, iMin = iMax + nAx;
-          if (v > best[iMax]) { best[iMax] = v; bestP[iMax] = p; bestD[iMax] = di; }
-          if (-v > best[iMin]) { best[iMin] = -v; bestP[iMin] = p; bestD[iMin] = di; }
-        }
-      });
+      gp = first + p;
+      place(direction, lead[p], record);
     }
-  });
+    first += lead.length + 1;
+  }
 
-  // sign·force under one axle on one segment at a vehicle position (−∞ when it is not inside)
+  /** direction index, its positions and the index among them of a slot's best sample */
+  const where = (slot: number) => {
+    let di = 0;
+    while (di + 1 < firstOf.length && bestP[slot] >= firstOf[di + 1]) di++;
+    return { di, lead: leadsOf[di], p: bestP[slot] - firstOf[di] };
+  };
+
+  // sign·force under one axle on one segment at a vehicle position (−∞ when it is not there)
   const probe = (direction: Direction, lead: number, k: number, axle: number, row: number, sign: number): { v: number; a: number } => {
     let v = -Infinity, a = NaN;
-    place(direction, lead, (l, f) => { if (l.axle === axle) { v = sign * f[row]; a = l.a; } }, k);
+    place(direction, lead, (_k, ax, x, f) => { if (ax === axle) { v = sign * f[row]; a = x; } }, k);
     return { v, a };
   };
 
@@ -195,8 +296,9 @@ export function scanAxles(
   const leads: Record<Direction, number[]> = { forward: [], backward: [] };
   const extremes: AxleExtreme[] = [];
   let refinements = 0;
+  const cands: { i: number; peak: number }[] = [];
   for (let k = 0; k < nSeg; k++) {
-    const L = path.segments[k].L;
+    const L = path.segments[k].L, xs = stationsOf(path.segments[k].member);
     for (let r = 0; r < FORCE_ROWS; r++) {
       for (let sg = 0; sg < 2; sg++) {
         const sign = sg === 0 ? 1 : -1;
@@ -206,18 +308,48 @@ export function scanAxles(
         // an extreme of the wrong sign (a minimum above zero) is never the member's extreme,
         // nor is round-off (forces below 1e-9 of the vehicle's weight, moments of it × lane length)
         if (!(top > 1e-9 * (r === 0 || r === 1 || r === 2 ? weight : weight * path.length))) continue;
-        let found: AxleExtreme | null = null;
+        // each axle's best sample within REFINE_WITHIN of the top, by the peak its parabola promises
+        cands.length = 0;
         for (let i = 0; i < nAx; i++) {
-          const v0 = best[o + i];
+          const slot = o + i, v0 = best[slot];
           if (!(v0 >= top * (1 - REFINE_WITHIN))) continue;
-          const di = bestD[o + i], direction = directions[di], lead = leadsOf[di], p = bestP[o + i];
-          let at = lead[p], v = v0, a = probe(direction, at, k, i, r, sign).a, refined = false;
+          const { lead, p } = where(slot);
+          let peak = v0;
+          if (p > 0 && p + 1 < lead.length && prevV[slot] < v0 && nextV[slot] < v0) {
+            peak = parabolaPeak(lead[p - 1], prevV[slot], lead[p], v0, lead[p + 1], nextV[slot]);
+          }
+          cands.push({ i, peak });
+        }
+        cands.sort((x, y) => y.peak - x.peak);
+        let found: AxleExtreme | null = null;
+        for (const { i, peak } of cands) {
+          const slot = o + i, v0 = best[slot];
+          // a candidate whose promise (good to the parabola's third-order error) stays below what is found already
+          if (found && peak < sign * found.value * (1 - 1e-3)) continue;
+          const { di, lead, p } = where(slot);
+          const direction = directions[di];
+          let at = lead[p], v = v0, a = bestA[slot], refined = false;
           if (p > 0 && p + 1 < lead.length) {
-            const lo = probe(direction, lead[p - 1], k, i, r, sign).v, hi = probe(direction, lead[p + 1], k, i, r, sign).v;
-            if (lo < v0 && hi < v0) {
+            // a neighbour the scan did not see on this segment (the axle on an end node) is probed
+            const lo = prevV[slot] > -Infinity ? prevV[slot] : probe(direction, lead[p - 1], k, i, r, sign).v;
+            const hi = nextV[slot] > -Infinity ? nextV[slot] : probe(direction, lead[p + 1], k, i, r, sign).v;
+            // which side rises from the sample (none: the sample is the top, e.g. a kink where an axle is on a node)
+            let side = 0, td = 0, vd = 0;
+            if (r >= 4 && lo < v0 && hi < v0 && worthRefining(lead[p - 1], lo, lead[p], v0, lead[p + 1], hi)) {
+              const d = 1e-6 * Math.min(Math.abs(lead[p] - lead[p - 1]), Math.abs(lead[p + 1] - lead[p]));
+              const up = Math.sign(lead[p + 1] - lead[p]);
+              td = lead[p] - up * d; vd = probe(direction, td, k, i, r, sign).v;
+              if (vd > v0) side = -1;
+              else {
+                td = lead[p] + up * d; vd = probe(direction, td, k, i, r, sign).v;
+                if (vd > v0) side = 1;
+              }
+            }
+            if (side !== 0) {
               refinements++;
-              const t0 = Math.min(lead[p - 1], lead[p + 1]), t1 = Math.max(lead[p - 1], lead[p + 1]);
-              const g = golden((t) => probe(direction, t, k, i, r, sign).v, t0, t1, 1e-9 * Math.max(1, path.length));
+              const f = (t: number) => probe(direction, t, k, i, r, sign).v;
+              const other = lead[p + side], vo = side < 0 ? lo : hi;
+              const g = maximiseSmooth(f, [lead[p], td, other], [v0, vd, vo], 1e-9 * Math.max(1, path.length));
               if (g.v > v) {
                 const q = probe(direction, g.t, k, i, r, sign);
                 // keep the sample unless refining gains more than round-off (a sample on a target is exact)
@@ -230,6 +362,15 @@ export function scanAxles(
           }
         }
         if (!found || !(found.x > 0 && found.x < L)) continue;
+        // no station needed when a station of the member reaches the value at that same position
+        // (N, V and T are constant between axles; the member's statics are left in f1 and ls)
+        probe(found.direction, found.lead, k, found.axle, r, sign);
+        let atStation = false;
+        for (let j = 0; j < xs.length && !atStation; j++) {
+          internalForces(ls, f1, xs[j], xs[j] <= 0, out);
+          atStation = sign * out[r] >= sign * found.value - 1e-12 * Math.abs(found.value);
+        }
+        if (!found.refined && atStation) continue;
         extremes.push(found);
         if (found.refined) leads[found.direction].push(found.lead);
       }
@@ -238,13 +379,101 @@ export function scanAxles(
   return { extremes, leads, evaluations, refinements };
 }
 
-/** Maximum of f on [a, b] by golden-section search, stopping when the bracket is below tol. */
-export function golden(f: (t: number) => number, a: number, b: number, tol: number): { t: number; v: number } {
-  let c = b - GOLD * (b - a), d = a + GOLD * (b - a);
-  let fc = f(c), fd = f(d);
-  for (let it = 0; it < 200 && b - a > tol; it++) {
-    if (fc > fd) { b = d; d = c; fd = fc; c = b - GOLD * (b - a); fc = f(c); }
-    else { a = c; c = d; fc = fd; d = a + GOLD * (b - a); fd = f(d); }
+/** Peak of the parabola through (t0, y0), (t1, y1), (t2, y2); +∞ when it is not concave (a kink). */
+export function parabolaPeak(t0: number, y0: number, t1: number, y1: number, t2: number, y2: number): number {
+  const d01 = (y1 - y0) / (t1 - t0), d12 = (y2 - y1) / (t2 - t1);
+  const a2 = (d12 - d01) / (t2 - t0);
+  if (!(a2 < 0)) return Infinity;
+  const a1 = d01 - a2 * (t0 + t1);
+  const tp = -a1 / (2 * a2);
+  return y0 + (tp - t0) * d01 + a2 * (tp - t0) * (tp - t1);
+}
+
+/**
+ * Whether the samples around a sampled maximum y1 leave room for more than 1e-10·|y1|: the
+ * parabola through them estimates the peak (a smooth maximum is quadratic near its top); a
+ * non-concave fit (a kink) is always refined.
+ */
+export function worthRefining(t0: number, y0: number, t1: number, y1: number, t2: number, y2: number): boolean {
+  return parabolaPeak(t0, y0, t1, y1, t2, y2) - y1 > 1e-10 * Math.abs(y1);
+}
+
+/**
+ * Maximum of a smooth f between ts[0] and ts[2] (three samples with ts[1] between them, f
+ * rising from ts[0] towards ts[1]): successive parabolic interpolation — exact in one step for
+ * a quadratic, a few for the quartics met here — falling back on Brent's method when a
+ * parabola is not concave or leaves the bracket. Stops when a step is below tol or gains
+ * nothing above round-off.
+ */
+export function maximiseSmooth(f: (t: number) => number, ts: number[], vs: number[], tol: number): { t: number; v: number } {
+  const lo = Math.min(ts[0], ts[2]), hi = Math.max(ts[0], ts[2]);
+  const t = ts.slice(), v = vs.slice();
+  let bi = v[0] >= v[1] && v[0] >= v[2] ? 0 : v[1] >= v[2] ? 1 : 2;
+  for (let it = 0; it < 30; it++) {
+    const peakT = parabolaVertex(t[0], v[0], t[1], v[1], t[2], v[2]);
+    if (!(peakT > lo && peakT < hi)) return maximise(f, lo, hi, tol);
+    const step = Math.abs(peakT - t[bi]);
+    const vp = f(peakT);
+    // replace the lowest sample
+    let wi = 0;
+    for (let j = 1; j < 3; j++) if (v[j] < v[wi]) wi = j;
+    const gain = vp - v[bi];
+    t[wi] = peakT; v[wi] = vp;
+    if (gain > 0) bi = wi;
+    if (step < tol || Math.abs(gain) <= 1e-15 * Math.abs(vp)) break;
   }
-  return fc > fd ? { t: c, v: fc } : { t: d, v: fd };
+  return { t: t[bi], v: v[bi] };
+}
+
+/** Abscissa of the vertex of the parabola through three points (NaN when it is not concave). */
+function parabolaVertex(t0: number, y0: number, t1: number, y1: number, t2: number, y2: number): number {
+  const d01 = (y1 - y0) / (t1 - t0), d12 = (y2 - y1) / (t2 - t1);
+  const a2 = (d12 - d01) / (t2 - t0);
+  if (!(a2 < 0)) return NaN;
+  return -(d01 - a2 * (t0 + t1)) / (2 * a2);
+}
+
+/**
+ * Maximum of f on [a, b] by Brent's method (parabolic steps, golden-section steps when a
+ * parabola does not help; R. P. Brent, Algorithms for Minimization without Derivatives,
+ * 1973, ch. 5, from memory), stopping when the bracket is below about 4·tol. f may return
+ * −∞ (treated as very low). Exact for a quadratic after a few steps.
+ */
+export function maximise(f: (t: number) => number, a: number, b: number, tol: number): { t: number; v: number } {
+  const C = (3 - Math.sqrt(5)) / 2;
+  const g = (t: number) => { const v = f(t); return v === -Infinity ? Infinity : -v; };
+  let x = a + C * (b - a), w = x, v = x;
+  let fx = g(x), fw = fx, fv = fx;
+  let d = 0, e = 0;
+  for (let it = 0; it < 100; it++) {
+    const m = 0.5 * (a + b), tol2 = 2 * tol;
+    if (Math.abs(x - m) <= tol2 - 0.5 * (b - a)) break;
+    let golden = true;
+    if (Math.abs(e) > tol) {
+      let r = (x - w) * (fx - fv), q = (x - v) * (fx - fw);
+      let p = (x - v) * q - (x - w) * r;
+      q = 2 * (q - r);
+      if (q > 0) p = -p; else q = -q;
+      const eOld = e;
+      e = d;
+      if (Math.abs(p) < Math.abs(0.5 * q * eOld) && p > q * (a - x) && p < q * (b - x)) {
+        d = p / q;
+        const u = x + d;
+        if (u - a < tol2 || b - u < tol2) d = x < m ? tol : -tol;
+        golden = false;
+      }
+    }
+    if (golden) { e = x >= m ? a - x : b - x; d = C * e; }
+    const u = Math.abs(d) >= tol ? x + d : x + (d > 0 ? tol : -tol);
+    const fu = g(u);
+    if (fu <= fx) {
+      if (u >= x) a = x; else b = x;
+      v = w; fv = fw; w = x; fw = fx; x = u; fx = fu;
+    } else {
+      if (u < x) a = u; else b = u;
+      if (fu <= fw || w === x) { v = w; fv = fw; w = u; fw = fu; }
+      else if (fu <= fv || v === x || v === w) { v = u; fv = fu; }
+    }
+  }
+  return { t: x, v: fx === Infinity ? -Infinity : -fx };
 }

@@ -5,7 +5,7 @@
  * quantities are QUᵀ·w, the lane members' own statics are added on top, then compared.
  */
 import type { InfluenceBasis } from './influence.js';
-import { UnitLoadEffect } from './influence.js';
+import { type UnitFefMemo, UnitLoadEffect } from './influence.js';
 import type { LinearSystem } from '../engine/system.js';
 import { type LanePathGeometry, locate, type PathPoint } from './path.js';
 import { axlePosition, type Direction, vehiclePositions } from './positions.js';
@@ -38,7 +38,7 @@ export function laneTargets(path: LanePathGeometry, basis: InfluenceBasis | ((mi
 
 export function movingEnvelope(
   sys: LinearSystem, basis: InfluenceBasis, path: LanePathGeometry, axles: Axle[], step: number, directions: Direction[],
-  opts: { targets?: readonly number[]; extraLeads?: Partial<Record<Direction, readonly number[]>> } = {},
+  opts: { targets?: readonly number[]; extraLeads?: Partial<Record<Direction, readonly number[]>>; memo?: UnitFefMemo } = {},
 ): Envelope {
   const { nFull, nBasis, QU, denseFull, denseOf } = basis;
   const nDense = denseFull.length;
@@ -50,7 +50,7 @@ export function movingEnvelope(
   const posMax = new Float64Array(nFull).fill(NaN), posMin = new Float64Array(nFull).fill(NaN);
   const dirMax = new Uint8Array(nFull), dirMin = new Uint8Array(nFull);
 
-  const effect = new UnitLoadEffect(sys, basis);
+  const effect = new UnitLoadEffect(sys, basis, opts.memo);
   const w = new Float64Array(nBasis);
   const wIdx: number[] = [];
   const scratch = new Float64Array(nFull);

@@ -10,7 +10,7 @@ import { FORCE_KEYS } from '../engine/types.js';
 import type { Model } from '../model/types.js';
 import { type Envelope, laneTargets, movingEnvelope } from './envelope.js';
 import { type AxleScan, scanAxles } from './axles.js';
-import { buildInfluenceBasis, type InfluenceBasis, type InfluenceInput, UnitLoadEffect } from './influence.js';
+import { UnitFefMemo, buildInfluenceBasis, type InfluenceBasis, type InfluenceInput, UnitLoadEffect } from './influence.js';
 import { buildLanePath, type LanePathGeometry, locate, type PathPoint } from './path.js';
 import type { Direction } from './positions.js';
 import { type InfluenceLine, type MemberExtremes, type MemberQuantity, MOVING_FORCE_KEYS, type MovingResults, type VehicleAt } from './types.js';
@@ -31,6 +31,8 @@ export interface MovingComputation {
   rowsOfCase: Map<number, number[]>;
   /** stations added to lane members at the governing axle positions */
   extraStations: number;
+  /** time spent in the scan under the axles (included in milliseconds) */
+  axleMs: number;
   milliseconds: number;
 }
 
@@ -71,11 +73,13 @@ export function computeMoving(inp: MovingInput): MovingComputation {
     return { axles, path, step, dirs, targets: laneTargets(path, inp.stations) };
   });
   const axleScans: AxleScan[] = [];
-  let extraStations = 0;
+  let extraStations = 0, axleMs = 0;
+  const memo = new UnitFefMemo(sys, model.settings.verticalAxis === 'Y' ? [0, -1, 0] : [0, 0, -1]);
   const basis = buildInfluenceBasis({ ...inp, laneMembers }, (lane) => {
     const extra = new Map<number, number[]>();
+    const ta = performance.now();
     for (const r of runs) {
-      const scan = scanAxles(sys, lane, r.path, r.axles, r.step, r.dirs, r.targets);
+      const scan = scanAxles(sys, lane, r.path, r.axles, r.step, r.dirs, r.targets, inp.stations, memo);
       axleScans.push(scan);
       for (const e of scan.extremes) {
         const list = extra.get(e.member) ?? [];
@@ -83,12 +87,13 @@ export function computeMoving(inp: MovingInput): MovingComputation {
         extra.set(e.member, list);
       }
     }
+    axleMs = performance.now() - ta;
     return extra;
   });
   for (const mi of laneMembers) extraStations += basis.memberStations[mi].length - inp.stations(mi).length;
   const envelopes = runs.map((r, j) =>
-    movingEnvelope(sys, basis, r.path, r.axles, r.step, r.dirs, { targets: r.targets, extraLeads: axleScans[j].leads }));
-  return { basis, paths, envelopes, axleScans, rowsOfCase, extraStations, milliseconds: performance.now() - t0 };
+    movingEnvelope(sys, basis, r.path, r.axles, r.step, r.dirs, { targets: r.targets, extraLeads: axleScans[j].leads, memo }));
+  return { basis, paths, envelopes, axleScans, rowsOfCase, extraStations, axleMs, milliseconds: performance.now() - t0 };
 }
 
 /** Loadings with every one that includes a moving-load case split into a max and a min envelope. */
@@ -232,6 +237,7 @@ export function movingResults(model: Model, comp: MovingComputation, loadings: L
       positions: comp.envelopes.reduce((n, e) => n + e.positions, 0),
       extraStations: comp.extraStations,
       refined: comp.axleScans.reduce((n, a) => n + a.leads.forward.length + a.leads.backward.length, 0),
+      axleMilliseconds: comp.axleMs,
       milliseconds: comp.milliseconds,
     },
   };

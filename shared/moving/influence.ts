@@ -49,9 +49,11 @@ export interface LaneBasis {
   restrained: Uint8Array;
 }
 
-/** A lane basis with its solved columns: displacement of mesh freedom g under basis column b. */
+/** A lane basis with its solved columns: the displacement of mesh freedom g under basis column b is X[b·nEq + eq[g]] (0 when eq[g] < 0). */
 export interface LaneResponse extends LaneBasis {
-  disp(b: number, g: number): number;
+  X: Float64Array;
+  eq: Int32Array;
+  nEq: number;
 }
 
 export interface InfluenceBasis extends LaneBasis {
@@ -114,7 +116,7 @@ export function buildInfluenceBasis(inp: InfluenceInput, extend?: (r: LaneRespon
   const B = new Float64Array(nEq * nBasis);
   for (let g = 0; g < nDofAll; g++) if (basisOf[g] >= 0) B[basisOf[g] * nEq + eq[g]] = 1;
   const X = nBasis > 0 ? inp.solve(B, nBasis) : new Float64Array(0);
-  const extra = extend?.({ nUser, basisOf, nBasis, down, restrained, disp: (b, g) => (eq[g] >= 0 ? X[b * nEq + eq[g]] : 0) });
+  const extra = extend?.({ nUser, basisOf, nBasis, down, restrained, X, eq, nEq });
 
   // full layout
   const memberOff = new Int32Array(nMem + 1);
@@ -240,16 +242,47 @@ export function withStations(xs: Float64Array, extra: readonly number[], L: numb
   return Float64Array.from(u);
 }
 
-/** Local fixed-end forces of a load P along `down` at distance a on prismatic member mi (into out12). */
-export function unitFef(sys: LinearSystem, mi: number, a: number, P: number, down: readonly number[], out12: Float64Array, ls?: LoadSet): LoadSet {
-  const { mesh } = sys;
-  const m = mesh.members[mi];
-  const R = m.R;
+/** A load set of one point load P along `down` at distance a on member mi (local components). */
+function pointSet(sys: LinearSystem, mi: number, a: number, P: number, down: readonly number[], ls?: LoadSet): LoadSet {
+  const R = sys.mesh.members[mi].R;
   const set = ls ?? { dist: [], point: [0, 0, 0, 0], moment: [], eps: 0, grad: 0 };
   set.point[0] = a;
   set.point[1] = P * (R[0] * down[0] + R[1] * down[1] + R[2] * down[2]);
   set.point[2] = P * (R[3] * down[0] + R[4] * down[1] + R[5] * down[2]);
   set.point[3] = P * (R[6] * down[0] + R[7] * down[1] + R[8] * down[2]);
+  return set;
+}
+
+/**
+ * Unit-load fixed-end forces by member and position, computed once (positions rounded to
+ * 1 nm, as the envelope's own cache): the scan under the axles and the envelopes stand axles
+ * on the same points, and the fixed-end forces are the costly part of a unit-load effect.
+ */
+export class UnitFefMemo {
+  private byMember = new Map<number, Map<number, Float64Array>>();
+  private size = 0;
+  constructor(private sys: LinearSystem, private down: readonly number[], private limit = 4e5) {}
+
+  /** local fixed-end forces (12) of a unit load along −vertical at distance a on member mi; do not modify */
+  get(mi: number, a: number): Float64Array {
+    let byA = this.byMember.get(mi);
+    if (!byA) { byA = new Map(); this.byMember.set(mi, byA); }
+    const key = Math.round(a * 1e9);
+    let f = byA.get(key);
+    if (!f) {
+      f = new Float64Array(12);
+      unitFef(this.sys, mi, a, 1, this.down, f);
+      if (this.size < this.limit) { byA.set(key, f); this.size++; }
+    }
+    return f;
+  }
+}
+
+/** Local fixed-end forces of a load P along `down` at distance a on prismatic member mi (into out12). */
+export function unitFef(sys: LinearSystem, mi: number, a: number, P: number, down: readonly number[], out12: Float64Array, ls?: LoadSet): LoadSet {
+  const { mesh } = sys;
+  const m = mesh.members[mi];
+  const set = pointSet(sys, mi, a, P, down, ls);
   const e = m.firstElement;
   const p = mesh.elProps;
   fixedEndForces(set, m.L, { EA: p[e * 5], EIy: p[e * 5 + 1], EIz: p[e * 5 + 2], GJ: p[e * 5 + 3] }, p[e * 5 + 4], m.truss, elementReleases(mesh.elRel[e]), out12);
@@ -310,7 +343,7 @@ export class UnitLoadEffect {
   private fef = new Float64Array(12);
   private fg = new Float64Array(12);
   private tmp = new Float64Array(0);
-  constructor(private sys: LinearSystem, private basis: InfluenceBasis) {}
+  constructor(private sys: LinearSystem, private basis: InfluenceBasis, private memo?: UnitFefMemo) {}
 
   private work = new Float64Array(0);
   apply(
@@ -320,7 +353,12 @@ export class UnitLoadEffect {
   ): void {
     const { mesh } = this.sys;
     const m = mesh.members[mi];
-    const ls = unitFef(this.sys, mi, a, P, this.basis.down, this.fef, this.ls);
+    let ls: LoadSet;
+    if (this.memo) {
+      const u = this.memo.get(mi, a);
+      for (let i = 0; i < 12; i++) this.fef[i] = P * u[i];
+      ls = pointSet(this.sys, mi, a, P, this.basis.down, this.ls);
+    } else ls = unitFef(this.sys, mi, a, P, this.basis.down, this.fef, this.ls);
     vecToGlobal12(m.R, this.fef, this.fg);
     const nU6 = this.basis.nUser * 6;
     for (let i = 0; i < 12; i++) {

@@ -79,7 +79,8 @@ export interface MovingResults {
   /**
    * basis: unit-load columns; quantities: dense influence quantities; positions: vehicle
    * positions evaluated; extraStations: stations added under axles; refined: positions found
-   * by refinement between the regular ones (axles.ts)
+   * by refinement between the regular ones; axleMilliseconds: the scan under the axles
+   * (axles.ts), part of milliseconds
    */
-  diagnostics: { basis: number; quantities: number; positions: number; extraStations: number; refined: number; milliseconds: number };
+  diagnostics: { basis: number; quantities: number; positions: number; extraStations: number; refined: number; axleMilliseconds: number; milliseconds: number };
 }
