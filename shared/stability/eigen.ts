@@ -45,6 +45,12 @@ export interface EigenOptions {
   subspaceTolerance?: number;
   /** subspace iteration: default 300 */
   maxIterations?: number;
+  /**
+   * starting vectors (column-major, N each), e.g. the eigenvectors of a similar problem solved
+   * before: Lanczos starts from them (topped up with pseudo-random vectors to a full block),
+   * subspace iteration puts them first. Default: pseudo-random vectors only.
+   */
+  start?: Float64Array;
 }
 
 export interface EigenResult {
@@ -213,7 +219,7 @@ export function lowestEigenpairs(
     };
   }
   n = Math.min(n, N);
-  if ((options.method ?? 'lanczos') === 'subspace') return subspaceIteration(fact, K, B, n, options);
+  if ((options.method ?? 'lanczos') === 'subspace') return subspaceIteration(fact, K, B, n, options, options.start);
   const lz = blockLanczos(fact, K, B, n, options);
   if (lz.converged) return lz;
   // the basis filled up first: subspace iteration from the best Ritz vectors
@@ -405,7 +411,10 @@ function blockLanczos(
   fact: Factorisation, K: SymmetricCsc, B: SymmetricCsc, n: number, options: EigenOptions,
 ): EigenResult & { start?: Float64Array } {
   const N = K.n;
-  const p0 = Math.min(N, Math.max(1, Math.floor(options.block ?? Math.min(n, 3))));
+  const given = options.start ? Math.min(Math.floor(options.start.length / N), N) : 0;
+  // with starting vectors, one pseudo-random vector more: an invariant subspace of the start (an
+  // eigenvector, but not the lowest) must not end the iteration
+  const p0 = Math.min(N, Math.max(1, given ? given + 1 : 0, Math.floor(options.block ?? Math.min(n, 3))));
   const tol = options.tolerance ?? 1e-6;
   const maxBasis = Math.min(N, Math.max(n + p0, Math.floor(options.maxBasis ?? 3 * n + 40)));
   const blocks: Float64Array[] = [], sizes: number[] = [], offsets: number[] = [];
@@ -413,7 +422,8 @@ function blockLanczos(
   let m = 0, solves = 0, iterations = 0;
   // start: a deterministic random block, K-orthonormal
   let W: Float64Array = new Float64Array(N * p0);
-  randomFill(W, 0, N * p0, 1);
+  randomFill(W, given * N, N * p0, 1);
+  if (given) W.set(options.start!.subarray(0, given * N));
   let first = orthonormalise(W, symmetricProduct(K, W, p0), p0, N, 0);
   let cur = first.V, pk = first.r;
   let theta: number[] = [], Y: Matrix | null = null, wanted: number[] = [];
