@@ -43,6 +43,7 @@ const routes: RouteRecordRaw[] = [
   { path: '/set-password', name: 'set-password', component: () => import('../views/SetPasswordView.vue'), meta: { public: true, layout: 'bare', title: 'Choose a password' } },
   { path: '/forgot-password', name: 'forgot-password', component: () => import('../views/ForgotPasswordView.vue'), meta: { public: true, layout: 'bare', title: 'Forgot password' } },
   { path: '/admin/users', name: 'admin-users', component: () => import('../views/AdminUsersView.vue'), meta: { minRole: 'admin', title: 'Users' } },
+  { path: '/help/conventions', name: 'conventions', component: () => import('../views/ConventionsView.vue'), meta: { public: true, title: 'Axes, signs and units' } },
   { path: '/about', name: 'about', component: () => import('../views/AboutView.vue'), meta: { public: true, title: 'About' } },
   { path: '/not-allowed', name: 'forbidden', component: () => import('../views/NotFoundView.vue'), props: { reason: 'forbidden' }, meta: { title: 'Not allowed' } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('../views/NotFoundView.vue'), meta: { public: true, title: 'Not found' } },

@@ -52,6 +52,8 @@ export function breadcrumbsFor(ctx: CrumbContext): Crumb[] {
       return [current('Administration'), current('Users')];
     case 'about':
       return [current('About Trestle')];
+    case 'conventions':
+      return [current('Help'), current('Axes, signs and units')];
     case 'forbidden':
       return [current('Not allowed')];
     case 'not-found':
