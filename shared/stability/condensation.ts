@@ -35,9 +35,10 @@ interface MemberBlock {
   iiIdx: Int32Array;
   ibPos: Int32Array;
   ibIdx: Int32Array;
-  /** positions in the reduced values of the lower pairs of b (dense index r*nb + c, r ≥ c) */
+  /** positions in the reduced values of the lower pairs (redRow ≥ redCol) of b */
   redPos: Int32Array;
-  redIdx: Int32Array;
+  redRow: Int32Array;
+  redCol: Int32Array;
 }
 
 export interface CondensedSolver {
@@ -115,22 +116,32 @@ export function condensedSolver(sys: LinearSystem, options: FactorOptions = {}):
         if (r >= 0 && r < ni) { ibPos.push(p); ibIdx.push(r * nb + c); }
       }
     });
-    const redPos: number[] = [], redIdx: number[] = [];
+    const redPos: number[] = [], redRow: number[] = [], redCol: number[] = [];
     for (let c = 0; c < nb; c++) {
       for (let r = c; r < nb; r++) {
         const q = find(red, b[r], b[c]);
         if (q < 0) throw new Error(`condensed system: member ${m.id} coupling (${b[r]}, ${b[c]}) missing from the reduced pattern`);
-        redPos.push(q); redIdx.push(r * nb + c);
+        redPos.push(q); redRow.push(r); redCol.push(c);
       }
     }
     blocks.push({
       i0, ni, b, iiPos: Int32Array.from(iiPos), iiIdx: Int32Array.from(iiIdx), ibPos: Int32Array.from(ibPos), ibIdx: Int32Array.from(ibIdx),
-      redPos: Int32Array.from(redPos), redIdx: Int32Array.from(redIdx),
+      redPos: Int32Array.from(redPos), redRow: Int32Array.from(redRow), redCol: Int32Array.from(redCol),
     });
   }
   const refac: Refactorisation | null = nRed > 0 ? refactorisation(red, options) : null;
   const pivotTolerance = options.pivotTolerance ?? 1e-10;
   const redValues = new Float64Array(red.values.length);
+  // W = A_ii⁻¹ A_ib of every member, kept from the condensation to the back-substitution
+  const wOff = new Int32Array(blocks.length + 1);
+  let maxNi = 0, maxNb = 0;
+  blocks.forEach((bk, k) => {
+    wOff[k + 1] = wOff[k] + bk.ni * bk.b.length;
+    maxNi = Math.max(maxNi, bk.ni);
+    maxNb = Math.max(maxNb, bk.b.length);
+  });
+  const Wall = new Float64Array(wOff[blocks.length]);
+  const L = new Float64Array(maxNi * maxNi), Aib = new Float64Array(maxNi * maxNb);
 
   return {
     nReduced: nRed,
@@ -141,34 +152,37 @@ export function condensedSolver(sys: LinearSystem, options: FactorOptions = {}):
       for (let k = 0; k < uuFull.length; k++) redValues[uuRed[k]] += A[uuFull[k]];
       const Bred = new Float64Array(nRed * nrhs);
       for (let c = 0; c < nrhs; c++) for (let i = 0; i < nRed; i++) Bred[c * nRed + i] = B[c * nEq + i];
-      // per member: L Lᵀ = A_ii, W = A_ii⁻¹ A_ib, g = A_ii⁻¹ f_i; A_red −= A_ibᵀ W, f_red −= Wᵀ f_i
-      const Ws: Float64Array[] = new Array(blocks.length), Gs: Float64Array[] = new Array(blocks.length);
-      blocks.forEach((bk, k) => {
-        const { ni, b } = bk, nb = b.length;
-        const L = new Float64Array(ni * ni), Aib = new Float64Array(ni * nb);
+      // per member: L Lᵀ = A_ii, W = A_ii⁻¹ A_ib, g = A_ii⁻¹ f_i (in place in X); A_red −= A_ibᵀ W, f_red −= Wᵀ f_i
+      const X = new Float64Array(nEq * nrhs);
+      for (let k = 0; k < blocks.length; k++) {
+        const bk = blocks[k], ni = bk.ni, b = bk.b, nb = b.length, i0 = bk.i0;
+        L.fill(0, 0, ni * ni);
+        Aib.fill(0, 0, ni * nb);
         for (let q = 0; q < bk.iiPos.length; q++) L[bk.iiIdx[q]] += A[bk.iiPos[q]];
         for (let q = 0; q < bk.ibPos.length; q++) Aib[bk.ibIdx[q]] += A[bk.ibPos[q]];
-        cholesky(L, ni, pivotTolerance, bk.i0);
-        const W = Aib.slice();
+        cholesky(L, ni, pivotTolerance, i0);
+        const W = Wall.subarray(wOff[k], wOff[k + 1]);
+        W.set(Aib.subarray(0, ni * nb));
         cholSolve(L, ni, W, nb);
-        const g = new Float64Array(ni * nrhs);
-        for (let c = 0; c < nrhs; c++) for (let i = 0; i < ni; i++) g[i * nrhs + c] = B[c * nEq + bk.i0 + i];
-        cholSolve(L, ni, g, nrhs);
         for (let q = 0; q < bk.redPos.length; q++) {
-          const idx = bk.redIdx[q], r = Math.floor(idx / nb), c = idx % nb;
-          let s = 0;
-          for (let i = 0; i < ni; i++) s += Aib[i * nb + r] * W[i * nb + c];
-          redValues[bk.redPos[q]] -= s;
+          const r = bk.redRow[q], c = bk.redCol[q];
+          let sum = 0;
+          for (let i = 0; i < ni; i++) sum += Aib[i * nb + r] * W[i * nb + c];
+          redValues[bk.redPos[q]] -= sum;
         }
         for (let c = 0; c < nrhs; c++) {
+          const o = c * nEq + i0;
           for (let r = 0; r < nb; r++) {
-            let s = 0;
-            for (let i = 0; i < ni; i++) s += W[i * nb + r] * B[c * nEq + bk.i0 + i];
-            Bred[c * nRed + b[r]] -= s;
+            let sum = 0;
+            for (let i = 0; i < ni; i++) sum += W[i * nb + r] * B[o + i];
+            Bred[c * nRed + b[r]] -= sum;
           }
+          // g = A_ii⁻¹ f_i into X (one column)
+          const g = X.subarray(o, o + ni);
+          g.set(B.subarray(o, o + ni));
+          cholSolve(L, ni, g, 1);
         }
-        Ws[k] = W; Gs[k] = g;
-      });
+      }
       let Xred: Float64Array = new Float64Array(0);
       if (refac) {
         try {
@@ -178,18 +192,20 @@ export function condensedSolver(sys: LinearSystem, options: FactorOptions = {}):
           throw err;
         }
       }
-      const X = new Float64Array(nEq * nrhs);
       for (let c = 0; c < nrhs; c++) for (let i = 0; i < nRed; i++) X[c * nEq + i] = Xred[c * nRed + i];
-      blocks.forEach((bk, k) => {
-        const { ni, b } = bk, nb = b.length, W = Ws[k], g = Gs[k];
+      // u_i = g − W u_b
+      for (let k = 0; k < blocks.length; k++) {
+        const bk = blocks[k], ni = bk.ni, b = bk.b, nb = b.length;
+        const W = Wall.subarray(wOff[k], wOff[k + 1]);
         for (let c = 0; c < nrhs; c++) {
+          const o = c * nEq + bk.i0, ob = c * nRed;
           for (let i = 0; i < ni; i++) {
-            let s = g[i * nrhs + c];
-            for (let r = 0; r < nb; r++) s -= W[i * nb + r] * Xred[c * nRed + b[r]];
-            X[c * nEq + bk.i0 + i] = s;
+            let sum = X[o + i];
+            for (let r = 0; r < nb; r++) sum -= W[i * nb + r] * Xred[ob + b[r]];
+            X[o + i] = sum;
           }
         }
-      });
+      }
       return X;
     },
   };
