@@ -9,7 +9,14 @@
  *   at stations come from the statics of the deformed member (p-delta.ts).
  * - Iteration: N⁰ from the first-order solution of the loading; then factorise K + K_G(Nᵏ),
  *   solve, recompute the element axial forces Nᵏ⁺¹; stop when max|Nᵏ⁺¹ − Nᵏ| ≤ tolerance ·
- *   max|Nᵏ⁺¹|. The ordering and symbolic factorisation are done once for all loadings.
+ *   max|Nᵏ⁺¹|. Each solve condenses every member's internal nodes out exactly (condensation.ts)
+ *   and factorises a system of the user's nodes only; its ordering and symbolic factorisation
+ *   are done once for all loadings.
+ * - Equilibrium diagnostics of a second-order loading are taken on the displaced geometry
+ *   (loads and reactions at the displaced nodes); what remains is of the order of the
+ *   rotations squared (the geometric stiffness is linearised).
+ * - `amplification`: largest horizontal node translation, second over first order (the
+ *   first order with unreduced stiffness and the same load scale).
  * - A loading at or above its critical load (a non-positive pivot of K + K_G, or axial forces
  *   that stop converging while K + K_G(N) is no longer positive definite) throws
  *   SecondOrderInstabilityError naming it with αcr of those axial forces and that stiffness
