@@ -3,8 +3,9 @@
  * and a long truss; the solver alone when bench/solver.ts is present.
  * Targets (issue 3): 10k-member frame with 20 cases, assembly + factorisation + solve ≤ 2 s;
  * 50k members ≤ 40 s; a 10k-member truss ≤ 0.1 s.
- * Arguments pick items: `npm run bench -- frame1k frame10k frame50k truss10k moving solver api`.
- * Without arguments: every item except frame50k (minutes of CPU); `--all` or BENCH_ALL=1 adds it.
+ * Arguments pick items: `npm run bench -- frame1k frame10k frame50k truss10k moving stability solver api`.
+ * Without arguments: every item except frame50k (minutes of CPU); `--all` or BENCH_ALL=1 adds it
+ * (and the 50k frame's natural modes to `stability`, bench/stability.ts).
  * Every figure is given as CPU time (user + system) beside wall time: on a shared, loaded
  * machine the wall clock mostly measures the other processes.
  */
@@ -13,7 +14,7 @@ import type { AnalysisResult } from '../shared/engine/types.js';
 import type { Model } from '../shared/model/types.js';
 import { benchEngine, buildFrameModel, buildTrussModel, type EngineBenchRow, printEngineRow } from './engine.js';
 
-const ITEMS = ['frame1k', 'frame10k', 'frame50k', 'truss10k', 'moving', 'solver', 'api'];
+const ITEMS = ['frame1k', 'frame10k', 'frame50k', 'truss10k', 'moving', 'stability', 'solver', 'api'];
 const SLOW = ['frame50k'];
 const args = process.argv.slice(2);
 const unknown = args.filter((a) => a !== '--all' && !ITEMS.includes(a));
@@ -74,6 +75,7 @@ async function main(): Promise<void> {
     }
   }
   if (pick.includes('moving')) (await import('./moving.js')).benchMoving();
+  if (pick.includes('stability')) await (await import('./stability.js')).benchStability({ all });
   if (pick.includes('solver')) {
     try {
       const mod = (await import('./solver.js')) as { benchSolver?: () => unknown };
