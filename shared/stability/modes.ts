@@ -5,8 +5,9 @@
  *
  * Frame members are subdivided (default 4 sub-elements per prismatic member, internal nodes
  * after the user's) so that the members' own modes are captured: with consistent mass, 4
- * cubic elements give the first two bending frequencies of a member within about 0.1%
- * (tests/shared/stability/modes.test.ts shows the convergence).
+ * cubic elements give a simply supported member's first bending frequency 0.03% high and its
+ * second 0.4% high, a cantilever's first 0.004% high (tests/shared/stability/modes.test.ts
+ * shows the convergence; 8 sub-elements: 0.002% and 0.03%).
  *
  * Effective modal mass ratio along d (X, Y, Z): Γ_d² / (r_dᵀ M r_d), Γ_d = φᵀ M r_d with
  * φᵀ M φ = 1 and r_d the unit translation along d of every free freedom; the denominator is
