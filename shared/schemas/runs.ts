@@ -248,6 +248,12 @@ export const memberMovingSchema = z.object({
   x: z.number(),
   influence: z.object({ s: z.array(z.number()), value: z.array(z.number()) }),
   envelope: z.object({ x: z.array(z.number()), max: z.array(z.number()), min: z.array(z.number()) }),
+  /** absolute max and min of each force over the member and every vehicle position (x and leading-axle position, SI) */
+  extremes: z.array(z.object({
+    key: z.string(),
+    max: z.object({ value: z.number(), x: z.number(), lead: z.number().nullable(), direction: z.enum(['forward', 'backward']).nullable() }),
+    min: z.object({ value: z.number(), x: z.number(), lead: z.number().nullable(), direction: z.enum(['forward', 'backward']).nullable() }),
+  })).optional(),
 });
 export type MemberMoving = z.infer<typeof memberMovingSchema>;
 

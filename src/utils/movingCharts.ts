@@ -46,3 +46,21 @@ export function vehicleText(position: number | undefined, units: UnitSystem): st
   if (position === undefined || position === null) return '';
   return `${fromSI(position, 'length', units).toFixed(2)} ${unitOf('length', units)}`;
 }
+
+/** One row of the member's moving-load extremes table, in display units. */
+export interface ExtremeRow { force: string; unit: string; max: string; maxAt: string; min: string; minAt: string }
+
+/** The absolute maximum and minimum of each force under the vehicle, with x and where the leading axle stood. */
+export function extremeRows(m: MemberMoving, units: UnitSystem): ExtremeRow[] {
+  const len = unitOf('length', units);
+  return (m.extremes ?? []).map((e) => {
+    const q: Quantity = e.key === 'T' || e.key.startsWith('M_') ? 'moment' : 'force';
+    const where = (x: { x: number; lead: number | null; direction: string | null }) => (x.lead === null ? '' :
+      `x = ${fromSI(x.x, 'length', units).toFixed(3)} ${len}, leading axle at ${fromSI(x.lead, 'length', units).toFixed(3)} ${len} (${x.direction})`);
+    return {
+      force: e.key, unit: unitOf(q, units),
+      max: fromSI(e.max.value, q, units).toFixed(2), maxAt: where(e.max),
+      min: fromSI(e.min.value, q, units).toFixed(2), minAt: where(e.min),
+    };
+  });
+}

@@ -28,6 +28,13 @@ describe('moving loads over the API', () => {
     expect(mv.laneLength).toBeCloseTo(48, 9);
     expect(mv.influence.s.length).toBe(mv.influence.value.length);
     expect(Math.max(...mv.envelope.max)).toBeGreaterThan(0);
+    // the absolute extremes under the axles: the M_major maximum is at least every station's
+    // envelope value (it is one of them, at a station added under the governing axle), with x and the vehicle position
+    const mMax = mv.extremes.find((e: { key: string }) => e.key === 'M_major').max;
+    expect(mMax.value).toBeGreaterThanOrEqual(Math.max(...mv.envelope.max));
+    expect(mv.envelope.x).toContain(mMax.x);
+    expect(typeof mMax.lead).toBe('number');
+    expect(['forward', 'backward']).toContain(mMax.direction);
   });
 
   it('opens member detail on the envelope (max or min) that governed the member', async () => {
