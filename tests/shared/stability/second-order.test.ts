@@ -46,6 +46,21 @@ describe('cantilever column with axial and lateral tip load (P-Δ)', () => {
     });
   }
 
+  it('a "tapered" column whose two end sections are equal (16 taper pieces) gives the same exact answer (0.5 %)', () => {
+    const P = 0.5 * Pcr, H = 10e3, k = Math.sqrt(P / EI);
+    const model = cantileverColumn(L, P, H);
+    model.sections.push({ ...model.sections[0], id: 'S2' });
+    model.members[0].sectionEnd = 'S2';
+    const r = analyseSecondOrder(model);
+    // Timoshenko & Gere 1.11 as above
+    expect(relErr(r.analysis.displacements(0)[6], (H * (Math.tan(k * L) - k * L)) / (P * k))).toBeLessThan(0.005);
+    const f = r.analysis.memberForces(0, 0);
+    for (let i = 0; i < f.x.length - 1; i++) {
+      const exact = (H * Math.sin(k * (L - f.x[i]))) / (k * Math.cos(k * L));
+      expect(Math.abs(Math.abs(f.M_major[i]) - exact)).toBeLessThanOrEqual(0.005 * exact);
+    }
+  });
+
   it('moment along the column: M(x) = H/k·[sin k(L−x)/cos kL] at every station within 0.5 %', () => {
     // same source: the deflected column y'' + k²y = k²δ − H(L−x)/EI gives M(x) = H sin(k(L−x))/(k cos kL)
     const P = 0.6 * Pcr, H = 10e3, k = Math.sqrt(P / EI);
