@@ -1,6 +1,7 @@
 /**
  * The `trestle` batch command:
  *   trestle analyse <input> --out <dir>   displacements.csv, reactions.csv, member_forces.csv
+ *                                         (and moving_extremes.csv with moving loads)
  *   trestle check <input> --out <dir>     the same plus utilisation.csv and checks.csv
  * Both add stability.csv (elastic critical load factors) when `buckling_modes` > 0 or αcr were
  * computed for the first-order stability warning, and modes.csv when `modes` > 0. The
@@ -16,7 +17,7 @@ import { join } from 'node:path';
 import type { AnalysisResult } from '../../shared/engine/types.js';
 import { InstabilityError } from '../../shared/engine/types.js';
 import {
-  checksTable, displacementTable, memberForceTable, reactionTable, toCsv, utilisationTable, type DesignResultLike, type ResultTable,
+  checksTable, displacementTable, memberForceTable, movingExtremesTable, reactionTable, toCsv, utilisationTable, type DesignResultLike, type ResultTable,
 } from '../../shared/exports/index.js';
 import type { Model } from '../../shared/model/types.js';
 import { formatProblem } from '../../shared/reader/index.js';
@@ -139,6 +140,8 @@ export async function runCli(args: string[], io: CliIO): Promise<number> {
     }
 
     const tables: ResultTable[] = [displacementTable(model, analysis), reactionTable(model, analysis), memberForceTable(model, analysis)];
+    const extremes = movingExtremesTable(model, analysis);
+    if (extremes) tables.push(extremes);
     const stabilityJson = stabilityToJson(stability, notes);
     const stabilityFiles = stabilityTables(stabilityJson, model.settings);
     if (checker) {

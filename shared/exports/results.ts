@@ -176,3 +176,32 @@ export function checksTable(model: Model, design: DesignResultLike): ResultTable
   }
   return { name: 'checks', header, rows };
 }
+
+/**
+ * Moving loads: per moving load and member, the absolute maximum and minimum of each force
+ * under the vehicle alone (unfactored) over the member and every vehicle position, with x and
+ * where the leading axle stood (shared/moving memberExtremes). Forces that stay zero are left
+ * out. Undefined without moving loads.
+ */
+export function movingExtremesTable(model: Model, analysis: AnalysisResult): ResultTable | undefined {
+  const mv = analysis.moving;
+  if (!mv) return undefined;
+  const sys = model.settings.units;
+  const header = ['case', 'vehicle', 'lane', 'member', 'force', 'extreme', 'unit', 'value', headerWithUnit('x', 'length', sys), 'direction', headerWithUnit('vehicle_position', 'length', sys)];
+  const rows: ResultCell[][] = [];
+  model.movingLoads.forEach((ml, j) => {
+    analysis.memberIds.forEach((id, mi) => {
+      const ex = mv.memberExtremes(j, mi);
+      for (const key of ['N', 'V_major', 'V_minor', 'T', 'M_major', 'M_minor'] as const) {
+        const q: Quantity = key === 'T' || key.startsWith('M_') ? 'moment' : 'force';
+        if (ex[key].max.value === 0 && ex[key].min.value === 0) continue;
+        for (const side of ['max', 'min'] as const) {
+          const e = ex[key][side];
+          rows.push([ml.case, ml.vehicle, ml.lane, id, key, side, unitOf(q, sys), fromSI(e.value, q, sys), fromSI(e.x, 'length', sys),
+            e.at?.direction ?? '', e.at ? fromSI(e.at.lead, 'length', sys) : null]);
+        }
+      }
+    });
+  });
+  return { name: 'moving_extremes', header, rows };
+}
