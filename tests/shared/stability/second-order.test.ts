@@ -354,6 +354,12 @@ describe('refusal and equilibrium', () => {
     expect(r.loadings[0].converged).toBe(true);
     // the second-order sway exceeds the first-order one
     expect(r.loadings[0].amplification!).toBeGreaterThan(1);
+    // joint equilibrium about Y at C and D: the column's top moment from the statics of its deformed
+    // free body (self weight along it, an axial point load in C2) equals the beam's end moment, 1e-4
+    const c1 = r.analysis.memberForces(0, 2), c2 = r.analysis.memberForces(1, 2), bm = r.analysis.memberForces(2, 2);
+    const top = (f: typeof c1) => f.M_major[f.x.length - 1];
+    expect(relErr(top(c1), -bm.M_major[0])).toBeLessThan(1e-4);
+    expect(relErr(top(c2), bm.M_major[bm.x.length - 1])).toBeLessThan(1e-4);
   });
 });
 
