@@ -103,9 +103,11 @@ class DeformedAxis {
     this.f1s = [];
     this.parts = [];
     this.infos = [];
+    let start = f;
     for (let k = 0; k < n; k++) {
       const e = m.firstElement + k;
       elementEndForces(st, e, f, k1, k2);
+      if (k === 0) start = f.slice(0, 6);
       const x0 = mesh.elX0[e], h = mesh.elL[e];
       // the element's own deflection from the statics of its deformed free body: the axial force
       // about the rotated chord adds −s·t·f1x to the moments (s the chord slope), i.e. f1y, f1z
@@ -122,8 +124,7 @@ class DeformedAxis {
         props: m.tapered ? (t: number) => m.props((x0 + t * h) / m.L) : m.props,
       });
     }
-    elementEndForces(st, m.firstElement, f, k1, k2);
-    this.startForces = f.slice(0, 6);
+    this.startForces = start;
   }
 
   /** v, w at the member's start and end (the end nodes' translations, local) */
