@@ -42,12 +42,14 @@ export function modelsRouter({ dataSource }: AppContext): Router {
   router.get('/:id/versions', requireRole(...MODEL_READERS), guard.model('id'), async (req, res) => {
     res.json(await listVersions(dataSource, parseId(req.params.id, 'Model')));
   });
-  router.get('/:id/versions/:version/workbook.xlsx', requireRole(...MODEL_READERS), guard.model('id'), async (req, res) => {
-    const file = await modelVersionWorkbook(dataSource, parseId(req.params.id, 'Model'), parseId(String(req.params.version), 'Version'));
-    res.set('Content-Type', file.contentType);
-    res.set('Content-Disposition', `attachment; filename="${file.fileName}"`);
-    res.send(file.body);
-  });
+  for (const format of ['xlsx', 'zip'] as const) {
+    router.get(`/:id/versions/:version/workbook.${format}`, requireRole(...MODEL_READERS), guard.model('id'), async (req, res) => {
+      const file = await modelVersionWorkbook(dataSource, parseId(req.params.id, 'Model'), parseId(String(req.params.version), 'Version'), format);
+      res.set('Content-Type', file.contentType);
+      res.set('Content-Disposition', `attachment; filename="${file.fileName}"`);
+      res.send(file.body);
+    });
+  }
   router.get('/:id/members', requireRole(...MODEL_READERS), guard.model('id'), async (req, res) => {
     res.json(await getEditableMembers(dataSource, parseId(req.params.id, 'Model'), optionalVersion(req.query.version)));
   });

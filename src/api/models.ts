@@ -20,11 +20,12 @@ export function listVersions(id: number): Promise<ModelVersionSummary[]> {
 }
 
 /**
- * GET /api/models/:id/versions/:version/workbook.xlsx: the version as the importer's workbook.
- * A download the browser fetches itself (same-origin cookie), so only its address is built here.
+ * GET /api/models/:id/versions/:version/workbook.<xlsx|zip>: the version as the importer's
+ * workbook, or its tables as CSV files in a ZIP. A download the browser fetches itself
+ * (same-origin cookie), so only its address is built here.
  */
-export function workbookUrl(id: number, version: number): string {
-  return `/api/models/${id}/versions/${version}/workbook.xlsx`;
+export function workbookUrl(id: number, version: number, format: 'xlsx' | 'zip' = 'xlsx'): string {
+  return `/api/models/${id}/versions/${version}/workbook.${format}`;
 }
 
 /** GET /api/models/:id/members (values in the model's unit system). */

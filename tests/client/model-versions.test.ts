@@ -20,5 +20,6 @@ describe('model version labels', () => {
 
   it('builds the workbook address of a version', () => {
     expect(workbookUrl(12, 3)).toBe('/api/models/12/versions/3/workbook.xlsx');
+    expect(workbookUrl(12, 3, 'zip')).toBe('/api/models/12/versions/3/workbook.zip');
   });
 });

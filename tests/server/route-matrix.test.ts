@@ -50,6 +50,7 @@ export const ROUTES: RouteRule[] = [
   { method: 'PATCH', path: '/api/models/:id', allowed: EDIT },
   { method: 'GET', path: '/api/models/:id/versions', allowed: READ },
   { method: 'GET', path: '/api/models/:id/versions/:version/workbook.xlsx', allowed: READ },
+  { method: 'GET', path: '/api/models/:id/versions/:version/workbook.zip', allowed: READ },
   { method: 'GET', path: '/api/models/:id/members', allowed: READ },
   { method: 'PATCH', path: '/api/models/:id/members', allowed: EDIT },
   { method: 'GET', path: '/api/models/:id/runs', allowed: READ },

@@ -49,6 +49,7 @@ const ROUTES: ScopedRoute[] = [
   { method: 'PATCH', path: '/api/models/:id', min: 'engineer', url: () => `/api/models/${modelId}` },
   { method: 'GET', path: '/api/models/:id/versions', min: 'viewer', url: () => `/api/models/${modelId}/versions` },
   { method: 'GET', path: '/api/models/:id/versions/:version/workbook.xlsx', min: 'viewer', url: () => `/api/models/${modelId}/versions/1/workbook.xlsx` },
+  { method: 'GET', path: '/api/models/:id/versions/:version/workbook.zip', min: 'viewer', url: () => `/api/models/${modelId}/versions/1/workbook.zip` },
   { method: 'GET', path: '/api/models/:id/members', min: 'viewer', url: () => `/api/models/${modelId}/members` },
   { method: 'PATCH', path: '/api/models/:id/members', min: 'engineer', url: () => `/api/models/${modelId}/members` },
   { method: 'GET', path: '/api/models/:id/runs', min: 'viewer', url: () => `/api/models/${modelId}/runs` },

@@ -4,10 +4,11 @@
  * model-compare.ts says what "identical" leaves out: rows, and which settings were defaulted).
  */
 import { readFileSync } from 'node:fs';
+import { crc32, inflateRawSync } from 'node:zlib';
 import { join } from 'node:path';
 import type { Response } from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { readWorkbook, workbookTables } from '../../../shared/reader/index.js';
+import { readCsvFiles, readWorkbook, workbookTables } from '../../../shared/reader/index.js';
 import { loadModel } from '../../../server/models/model.service.js';
 import { workbookFileName } from '../../../server/models/model-workbook.js';
 import { closeRunPool } from '../../../server/runs/worker-pool.js';
@@ -30,6 +31,29 @@ afterAll(async () => {
   await closeRunPool();
   await t.close();
 });
+
+/** The entries of a ZIP archive, read from its local headers (APPNOTE 6.3 section 4.3.7). */
+function unzip(buf: Buffer): { name: string; text: string }[] {
+  const out: { name: string; text: string }[] = [];
+  let at = 0;
+  while (buf.readUInt32LE(at) === 0x04034b50) {
+    const method = buf.readUInt16LE(at + 8);
+    const crc = buf.readUInt32LE(at + 14);
+    const size = buf.readUInt32LE(at + 18);
+    const nameLength = buf.readUInt16LE(at + 26);
+    const extra = buf.readUInt16LE(at + 28);
+    const name = buf.subarray(at + 30, at + 30 + nameLength).toString('utf8');
+    const start = at + 30 + nameLength + extra;
+    const packed = buf.subarray(start, start + size);
+    const data = method === 8 ? inflateRawSync(packed) : packed;
+    expect(crc32(data), name).toBe(crc);
+    out.push({ name, text: data.toString('utf8') });
+    at = start + size;
+  }
+  expect(buf.readUInt32LE(buf.length - 22)).toBe(0x06054b50); // end of central directory
+  expect(buf.readUInt16LE(buf.length - 22 + 10)).toBe(out.length);
+  return out;
+}
 
 function binary(res: Response, cb: (err: Error | null, body: Buffer) => void): void {
   const chunks: Buffer[] = [];
@@ -101,6 +125,19 @@ describe('model workbook download', () => {
     const v2 = (await loadModel(t.dataSource, id, 2)).model;
     expect(v2.settings.units).toBe('us');
     expectSame(comparable(v2), comparable(v1));
+  });
+
+  it('gives the same tables as CSV files in a ZIP, which read back as the stored version', async () => {
+    const res = await t.as('viewer').get(`/api/models/${modelId}/versions/2/workbook.zip`).buffer(true).parse(binary as never);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toBe('application/zip');
+    expect(res.headers['content-disposition']).toMatch(/-v2\.zip"$/);
+    const files = unzip(res.body as Buffer);
+    expect(files.map((f) => f.name)).toContain('members.csv');
+    expect(files.find((f) => f.name === 'nodes.csv')!.text.split('\n')[0]).toBe('node,x [m],y [m],z [m]');
+    const back = readCsvFiles(files);
+    if (!back.ok) throw new Error(JSON.stringify(back.problems));
+    expectSame(comparable(back.model), comparable((await loadModel(t.dataSource, modelId, 2)).model));
   });
 
   it('answers 404 for a version that does not exist, without a stack trace', async () => {
