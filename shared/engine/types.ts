@@ -76,8 +76,10 @@ export interface AnalysisResult {
   supportedNodes: number[];
   /**
    * Station forces of one member for one loading. Stations are the same for every loading
-   * of a member (11 evenly spaced + every point-load position of any case), so results of
-   * different loadings can be compared and superposed station by station.
+   * of a member (settings `stations` evenly spaced + every point-load position of any case +
+   * its result_points; on a lane member also every x where a moving-load force has its
+   * extreme under an axle, shared/moving/axles.ts), so results of different loadings can be
+   * compared and superposed station by station.
    */
   memberForces(member: number, loading: number): StationForces;
   /** member length (m) */
