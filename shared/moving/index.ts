@@ -4,6 +4,15 @@
  * `computeMoving` when the model has moving loads and exposes the result as
  * `AnalysisResult.moving`; loadings that include a moving-load case come twice, with
  * `envelope: 'max'` and `'min'` (see `expandLoadings`).
+ *
+ * True extremes (issue 11): a force of a lane member peaks under an axle, between stations.
+ * The choice made here: before the envelopes, a scan evaluates every lane member under every
+ * axle at every vehicle position (axles.ts); each x where a force has its extreme under an
+ * axle (and no station reaches it) is added to that member's stations — for every loading, so
+ * the engine's member forces, the design checks (which search every station) and the exports
+ * all read it — and each position found by refinement between the regular ones is added to
+ * the vehicle positions, so the one envelope pass carries the exact value at that station.
+ * `memberExtremes` then reports each force's absolute max and min with x and position.
  */
 import type { ForceKey, Loading } from '../engine/types.js';
 import { FORCE_KEYS } from '../engine/types.js';
