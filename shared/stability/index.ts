@@ -178,10 +178,10 @@ function secondOrderRun(model: Model, options: AnalyseModelOptions, notes: strin
       if (ratio > worst) { worst = ratio; worstId = cb.id; }
       if (ratio > AISC_DRIFT_RATIO_LIMIT) over.push(cb.id);
     }
-    // the ratio: largest node translation, second order with the reduced stiffness over first order
+    // the ratio: largest horizontal node translation, second order with the reduced stiffness over first order
     // with the unreduced one (SecondOrderLoading.amplification) — at least the ratio C2.2b(4) asks
     // for (both reduced), so the rule errs on the safe side
-    const ratio = 'ratio of second- to first-order drift (largest node translation; first order with unreduced stiffness, on the safe side)';
+    const ratio = 'ratio of second- to first-order drift (largest horizontal node translation; first order with unreduced stiffness, on the safe side)';
     if (over.length) {
       plan = aiscDirectAnalysis(model, new Set(over));
       run = runPlan(plan, base);
