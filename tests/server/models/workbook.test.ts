@@ -3,14 +3,14 @@
  * the importer's workbook; reading it back gives the stored model (tests/shared/reader/
  * model-compare.ts says what "identical" leaves out: rows, and which settings were defaulted).
  */
-import { readFileSync } from 'node:fs';
+import { readFileSync, readdirSync } from 'node:fs';
 import { crc32, inflateRawSync } from 'node:zlib';
 import { join } from 'node:path';
 import type { Response } from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readCsvFiles, readWorkbook, workbookTables } from '../../../shared/reader/index.js';
 import { loadModel } from '../../../server/models/model.service.js';
-import { workbookFileName } from '../../../server/models/model-workbook.js';
+import { modelWorkbook, workbookFileName } from '../../../server/models/model-workbook.js';
 import { closeRunPool } from '../../../server/runs/worker-pool.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import { comparable, expectSame } from '../../shared/reader/model-compare.js';
@@ -139,6 +139,16 @@ describe('model workbook download', () => {
     if (!back.ok) throw new Error(JSON.stringify(back.problems));
     expectSame(comparable(back.model), comparable((await loadModel(t.dataSource, modelId, 2)).model));
   });
+
+  it('writes every sample as XLSX bytes that read back as the same model', async () => {
+    for (const name of readdirSync('samples').filter((d) => !d.startsWith('.'))) {
+      const original = await readWorkbook(readFileSync(join('samples', name, `${name}.xlsx`)), { fileName: name });
+      if (!original.ok) throw new Error(`${name}: ${JSON.stringify(original.problems)}`);
+      const back = await readWorkbook(await modelWorkbook(original.model));
+      if (!back.ok) throw new Error(`${name}: ${JSON.stringify(back.problems)}`);
+      expectSame(comparable(back.model), comparable(original.model), name);
+    }
+  }, 60_000);
 
   it('answers 404 for a version that does not exist, without a stack trace', async () => {
     const res = await t.as('viewer').get(`/api/models/${modelId}/versions/99/workbook.xlsx`);
