@@ -55,6 +55,14 @@ async function userNames(ds: DataSource, ids: (number | null)[]): Promise<Map<nu
   return new Map(rows.map((r) => [r.id, r.name]));
 }
 
+function analysisOrderOf(settingsJson: string): 'first_order' | 'second_order' {
+  try {
+    return (JSON.parse(settingsJson) as { analysis?: string }).analysis === 'second_order' ? 'second_order' : 'first_order';
+  } catch {
+    return 'first_order';
+  }
+}
+
 export function toRunSummary(r: RunRecord, names: Map<number, string>): RunSummary {
   const done = r.passCount !== null;
   return {
@@ -69,6 +77,7 @@ export function toRunSummary(r: RunRecord, names: Map<number, string>): RunSumma
     message: r.message,
     maxRatio: r.maxRatio,
     counts: done ? { pass: r.passCount!, fail: r.failCount!, notChecked: r.notCheckedCount! } : null,
+    analysis: analysisOrderOf(r.settingsJson),
     durationMs: r.startedAt && r.finishedAt ? r.finishedAt.getTime() - r.startedAt.getTime() : null,
     createdBy: r.createdBy,
     createdByName: r.createdBy !== null ? names.get(r.createdBy) ?? null : null,

@@ -61,6 +61,8 @@ export const runSummarySchema = z.object({
   message: z.string(),
   maxRatio: z.number().nullable(),
   counts: runCountsSchema.nullable(),
+  /** the analysis order the run's settings asked for (settings `analysis`) */
+  analysis: z.enum(['first_order', 'second_order']).optional(),
   /** milliseconds from start to finish; null until finished */
   durationMs: z.number().nullable(),
   createdBy: z.number().int().nullable(),

@@ -120,6 +120,8 @@ describe('a second-order run', () => {
       expect(l.converged).toBe(true);
       expect(l.iterations).toBeGreaterThan(0);
     }
+    const history = await t.as('engineer').get(`/api/models/${run.modelId}/runs`);
+    expect(history.body[0]).toMatchObject({ id, analysis: 'second_order' });
     const detail = await t.as('engineer').get(`/api/runs/${id}/members/C1`);
     expect(detail.status).toBe(200);
     expect(detail.body).toMatchObject({ analysis: 'second_order' });
