@@ -256,6 +256,8 @@ export function scanAxles(
     const base = k * FORCE_ROWS * 2 * nAx + axle;
     for (let q = 0; q < 2 * FORCE_ROWS; q++) {
       const r = q >> 1;
+      // a force that is exactly zero here (out of the plane of a plane frame) is no extreme
+      if (f[r] === 0) { q++; continue; }
       const v = (q & 1) === 0 ? f[r] : -f[r];
       const i = base + q * nAx;
       if (bestP[i] === gp - 1) nextV[i] = v;
