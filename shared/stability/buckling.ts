@@ -7,8 +7,10 @@
  * within 0.1% of 4π²EI/L², see tests/shared/stability/buckling.test.ts), one factorisation of K,
  * one block solve of every case; the axial force of every element per case (geometric.ts), and
  * per loading by superposition of the cases. Then per loading K_G(N) assembled in K's pattern and
- * the eigen solve of K φ = α (−K_G) φ reusing the same factorisation (eigen.ts: subspace
- * iteration; only positive α are wanted, buckling under the loading as it acts).
+ * the eigen solve of K φ = α (−K_G) φ reusing the same factorisation (eigen.ts: block Lanczos,
+ * each loading started from the previous loading's buckled shapes; only positive α are wanted,
+ * buckling under the loading as it acts). Truss members are not subdivided: their own Euler
+ * buckling is left to the member checks; the frame's (and a truss system's) is found.
  *
  * A loading without compression anywhere cannot buckle: alphaCr = [Infinity]. Flexural buckling
  * only (geometric.ts: no Wagner term, so no torsional or lateral-torsional buckling).

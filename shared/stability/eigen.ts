@@ -12,7 +12,7 @@
  * - Block Lanczos (default): blocks of min(n, 3) vectors (a repeated eigenvalue up to that
  *   multiplicity is found), full reorthogonalisation (twice), projected matrix H = Vᵀ B V.
  *   A Ritz pair (θ, x) is converged when ‖A x − θ x‖_K ≤ 1e-6·|θ| (its eigenvalue error is
- *   then of order 1e-12·|θ|); the basis holds at most 3n + 40 vectors, after which subspace
+ *   then of order 1e-12·|θ|); the basis holds at most 3n + 60 vectors, after which subspace
  *   iteration continues from the best Ritz vectors. Lanczos converges at both ends of the
  *   spectrum, so negative μ (B indefinite) do not hold back the positive ones.
  * - Subspace iteration: q = min(2n, n + 8) vectors (the usual rule), Rayleigh–Ritz after every
@@ -37,7 +37,7 @@ export interface EigenOptions {
   tolerance?: number;
   /** Lanczos: vectors per block; default min(n, 3) (repeated eigenvalues up to that multiplicity) */
   block?: number;
-  /** Lanczos: largest basis; default 3n + 40 */
+  /** Lanczos: largest basis; default 3n + 60 */
   maxBasis?: number;
   /** subspace iteration: vectors in the subspace; default min(2n, n + 8), at most the size of the problem */
   subspace?: number;
@@ -416,7 +416,7 @@ function blockLanczos(
   // eigenvector, but not the lowest) must not end the iteration
   const p0 = Math.min(N, Math.max(1, given ? given + 1 : 0, Math.floor(options.block ?? Math.min(n, 3))));
   const tol = options.tolerance ?? 1e-6;
-  const maxBasis = Math.min(N, Math.max(n + p0, Math.floor(options.maxBasis ?? 3 * n + 40)));
+  const maxBasis = Math.min(N, Math.max(n + p0, Math.floor(options.maxBasis ?? 3 * n + 60)));
   const blocks: Float64Array[] = [], sizes: number[] = [], offsets: number[] = [];
   const H = new Float64Array(maxBasis * maxBasis);
   let m = 0, solves = 0, iterations = 0;

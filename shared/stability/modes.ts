@@ -1,7 +1,7 @@
 /**
  * Natural frequencies and mode shapes: the n lowest pairs of K φ = ω² M φ (undamped, about the
- * unloaded state) by subspace iteration on the factorisation of K (eigen.ts), with the
- * consistent mass of mass.ts.
+ * unloaded state) by block Lanczos on the factorisation of K (eigen.ts), with the consistent
+ * mass of mass.ts. No geometric stiffness: the frequencies of the unloaded frame.
  *
  * Frame members are subdivided (default 4 sub-elements per prismatic member, internal nodes
  * after the user's) so that the members' own modes are captured: with consistent mass, 4
