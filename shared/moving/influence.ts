@@ -261,7 +261,7 @@ function pointSet(sys: LinearSystem, mi: number, a: number, P: number, down: rea
 export class UnitFefMemo {
   private byMember = new Map<number, Map<number, Float64Array>>();
   private size = 0;
-  constructor(private sys: LinearSystem, private down: readonly number[], private limit = 4e5) {}
+  constructor(private sys: LinearSystem, private down: readonly number[], private limit = 2e5) {}
 
   /** local fixed-end forces (12) of a unit load along −vertical at distance a on member mi; do not modify */
   get(mi: number, a: number): Float64Array {

@@ -67,6 +67,8 @@ describe('moving loads: the absolute maximum under an axle, not only at stations
 
     const ext = r.moving!.memberExtremes(0, 0).M_major.max;
     expect(Math.abs(ext.value - exact) / exact).toBeLessThan(1e-9);
+    // the critical position is not a regular one (0.1 m steps, axles on nodes and stations): it was found by refinement
+    expect(r.moving!.diagnostics.refined).toBeGreaterThan(0);
     // where: A2 at x_c, or at L − x_c travelling the other way (tolerance 1e-6 m: the position
     // is found by a search on values, which resolves it to ~1e-8 of the lane)
     expect([xc, L - xc].some((x) => Math.abs(ext.x - x) < 1e-6)).toBe(true);
@@ -86,6 +88,18 @@ describe('moving loads: the absolute maximum under an axle, not only at stations
     const atStations = ((R * (L / 2 + o2 - xbar)) / L) * (L / 2) - P1 * o2;
     expect(Math.abs(f.M_major[mid] - atStations) / atStations).toBeLessThan(1e-9);
     expect(1 - atStations / exact).toBeGreaterThan(0.007);
+  });
+
+  it('finds the same maximum whatever the step (positions refined between the regular ones)', () => {
+    const L = 20;
+    const R = P1 + P2 + P3, e = (P2 * o2 + P3 * o3) / R - o2;
+    const exact = (R * (L / 2 - e / 2) ** 2) / L - P1 * o2; // classic rule, as above
+    for (const step of [1.7, 0.37]) {
+      const { b, members } = simpleSpan(L, 1);
+      const r = analyse(addMoving(withStations(b, 11), vehicle, members, { step }).build());
+      const ext = r.moving!.memberExtremes(0, 0).M_major.max;
+      expect(Math.abs(ext.value - exact) / exact).toBeLessThan(1e-9);
+    }
   });
 
   it('a single heavy axle governs a short span: M = P·L/4 at midspan, the other axles off the span', () => {
