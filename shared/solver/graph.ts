@@ -183,3 +183,45 @@ export function inducedSubgraph(g: Graph, vertices: Int32Array, local: Int32Arra
   for (let x = 0; x < m; x++) local[vertices[x]] = -1;
   return { n: m, ptr, adj };
 }
+
+/**
+ * Widest level of a breadth-first level structure rooted at a pseudo-peripheral vertex
+ * (a few sweeps, each from the last vertex reached by the one before), over the component
+ * of vertex 0. Long slender structures have narrow levels however long they are; bulky
+ * ones have levels that grow with the model.
+ */
+export function levelWidth(g: Graph): { levels: number; width: number } {
+  const { n, ptr, adj } = g;
+  if (n === 0) return { levels: 0, width: 0 };
+  const level = new Int32Array(n);
+  const queue = new Int32Array(n);
+  let root = 0;
+  let levels = 0;
+  let width = 0;
+  for (let sweep = 0; sweep < 3; sweep++) {
+    level.fill(-1);
+    let head = 0;
+    let tail = 0;
+    queue[tail++] = root;
+    level[root] = 0;
+    while (head < tail) {
+      const v = queue[head++];
+      for (let p = ptr[v]; p < ptr[v + 1]; p++) {
+        const u = adj[p];
+        if (level[u] < 0) {
+          level[u] = level[v] + 1;
+          queue[tail++] = u;
+        }
+      }
+    }
+    const last = queue[tail - 1];
+    levels = level[last] + 1;
+    const count = new Int32Array(levels);
+    for (let i = 0; i < tail; i++) count[level[queue[i]]]++;
+    width = 0;
+    for (let l = 0; l < levels; l++) width = Math.max(width, count[l]);
+    if (last === root) break;
+    root = last;
+  }
+  return { levels, width };
+}

@@ -39,10 +39,28 @@ export interface NumericFactor {
   simd: SimdKernels | null;
   rowsB: number;
   freeB: number;
+  /** the analysis this factor belongs to and its scratch arrays, kept for refactorisation */
+  sym?: SymbolicFactor;
+  work?: Workspace;
 }
 
-export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTolerance: number): NumericFactor {
-  const { n, perm, cPtr, cRow, cVal, nsuper, superFirst, superRowPtr, superRows, superValPtr, colToSuper } = sym;
+/** scratch of the numeric factorisation, allocated once per factor and reused */
+interface Workspace {
+  maxRows: number;
+  origDiag: Float64Array;
+  map: Int32Array;
+  head: Int32Array;
+  nextD: Int32Array;
+  posD: Int32Array;
+  /** plain scatter maps when there are no SIMD kernels */
+  tRow: Int32Array;
+  tCol: Int32Array;
+  ident: Int32Array;
+}
+
+/** The factor's memory (in the SIMD kernels' memory when they exist) and its scratch. */
+function allocate(sym: SymbolicFactor): NumericFactor {
+  const { n, nsuper, superRowPtr, superRows, superValPtr } = sym;
   let maxRows = 0;
   for (let s = 0; s < nsuper; s++) maxRows = Math.max(maxRows, superRowPtr[s + 1] - superRowPtr[s]);
   // the factor and the scatter maps share one WebAssembly memory when SIMD kernels exist
@@ -53,23 +71,53 @@ export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTo
   const simd = simdKernels(freeB);
   const buf = simd ? simd.memory.buffer : null;
   const Lx = buf ? new Float64Array(buf, 0, nL) : new Float64Array(nL);
+  if (buf) new Int32Array(buf, rowsB, nRows).set(superRows.subarray(0, nRows));
+  const plain = (): Int32Array => new Int32Array(buf ? 0 : maxRows);
+  const work: Workspace = {
+    maxRows,
+    origDiag: new Float64Array(n),
+    map: new Int32Array(n),
+    head: new Int32Array(nsuper),
+    nextD: new Int32Array(nsuper),
+    posD: new Int32Array(nsuper),
+    tRow: plain(),
+    tCol: plain(),
+    ident: plain(),
+  };
+  return { Lx, simd, rowsB, freeB, sym, work };
+}
+
+/**
+ * Numeric factorisation of the matrix with these values (aligned with the analysed
+ * pattern's rowIdx). With `into` (a factor of the same analysis) the values are factorised
+ * into its memory and scratch, which replaces its previous factor; otherwise a new factor
+ * is allocated.
+ */
+export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTolerance: number, into?: NumericFactor): NumericFactor {
+  const { n, perm, cPtr, cRow, cVal, nsuper, superFirst, superRowPtr, superRows, superValPtr, colToSuper } = sym;
+  const factor = into && into.sym === sym && into.work ? into : allocate(sym);
+  const work = factor.work!;
+  const { maxRows, origDiag, map, head, nextD, posD } = work;
+  const simd = factor.simd;
+  const nL = superValPtr[nsuper];
+  // views are taken afresh: a solve may have grown (and so detached) the kernels' memory
+  const buf = simd ? simd.memory.buffer : null;
+  const Lx = buf ? new Float64Array(buf, 0, nL) : factor.Lx;
+  factor.Lx = Lx;
+  if (factor === into) Lx.fill(0);
   const tRowB = nL * 8;
   const tColB = tRowB + 4 * maxRows;
   const identB = tColB + 4 * maxRows;
-  const tRow = buf ? new Int32Array(buf, tRowB, maxRows) : new Int32Array(maxRows);
-  const tCol = buf ? new Int32Array(buf, tColB, maxRows) : new Int32Array(maxRows);
-  const ident = buf ? new Int32Array(buf, identB, maxRows) : new Int32Array(maxRows);
-  if (buf) new Int32Array(buf, rowsB, nRows).set(superRows.subarray(0, nRows));
+  const tRow = buf ? new Int32Array(buf, tRowB, maxRows) : work.tRow;
+  const tCol = buf ? new Int32Array(buf, tColB, maxRows) : work.tCol;
+  const ident = buf ? new Int32Array(buf, identB, maxRows) : work.ident;
   const k: Kernel = { Lx, simd, tRow, tCol, tRowB, tColB };
   const kd: Kernel = { Lx, simd, tRow, tCol: ident, tRowB, tColB: identB };
-  const origDiag = new Float64Array(n);
+  origDiag.fill(0);
   for (let j = 0; j < n; j++) {
     for (let p = cPtr[j]; p < cPtr[j + 1]; p++) if (cRow[p] === j) origDiag[j] += values[cVal[p]];
   }
-  const map = new Int32Array(n);
-  const head = new Int32Array(nsuper).fill(-1);
-  const nextD = new Int32Array(nsuper);
-  const posD = new Int32Array(nsuper);
+  head.fill(-1);
   for (let i = 0; i < maxRows; i++) ident[i] = i;
 
   for (let s = 0; s < nsuper; s++) {
@@ -121,7 +169,7 @@ export function factorNumeric(values: Float64Array, sym: SymbolicFactor, pivotTo
       head[t] = s;
     }
   }
-  return { Lx, simd, rowsB, freeB };
+  return factor;
 }
 
 /**

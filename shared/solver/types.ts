@@ -29,6 +29,13 @@ export interface Factorisation {
    * (B[j*n + i] = row i of column j). Returns a new array of the same layout.
    */
   solve(B: Float64Array, nrhs: number): Float64Array;
+  /**
+   * Factorises new values of the same pattern (aligned with its rowIdx) into this
+   * factorisation's memory, reusing its ordering and symbolic analysis; later solves use
+   * the new factor. After a SingularMatrixError, solve refuses until a refactorisation
+   * succeeds. Optional: solvers that cannot reuse their analysis leave it out.
+   */
+  refactorise?(values: Float64Array): void;
 }
 
 /** A zero, tiny or negative pivot: `index` is the freedom (original numbering) at fault. */
