@@ -21,7 +21,7 @@ import { buildSystem, type LinearSystem } from '../engine/system.js';
 import { type EigenOptions, factoriseSystem, lowestEigenpairs } from './eigen.js';
 import { addElement } from '../engine/assembly.js';
 import { assembleGeometricStiffness, elementAxialForces, elementGeometricGlobal, geometricScratch } from './geometric.js';
-import { userShape } from './modes.js';
+import { MAX_MODES, userShape } from './modes.js';
 import type { CriticalLoadFactors } from './types.js';
 
 /** Sub-elements per prismatic frame member for critical load factors, unless told otherwise. */
@@ -186,6 +186,7 @@ export function lowestCriticalLoadFactors(model: Model, options: BucklingOptions
 /** criticalLoadFactors with diagnostics (iterations, solves, residuals, timings). */
 export function bucklingAnalysis(model: Model, n: number, options: BucklingOptions = {}): BucklingResult {
   if (!(Number.isInteger(n) && n >= 1)) throw new Error(`critical load factors: the number of modes ${n} must be a whole number of at least 1`);
+  if (n > MAX_MODES) throw new Error(`critical load factors: ${n} per loading asked for (settings buckling_modes); at most ${MAX_MODES} are computed`);
   const subdivisions = Math.max(1, Math.floor(options.subdivisions ?? BUCKLING_SUBDIVISIONS));
   const loadings = pickLoadings(model, options.loadings);
   const timings: Record<string, number> = {};

@@ -23,6 +23,9 @@ import type { NaturalMode } from './types.js';
 /** Sub-elements per prismatic frame member for natural modes, unless told otherwise. */
 export const MODES_SUBDIVISIONS = 4;
 
+/** Most modes (and critical load factors per loading) computed: the Lanczos basis grows as 3n + 60 vectors. */
+export const MAX_MODES = 200;
+
 export interface ModesOptions {
   /** sub-elements per prismatic frame member; default MODES_SUBDIVISIONS (4) */
   subdivisions?: number;
@@ -58,6 +61,7 @@ export interface ModesResult {
 /** The n lowest natural modes of the model (fewer when the mass has fewer freedoms). */
 export function naturalModes(model: Model, n: number, options: ModesOptions = {}): ModesResult {
   if (!(Number.isInteger(n) && n >= 1)) throw new Error(`natural modes: the number of modes ${n} must be a whole number of at least 1`);
+  if (n > MAX_MODES) throw new Error(`natural modes: ${n} modes asked for (settings modes); at most ${MAX_MODES} are computed`);
   const subdivisions = Math.max(1, Math.floor(options.subdivisions ?? MODES_SUBDIVISIONS));
   const timings: Record<string, number> = {};
   const clock = options.clock ?? (() => performance.now());

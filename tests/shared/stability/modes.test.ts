@@ -126,5 +126,7 @@ describe('natural modes', () => {
   it('refuses a model without mass and names what to add', () => {
     const m = new ModelBuilder({ planeNormal: 'Y' }).node('A', 0, 0, 0).node('B', L, 0, 0).member('M1', 'A', 'B').support('A', 'fixed').build();
     expect(() => naturalModes(m, 1)).toThrow(/density.*mass = yes/);
+    expect(() => naturalModes(m, 0)).toThrow(/at least 1/);
+    expect(() => naturalModes(m, 201)).toThrow(/at most 200/);
   });
 });
