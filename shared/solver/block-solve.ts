@@ -3,7 +3,7 @@
  * right-hand sides at once. The work array is row-major (the nrhs values of one freedom
  * are adjacent); the products with the rows below each diagonal block are accumulated in
  * registers two factor rows (or columns) by four load cases at a time. With the SIMD kernels
- * every row of the substitution is one call of their gather kernel instead.
+ * each supernode is one kernel call per pass instead (solve-kernels.ts).
  */
 import type { NumericFactor } from './numeric.js';
 import type { SymbolicFactor } from './symbolic.js';
@@ -145,14 +145,21 @@ export function blockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float6
 }
 
 /**
- * The same substitution with the SIMD gather kernel, the work array placed in the kernels'
- * memory after the factor (grown when needed). Returns null if the memory cannot grow.
+ * The same substitution with the SIMD kernels (solve-kernels.ts), one call per supernode and
+ * pass. The work array (rows padded to an even number of load cases) and the scratch of the
+ * backward pass lie in the kernels' memory after the factor (grown when needed). Returns
+ * null if the memory cannot grow.
  */
 function simdBlockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float64Array, nrhs: number): Float64Array | null {
   const simd = factor.simd!;
   const { n, perm, nsuper, superFirst, superRowPtr, superValPtr } = sym;
+  let below = 0;
+  for (let s = 0; s < nsuper; s++) below = Math.max(below, superRowPtr[s + 1] - superRowPtr[s] - (superFirst[s + 1] - superFirst[s]));
+  const ld = nrhs + (nrhs & 1);
+  const ld8 = ld * 8;
   const xB = factor.freeB;
-  const need = xB + n * nrhs * 8;
+  const eB = xB + n * ld8;
+  const need = eB + below * ld8;
   const have = simd.memory.buffer.byteLength;
   if (need > have) {
     try {
@@ -163,53 +170,28 @@ function simdBlockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float64Ar
     // growing detaches the old views
     factor.Lx = new Float64Array(simd.memory.buffer, 0, factor.Lx.length);
   }
-  const X = new Float64Array(simd.memory.buffer, xB, n * nrhs);
+  const X = new Float64Array(simd.memory.buffer, xB, n * ld);
   for (let q = 0; q < nrhs; q++) {
     const bq = q * n;
-    for (let k = 0; k < n; k++) X[k * nrhs + q] = B[bq + perm[k]];
+    for (let k = 0; k < n; k++) X[k * ld + q] = B[bq + perm[k]];
   }
-  const row8 = nrhs * 8;
-  const gather = simd.gather;
+  if (ld !== nrhs) for (let k = 0; k < n; k++) X[k * ld + nrhs] = 0;
+  const { solveForward, solveBackward } = simd;
   const rowsB = factor.rowsB;
   for (let s = 0; s < nsuper; s++) {
     const f = superFirst[s];
-    const nc = superFirst[s + 1] - f;
     const r0 = superRowPtr[s];
-    const nr = superRowPtr[s + 1] - r0;
-    const o8 = superValPtr[s] * 8;
-    const xf = xB + f * row8;
-    // L11 y1 = b1, row by row
-    for (let i = 0; i < nc; i++) {
-      gather(xf + i * row8, nrhs, o8 + i * nc * 8, 8, xf, row8, 0, 0, i, 1, o8 + (i * nc + i) * 8);
-    }
-    // b2 −= L21 y1, row by row of L21 (scattered rows of X)
-    for (let r = nc; r < nr; r++) {
-      const row = sym.superRows[r0 + r];
-      gather(xB + row * row8, nrhs, o8 + r * nc * 8, 8, xf, row8, 0, 0, nc, 0, 0);
-    }
+    solveForward(superValPtr[s] * 8, superFirst[s + 1] - f, superRowPtr[s + 1] - r0, xB + f * ld8, ld8, rowsB + r0 * 4, xB);
   }
   for (let s = nsuper - 1; s >= 0; s--) {
     const f = superFirst[s];
-    const nc = superFirst[s + 1] - f;
     const r0 = superRowPtr[s];
-    const nr = superRowPtr[s + 1] - r0;
-    const o8 = superValPtr[s] * 8;
-    const xf = xB + f * row8;
-    // x1 −= L21ᵀ x2, column by column of L21 (its rows gathered through the row list)
-    if (nr > nc) {
-      for (let k = 0; k < nc; k++) {
-        gather(xf + k * row8, nrhs, o8 + (nc * nc + k) * 8, nc * 8, xB, row8, rowsB + (r0 + nc) * 4, 1, nr - nc, 0, 0);
-      }
-    }
-    // L11ᵀ x1 = y1, last row first
-    for (let i = nc - 1; i >= 0; i--) {
-      gather(xf + i * row8, nrhs, o8 + ((i + 1) * nc + i) * 8, nc * 8, xf + (i + 1) * row8, row8, 0, 0, nc - 1 - i, 1, o8 + (i * nc + i) * 8);
-    }
+    solveBackward(superValPtr[s] * 8, superFirst[s + 1] - f, superRowPtr[s + 1] - r0, xB + f * ld8, ld8, rowsB + r0 * 4, xB, eB);
   }
   const out = new Float64Array(n * nrhs);
   for (let q = 0; q < nrhs; q++) {
     const bq = q * n;
-    for (let k = 0; k < n; k++) out[bq + perm[k]] = X[k * nrhs + q];
+    for (let k = 0; k < n; k++) out[bq + perm[k]] = X[k * ld + q];
   }
   return out;
 }

@@ -11,6 +11,7 @@
  *   L[tRow[r] + tCol[c]] −= Σ_{kLo ≤ k < kHi} L[ob + r·w + k] · L[ob + c·w + k]
  *   computed four rows by two columns at a time, two products per SIMD lane pair.
  */
+import { buildSolveBackward, buildSolveForward } from './solve-kernels.js';
 import { assembleModule, F64, FunctionBuilder, I32, V128 } from './wasm-emitter.js';
 
 /** The parts of the WebAssembly JavaScript interface used here (not in every lib setting). */
@@ -43,6 +44,9 @@ export interface SimdKernels {
     scale: number,
     diagB: number,
   ): void;
+  /** block substitution, one call per supernode and pass (solve-kernels.ts) */
+  solveForward(o8: number, nc: number, nr: number, xf8: number, ld8: number, rowsB: number, xB: number): void;
+  solveBackward(o8: number, nc: number, nr: number, xf8: number, ld8: number, rowsB: number, xB: number, eB: number): void;
 }
 
 function buildUpdate(): FunctionBuilder {
@@ -302,7 +306,7 @@ function module(): object | null {
   let mod: object | null = null;
   try {
     if (wasm) {
-      const bytes = assembleModule([buildUpdate(), buildTrsm(), buildGather()]);
+      const bytes = assembleModule([buildUpdate(), buildTrsm(), buildGather(), buildSolveForward(), buildSolveBackward()]);
       if (wasm.validate(bytes)) mod = new wasm.Module(bytes);
     }
   } catch {
@@ -329,8 +333,8 @@ export function simdKernels(bytes: number): SimdKernels | null {
   try {
     const memory = new wasm.Memory({ initial: Math.max(1, Math.ceil(bytes / 65536)) });
     const inst = new wasm.Instance(mod, { env: { mem: memory } });
-    const ex = inst.exports as unknown as Pick<SimdKernels, 'update' | 'trsm' | 'gather'>;
-    return { memory, update: ex.update, trsm: ex.trsm, gather: ex.gather };
+    const ex = inst.exports as unknown as Omit<SimdKernels, 'memory'>;
+    return { memory, update: ex.update, trsm: ex.trsm, gather: ex.gather, solveForward: ex.solveForward, solveBackward: ex.solveBackward };
   } catch {
     return null;
   }
