@@ -169,9 +169,11 @@ export function criticalLoadFactors(model: Model, n: number, options: BucklingOp
  * (a member's own buckling then comes out up to about 3% high — the four classic columns from
  * +0.05% (fixed–free) to +2.6% (fixed–pinned), see tests/shared/stability/buckling.test.ts —
  * while sway buckling of a frame, carried by the user's nodes, is barely affected) and a Lanczos
- * residual of 1e-4·|θ| (eigenvalue error of order 1e-8).
+ * residual of 1e-3·|θ|: the Ritz value is then within 0.1% of an eigenvalue (|θ − μ| ≤ residual)
+ * and, being a Rayleigh–Ritz value, never below the lowest αcr of the mesh (on the benchmark frame
+ * it agrees with a 1e-6 residual to 5 digits, at 2–3 Lanczos blocks per warm-started loading).
  */
-export const WARNING_BUCKLING_OPTIONS = { subdivisions: 2, eigen: { tolerance: 1e-4 } } as const;
+export const WARNING_BUCKLING_OPTIONS = { subdivisions: 2, eigen: { tolerance: 1e-3 } } as const;
 
 /**
  * The lowest αcr of every strength loading (or of the loadings asked for), at the cost the
