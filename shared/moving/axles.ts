@@ -6,37 +6,37 @@
  * extremes of a vehicle position are at the member's ends (stations) or just left of an axle
  * (the stations' face convention: loads at x are included only at x = 0). For every vehicle
  * position this scan takes each lane member that carries an axle and evaluates its six forces
- * at every axle standing on it (an axle at an end gives that end station's value), from the member's end displacements (the solved lane
- * columns) plus its own fixed-end forces and statics (the same decomposition as
- * influence.ts).
+ * at every axle standing on it (an axle at an end gives that end station's value), from the
+ * member's end displacements (the solved lane columns) plus its own fixed-end forces and
+ * statics — the same decomposition as influence.ts.
  *
  * Between positions the moment under a given axle is a smooth function of the vehicle
  * position (a polynomial of degree ≤ 4 for a prismatic member until some axle crosses a
- * node; every such crossing is a vehicle position already), so the best sample is refined by
- * parabolic interpolation (Brent's method as the fallback) towards the neighbouring position on the side where the force still
- * rises (probed 1e-6 of a step away; a kink at a node crossing rises on neither side), when
- * the sample is above both neighbours and the parabola through the three promises more than
- * 1e-10 of it — e.g. the classic absolute maximum moment of a simple span, with midspan bisecting
- * the distance between the critical axle and the resultant, is found to round-off whatever
- * the step. Each axle's best sample within 2 % of the member's best is refined (skipped when
- * its parabola promises less than 99.9 % of what is found already). N, V and T under an axle
- * are taken at the sampled positions only: between node crossings they are linear in the
- * position on a determinate lane, so their extremes are at sampled positions; on an
- * indeterminate lane a maximum between two positions is possible and is not refined (its
- * shortfall shrinks with the square of the step).
+ * node; every such crossing is a vehicle position already). The best sample is refined when
+ * it is above both neighbouring positions, the parabola through the three promises more than
+ * 1e-10 of it, and the moment still rises on one side (probed 1e-6 of a step away; a kink at
+ * a node crossing rises on neither): parabolic interpolation on that side, Brent's method as
+ * the fallback. So the classic absolute maximum moment of a simple span (midspan bisecting the
+ * distance between the critical axle and the resultant) is found to round-off whatever the
+ * step. Each axle's best sample within 2 % of the member's best is refined, unless its
+ * parabola promises less than 99.9 % of what is found already. N, V and T under an axle are
+ * taken at the sampled positions only: between node crossings they are linear in the position
+ * on a determinate lane, so their extremes are at sampled positions; on an indeterminate lane
+ * a maximum between two positions is possible and is not refined (its shortfall shrinks with
+ * the square of the step).
  *
  * The result: per lane member and force, the maximum (sign +1) and minimum (sign −1) under an
- * axle with the vehicle position and x; index.ts turns each x into an extra station of that
- * member and each refined position into an extra vehicle position, so the envelope (and every
- * design check, which reads stations) carries these values exactly.
+ * axle with the vehicle position and x, where no station of the member reaches it at that
+ * position; index.ts turns each x into an extra station of that member and each refined
+ * position into an extra vehicle position, so the envelope (and every design check, which
+ * reads stations) carries these values exactly.
  */
 import { vecToGlobal12, vecToLocal12 } from '../engine/axes.js';
 import type { LoadSet } from '../engine/loadSet.js';
 import { internalForces } from '../engine/statics.js';
 import { elementLocal, type LinearSystem } from '../engine/system.js';
 import type { Axle } from './envelope.js';
-import type { LaneResponse } from './influence.js';
-import type { UnitFefMemo } from './influence.js';
+import type { LaneResponse, UnitFefMemo } from './influence.js';
 import { type LanePathGeometry, locate, type PathPoint } from './path.js';
 import { axlePosition, type Direction, vehiclePositions } from './positions.js';
 
@@ -58,7 +58,7 @@ export interface AxleExtreme {
   x: number;
   /** index of the axle in the vehicle */
   axle: number;
-  /** true when golden-section refinement moved the position off the sampled ones */
+  /** true when refinement moved the position off the sampled ones */
   refined: boolean;
 }
 

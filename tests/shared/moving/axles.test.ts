@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { analyse } from '../../../shared/engine/index.js';
 import type { AnalysisResult } from '../../../shared/engine/types.js';
 import { ModelBuilder } from '../engine/builders.js';
+import { maximise, maximiseSmooth } from '../../../shared/moving/axles.js';
 import { addMoving, extreme, loadingIndex, simpleSpan } from './helpers.js';
 
 // Forces under the axles (shared/moving/axles.ts): the true extremes between stations.
@@ -178,5 +179,25 @@ describe('moving loads: the absolute maximum under an axle, not only at stations
     // nothing in the plane's normal direction (tolerance: 1e-9 of the vehicle's weight)
     expect(Math.abs(ex.M_minor.max.value)).toBeLessThan(1e-9 * 350 * kN);
     expect(r.moving!.diagnostics.extraStations).toBeGreaterThan(0);
+  });
+});
+
+describe('one-dimensional maximisers used between vehicle positions', () => {
+  it('parabolic interpolation finds the vertex of a parabola in one step (closed form t* = 0.37)', () => {
+    let calls = 0;
+    const f = (t: number) => { calls++; return 5 - 3 * (t - 0.37) ** 2; };
+    const g = maximiseSmooth(f, [0, 1e-7, 1], [f(0), f(1e-7), f(1)], 1e-12);
+    // tolerance: 1e-9 in t (the parabola's own vertex), 1e-15 relative in value
+    expect(Math.abs(g.t - 0.37)).toBeLessThan(1e-9);
+    expect(Math.abs(g.v - 5) / 5).toBeLessThan(1e-15);
+    expect(calls).toBeLessThan(8);
+  });
+
+  it("Brent's method finds the maximum of a quartic and of a kinked function", () => {
+    // f = −(t − 0.3)⁴ + 2: maximum 2 at t = 0.3 (closed form); tolerance 1e-12 in value
+    expect(Math.abs(maximise((t) => 2 - (t - 0.3) ** 4, 0, 1, 1e-9).v - 2)).toBeLessThan(1e-12);
+    // a roof with its ridge at t = 0.6: maximum 1 (closed form); tolerance 1e-8 (the bracket)
+    const roof = maximise((t) => 1 - Math.abs(t - 0.6), 0, 1, 1e-9);
+    expect(Math.abs(roof.t - 0.6)).toBeLessThan(1e-8);
   });
 });
