@@ -9,7 +9,7 @@ import type { NumericFactor } from './numeric.js';
 import type { SymbolicFactor } from './symbolic.js';
 
 export function blockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float64Array, nrhs: number): Float64Array {
-  if (factor.simd && nrhs > 0) {
+  if (factor.simd && factor.permB !== undefined && nrhs > 0) {
     const X = simdBlockSolve(sym, factor, B, nrhs);
     if (X) return X;
   }
@@ -146,20 +146,22 @@ export function blockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float6
 
 /**
  * The same substitution with the SIMD kernels (solve-kernels.ts), one call per supernode and
- * pass. The work array (rows padded to an even number of load cases) and the scratch of the
- * backward pass lie in the kernels' memory after the factor (grown when needed). Returns
- * null if the memory cannot grow.
+ * pass. The work array (rows padded to an even number of load cases), the scratch of the
+ * backward pass and the staged right-hand sides lie in the kernels' memory after the factor
+ * (grown when needed); the permutations in and out run there too. Returns null if the
+ * memory cannot grow.
  */
 function simdBlockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float64Array, nrhs: number): Float64Array | null {
   const simd = factor.simd!;
-  const { n, perm, nsuper, superFirst, superRowPtr, superValPtr } = sym;
+  const { n, nsuper, superFirst, superRowPtr, superValPtr } = sym;
   let below = 0;
   for (let s = 0; s < nsuper; s++) below = Math.max(below, superRowPtr[s + 1] - superRowPtr[s] - (superFirst[s + 1] - superFirst[s]));
   const ld = nrhs + (nrhs & 1);
   const ld8 = ld * 8;
   const xB = factor.freeB;
   const eB = xB + n * ld8;
-  const need = eB + below * ld8;
+  const bB = eB + below * ld8;
+  const need = bB + n * nrhs * 8;
   const have = simd.memory.buffer.byteLength;
   if (need > have) {
     try {
@@ -170,12 +172,9 @@ function simdBlockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float64Ar
     // growing detaches the old views
     factor.Lx = new Float64Array(simd.memory.buffer, 0, factor.Lx.length);
   }
-  const X = new Float64Array(simd.memory.buffer, xB, n * ld);
-  for (let q = 0; q < nrhs; q++) {
-    const bq = q * n;
-    for (let k = 0; k < n; k++) X[k * ld + q] = B[bq + perm[k]];
-  }
-  if (ld !== nrhs) for (let k = 0; k < n; k++) X[k * ld + nrhs] = 0;
+  const staged = new Float64Array(simd.memory.buffer, bB, n * nrhs);
+  staged.set(B);
+  simd.permuteIn(xB, ld8, bB, n, nrhs, factor.permB!);
   const { solveForward, solveBackward } = simd;
   const rowsB = factor.rowsB;
   for (let s = 0; s < nsuper; s++) {
@@ -188,10 +187,6 @@ function simdBlockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float64Ar
     const r0 = superRowPtr[s];
     solveBackward(superValPtr[s] * 8, superFirst[s + 1] - f, superRowPtr[s + 1] - r0, xB + f * ld8, ld8, rowsB + r0 * 4, xB, eB);
   }
-  const out = new Float64Array(n * nrhs);
-  for (let q = 0; q < nrhs; q++) {
-    const bq = q * n;
-    for (let k = 0; k < n; k++) out[bq + perm[k]] = X[k * ld + q];
-  }
-  return out;
+  simd.permuteOut(bB, xB, ld8, n, nrhs, factor.permB!);
+  return staged.slice();
 }
