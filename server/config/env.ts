@@ -8,8 +8,35 @@ const bool = z
   .enum(['true', 'false', '1', '0', 'yes', 'no'], { message: 'expected true or false' })
   .transform((v) => v === 'true' || v === '1' || v === 'yes');
 
+const count = (fallback: number) => z.coerce.number({ message: 'must be a whole number' }).int('must be a whole number').positive().default(fallback);
+const megabytes = (fallback: number) => z.coerce.number({ message: 'must be a number of MB' }).positive().max(4096).default(fallback);
+
+/** Upload limits (server/imports/import-limits.ts). */
+export const importEnvShape = {
+  IMPORT_MAX_MB: megabytes(20),
+  IMPORT_MAX_REQUEST_MB: megabytes(40),
+  IMPORT_MAX_ROWS: count(200_000),
+  IMPORT_MAX_SHEETS: count(50),
+  IMPORT_MAX_COLUMNS: count(200),
+  IMPORT_MAX_CELLS: count(4_000_000),
+  IMPORT_MAX_UNCOMPRESSED_MB: megabytes(200),
+  IMPORT_CONCURRENCY: count(1),
+  IMPORT_QUEUE: count(8),
+};
+
+/** Requests per user per window on the expensive routes (server/security/rate-limits.ts). */
+export const fairnessEnvShape = {
+  RATE_WINDOW_MINUTES: z.coerce.number({ message: 'must be a number of minutes' }).positive().default(1),
+  RUN_RATE_LIMIT: count(10),
+  IMPORT_RATE_LIMIT: count(10),
+  EXPORT_RATE_LIMIT: count(20),
+  COMPARE_RATE_LIMIT: count(30),
+};
+
 const envSchema = z
   .object({
+    ...importEnvShape,
+    ...fairnessEnvShape,
     NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
     PORT: z.coerce.number({ message: 'must be a port number' }).int('must be a whole number').min(0).max(65535).default(3000),
     HOST: z.string().min(1).optional(),
@@ -36,17 +63,22 @@ const envSchema = z
 
 export type Env = z.output<typeof envSchema>;
 
+/** The environment with empty values dropped (they count as unset). */
+export function cleanEnv(source: Record<string, string | undefined>): Record<string, string> {
+  const cleaned: Record<string, string> = {};
+  for (const [key, value] of Object.entries(source)) {
+    if (value !== undefined && value.trim() !== '') cleaned[key] = value.trim();
+  }
+  return cleaned;
+}
+
 export class ConfigError extends Error {
   override name = 'ConfigError';
 }
 
 /** Parses the environment (default `process.env`); empty strings count as unset. */
 export function loadEnv(source: Record<string, string | undefined> = process.env): Env {
-  const cleaned: Record<string, string> = {};
-  for (const [key, value] of Object.entries(source)) {
-    if (value !== undefined && value.trim() !== '') cleaned[key] = value.trim();
-  }
-  const parsed = envSchema.safeParse(cleaned);
+  const parsed = envSchema.safeParse(cleanEnv(source));
   if (!parsed.success) {
     const lines = parsed.error.issues.map((i) => `  ${i.path.join('.') || '(environment)'}: ${i.message}`);
     throw new ConfigError(`Invalid configuration:\n${lines.join('\n')}`);

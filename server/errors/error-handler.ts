@@ -74,6 +74,10 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
   return (err, _req, res, next) => {
     if (res.headersSent) return next(err);
     const { status, body } = toErrorResponse(err, logger);
+    if (status === 429 && !res.get('Retry-After')) {
+      const after = (body.error.details as { retryAfterSeconds?: unknown } | undefined)?.retryAfterSeconds;
+      res.set('Retry-After', String(typeof after === 'number' ? Math.ceil(after) : 60));
+    }
     res.status(status).json(body);
   };
 }

@@ -23,8 +23,21 @@ function upload(limits: ImportLimits): RequestHandler {
     'files',
     limits.maxFiles,
   );
+  const requestTooLarge = () =>
+    new AppError(413, 'payload_too_large', `The upload is larger than the ${describeBytes(limits.maxRequestBytes)} limit per upload (IMPORT_MAX_REQUEST_MB)`);
   return (req, res, next) => {
+    // the whole request, not only each file: refused from its Content-Length, or counted as it streams
+    if (Number(req.headers['content-length']) > limits.maxRequestBytes) return next(requestTooLarge());
+    let seen = 0;
+    const count = (chunk: Buffer) => {
+      seen += chunk.length;
+      if (seen <= limits.maxRequestBytes) return;
+      req.off('data', count);
+      req.emit('error', requestTooLarge()); // multer stops, drains the rest and hands the error on
+    };
     parse(req, res, (err: unknown) => {
+      req.off('data', count);
+      if (err instanceof AppError) return next(err);
       if (!err) return next();
       if (err instanceof multer.MulterError) {
         if (err.code === 'LIMIT_FILE_SIZE') {
@@ -37,6 +50,7 @@ function upload(limits: ImportLimits): RequestHandler {
       }
       next(badRequest('The upload could not be read as multipart form data'));
     });
+    req.on('data', count);
   };
 }
 

@@ -6,14 +6,16 @@
 import { randomUUID } from 'node:crypto';
 import path from 'node:path';
 import { LessThan, type DataSource } from 'typeorm';
-import type { Model, ReadResult } from '../../shared/model/types.js';
+import type { Model, Problem, ReadResult } from '../../shared/model/types.js';
 import { commitImportSchema, type CommitImportInput, type CommitResult, type ImportPreview } from '../../shared/schemas/imports.js';
 import { runPool } from '../runs/worker-pool.js';
 import { AppError, badRequest, conflict, notFound } from '../errors/app-error.js';
 import { decodeModel, encodeJson } from '../models/model-codec.js';
 import { appendVersion, createModelWithVersion, findModel, summarise } from '../models/model.service.js';
 import { findProject } from '../projects/project.service.js';
-import { describeBytes, type ImportLimits } from './import-limits.js';
+import { inspectWorkbook, limitOfMessage, XlsxLimitError } from '../../shared/reader/xlsx.js';
+import { describeBytes, XLSX_LIMIT_VARIABLES, type ImportLimits } from './import-limits.js';
+import { ImportQueue } from './import-queue.js';
 import { PendingImportEntity, type PendingImportRecord } from './pending-import.entity.js';
 
 export interface UploadedFile {
@@ -30,18 +32,33 @@ function tooLarge(message: string): AppError {
   return new AppError(413, 'payload_too_large', message);
 }
 
-function countLines(text: string): number {
+function countLines(bytes: Buffer): number {
   let n = 0;
-  for (let i = text.indexOf('\n'); i !== -1; i = text.indexOf('\n', i + 1)) n++;
+  for (let i = bytes.indexOf(10); i !== -1; i = bytes.indexOf(10, i + 1)) n++;
   return n + 1;
+}
+
+let queue: ImportQueue | null = null;
+
+/** The process-wide import queue (sized by the first limits that ask for it). */
+export function importQueue(limits: ImportLimits): ImportQueue {
+  queue ??= new ImportQueue(limits.concurrency, limits.queue);
+  return queue;
+}
+
+/** 413 naming the limit and its variable, from a workbook refusal (this thread or a worker). */
+function workbookRefusal(fileName: string, message: string): AppError | null {
+  const limit = limitOfMessage(message);
+  if (!limit) return null;
+  return tooLarge(`${fileName}: ${message} (${XLSX_LIMIT_VARIABLES[limit]})`);
 }
 
 /** Reads the upload: one .xlsx, or one or more .csv (one file per table). */
 export async function readUpload(files: UploadedFile[], limits: ImportLimits): Promise<ReadResult> {
   if (files.length === 0) throw badRequest('Choose one .xlsx workbook or one or more .csv files to upload (form field "files")');
   const total = files.reduce((s, f) => s + f.buffer.length, 0);
-  if (total > limits.maxBytes) {
-    throw tooLarge(`The upload is ${describeBytes(total)}; the limit is ${describeBytes(limits.maxBytes)} (IMPORT_MAX_MB)`);
+  if (total > limits.maxRequestBytes) {
+    throw tooLarge(`The upload is ${describeBytes(total)}; the limit is ${describeBytes(limits.maxRequestBytes)} per upload (IMPORT_MAX_REQUEST_MB)`);
   }
   const ext = (f: UploadedFile) => path.extname(f.name).toLowerCase();
   const workbooks = files.filter((f) => ext(f) === '.xlsx');
@@ -52,20 +69,32 @@ export async function readUpload(files: UploadedFile[], limits: ImportLimits): P
     throw badRequest('Upload either one .xlsx workbook or a set of .csv files, not both or several workbooks');
   }
   let result: ReadResult;
-  // the reading itself happens in a worker thread (big uploads take seconds)
+  // the reading itself happens in a worker thread (big uploads take seconds), a bounded number at once
   const data = (f: UploadedFile) => new Uint8Array(f.buffer.buffer, f.buffer.byteOffset, f.buffer.byteLength);
   if (workbooks.length === 1) {
+    const book = workbooks[0];
     try {
-      result = await runPool().run({ kind: 'read', runId: 0, format: 'xlsx', files: [{ name: workbooks[0].name, data: data(workbooks[0]) }] });
+      // the zip's directory only: a bomb that says what it is never reaches a worker
+      inspectWorkbook(data(book), limits.xlsx);
     } catch (err) {
-      throw badRequest(`${workbooks[0].name} could not be read as an .xlsx workbook${err instanceof Error ? `: ${err.message}` : ''}`);
+      if (err instanceof XlsxLimitError) throw workbookRefusal(book.name, err.message)!;
+      throw badRequest(`${book.name} could not be read as an .xlsx workbook${err instanceof Error ? `: ${err.message}` : ''}`);
+    }
+    try {
+      result = await importQueue(limits).run(() =>
+        runPool().run({ kind: 'read', runId: 0, format: 'xlsx', files: [{ name: book.name, data: data(book) }], limits: limits.xlsx }),
+      );
+    } catch (err) {
+      if (err instanceof AppError) throw err;
+      const message = err instanceof Error ? err.message : String(err);
+      throw workbookRefusal(book.name, message) ?? badRequest(`${book.name} could not be read as an .xlsx workbook: ${message}`);
     }
   } else {
-    const rows = csvs.reduce((s, f) => s + countLines(f.buffer.toString('utf8')), 0);
+    const rows = csvs.reduce((s, f) => s + countLines(f.buffer), 0);
     if (rows > limits.maxRows) {
       throw tooLarge(`The upload has about ${rows.toLocaleString('en')} rows; the limit is ${limits.maxRows.toLocaleString('en')} (IMPORT_MAX_ROWS)`);
     }
-    result = await runPool().run({ kind: 'read', runId: 0, format: 'csv', files: csvs.map((f) => ({ name: f.name, data: data(f) })) });
+    result = await importQueue(limits).run(() => runPool().run({ kind: 'read', runId: 0, format: 'csv', files: csvs.map((f) => ({ name: f.name, data: data(f) })) }));
   }
   const rows = Object.values(result.counts).reduce((s, n) => s + n, 0);
   if (rows > limits.maxRows) {
@@ -74,12 +103,28 @@ export async function readUpload(files: UploadedFile[], limits: ImportLimits): P
   return result;
 }
 
+/** Problems by table and column, in order of first appearance. */
+function countProblems(problems: readonly Problem[]): NonNullable<ImportPreview['problemCounts']> {
+  const byKey = new Map<string, { table: string; column: string | null; errors: number; warnings: number }>();
+  for (const p of problems) {
+    const key = `${p.table}\u0000${p.column ?? ''}`;
+    let c = byKey.get(key);
+    if (!c) byKey.set(key, (c = { table: p.table, column: p.column ?? null, errors: 0, warnings: 0 }));
+    if (p.severity === 'error') c.errors++;
+    else c.warnings++;
+  }
+  return [...byKey.values()];
+}
+
 export function buildPreview(
   result: ReadResult,
   base: { id: string; projectId: number; modelId: number | null; baseVersion: number | null; name: string; fileNames: string[]; createdAt: Date; expiresAt: Date },
+  maxListed = 1000,
 ): ImportPreview {
   const problems = result.ok ? result.warnings : result.problems;
   const errorCount = problems.filter((p) => p.severity === 'error').length;
+  // errors first, each group in reading order; the list is capped, the counts are not
+  const listed = problems.length <= maxListed ? problems : [...problems.filter((p) => p.severity === 'error'), ...problems.filter((p) => p.severity !== 'error')].slice(0, maxListed);
   const model: Model | null = result.ok ? result.model : null;
   return {
     id: base.id,
@@ -110,7 +155,9 @@ export function buildPreview(
       defaulted: model?.inferred.defaulted ?? [],
       generatedCombinations: model?.combinations.filter((c) => c.generated).length ?? 0,
     },
-    problems: problems.map((p) => ({ ...p })),
+    problems: listed.map((p) => ({ ...p })),
+    problemCounts: countProblems(problems),
+    problemsTruncated: listed.length < problems.length,
     errorCount,
     warningCount: problems.length - errorCount,
     canCommit: result.ok && errorCount === 0,
@@ -156,7 +203,7 @@ export async function previewImport(
     fileNames: files.map((f) => f.name),
     createdAt: now,
     expiresAt: new Date(now.getTime() + limits.ttlMs),
-  });
+  }, limits.maxListedProblems);
   const repo = ds.getRepository(PendingImportEntity);
   await repo.delete({ expiresAt: LessThan(now) });
   await repo.insert({

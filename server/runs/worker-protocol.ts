@@ -1,6 +1,7 @@
 /** Messages between the HTTP thread and the run workers. */
 import type { MemberMovingDetail } from '../../shared/moving/detail.js';
 import type { DesignCode, ReadResult } from '../../shared/model/types.js';
+import type { XlsxLimits } from '../../shared/reader/xlsx.js';
 import type { CheckRecord } from '../../shared/design/types.js';
 import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
 import type { ResultTable } from '../../shared/exports/results.js';
@@ -43,6 +44,8 @@ export interface ReadTask {
   runId: 0;
   format: 'xlsx' | 'csv';
   files: { name: string; data: Uint8Array }[];
+  /** XLSX limits (server/imports/import-limits.ts) */
+  limits?: Partial<XlsxLimits>;
 }
 
 export type WorkerTask = RunTask | MemberTask | ForcesTask | ChecksTask | ReadTask;

@@ -7,7 +7,7 @@ import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
 import { analyseOnly, checkMemberWithStability, checkWithStability, computeRun, packRun, type Analysed } from './run-compute.js';
 import type { ChecksTask, ForcesTask, ForcesTaskResult, MemberTask, MemberTaskResult, ReadTask, WorkerTask } from './worker-protocol.js';
 import type { ReadResult } from '../../shared/model/types.js';
-import { readCsvFiles, readWorkbook } from '../../shared/reader/index.js';
+import { readCsvBytes, readWorkbook } from '../../shared/reader/index.js';
 
 /** Analyses kept per worker, newest last. */
 const CACHE_SIZE = 2;
@@ -87,8 +87,8 @@ export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => vo
 
 /** An upload through the shared reader (one workbook, or CSV files). */
 export async function readFiles(task: ReadTask): Promise<ReadResult> {
-  if (task.format === 'xlsx') return readWorkbook(Buffer.from(task.files[0].data.buffer, task.files[0].data.byteOffset, task.files[0].data.byteLength));
-  return readCsvFiles(task.files.map((f) => ({ name: f.name, text: Buffer.from(f.data.buffer, f.data.byteOffset, f.data.byteLength).toString('utf8') })));
+  if (task.format === 'xlsx') return readWorkbook(task.files[0].data, { limits: task.limits });
+  return readCsvBytes(task.files);
 }
 
 /** Buffers to move rather than copy back to the HTTP thread. */

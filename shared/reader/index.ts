@@ -3,5 +3,5 @@ export { readTables, type ReadOptions } from './read.js';
 export type { RawTable, Cell } from './table.js';
 export { formatProblem } from './problems.js';
 export { lanePath, type LanePath, type LaneStep } from './lanes.js';
-export { readCsvFiles, csvTable, tableNameOfFile, type CsvFile } from './csv.js';
-export { readWorkbook, workbookTables } from './xlsx.js';
+export { readCsvFiles, readCsvBytes, csvTable, tableNameOfFile, type CsvFile, type CsvBytes } from './csv.js';
+export { readWorkbook, workbookTables, XlsxLimitError, type XlsxLimits } from './xlsx.js';

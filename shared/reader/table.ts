@@ -104,12 +104,21 @@ function describeBound(spec: ColumnSpec): string {
 
 type CellResult = { value: unknown } | { error: string };
 
+/** Longest id (nodes, members, sections, cases…) the reader accepts. */
+export const MAX_ID_LENGTH = 64;
+/** Control characters and the bidirectional marks, embeddings, overrides and isolates. */
+const UNSAFE_ID_CHAR = /[\p{Cc}\u061C\u200E\u200F\u202A-\u202E\u2066-\u2069]/u;
+
 function parseCell(spec: ColumnSpec, c: Cell, factor: number, decimalComma: boolean, label = spec.name): CellResult {
   if (isBlank(c)) return spec.required ? { error: `${label} is required` } : { value: undefined };
   switch (spec.kind) {
-    case 'id':
+    case 'id': {
       if (typeof c === 'boolean') return { value: String(c) };
-      return { value: idText(c as string | number) };
+      const id = idText(c as string | number);
+      if (id.length > MAX_ID_LENGTH) return { error: `${label} is ${id.length} characters long; ids are at most ${MAX_ID_LENGTH}` };
+      if (UNSAFE_ID_CHAR.test(id)) return { error: `${label} holds a control or text-direction character (U+${id.codePointAt(id.search(UNSAFE_ID_CHAR))!.toString(16).toUpperCase().padStart(4, '0')}); ids are plain text` };
+      return { value: id };
+    }
     case 'text':
       return { value: String(c).trim() };
     case 'enum': {

@@ -63,7 +63,14 @@ export const importPreviewSchema = z.object({
     /** generated combinations (rule other than `table`) */
     generatedCombinations: z.number().int(),
   }),
+  /** the first 1,000 problems (errors first); `problemCounts` counts them all */
   problems: z.array(problemSchema),
+  /** every problem counted by table and column (column null: the table or file as a whole) */
+  problemCounts: z
+    .array(z.object({ table: z.string(), column: z.string().nullable(), errors: z.number().int(), warnings: z.number().int() }))
+    .optional(),
+  /** true when `problems` lists only the first 1,000 */
+  problemsTruncated: z.boolean().optional(),
   errorCount: z.number().int(),
   warningCount: z.number().int(),
   canCommit: z.boolean(),
