@@ -29,6 +29,8 @@ const wasm = (globalThis as { WebAssembly?: WasmApi }).WebAssembly;
 
 export interface SimdKernels {
   memory: WasmMemory;
+  /** built with relaxed-SIMD fused multiply-add */
+  fused: boolean;
   update(ob: number, w: number, rLo: number, rHi: number, cLo: number, cHi: number, kLo: number, kHi: number, tRowB: number, tColB: number): void;
   trsm(os: number, nc: number, nr: number, j0: number, j1: number): void;
   gather(
@@ -51,8 +53,9 @@ export interface SimdKernels {
   permuteOut(bB: number, xB: number, ld8: number, n: number, nrhs: number, permB: number): void;
 }
 
-function buildUpdate(): FunctionBuilder {
+function buildUpdate(fused: boolean): FunctionBuilder {
   const f = new FunctionBuilder('update', [I32, I32, I32, I32, I32, I32, I32, I32, I32, I32]);
+  f.fused = fused;
   const [ob, w, rLo, rHi, cLo, cHi, kLo, kHi, tRowB, tColB] = [0, 1, 2, 3, 4, 5, 6, 7, 8, 9];
   const r = f.local(I32);
   const c = f.local(I32);
@@ -92,7 +95,7 @@ function buildUpdate(): FunctionBuilder {
     for (let i = 0; i < mr; i++) {
       for (let j = 0; j < nr; j++) {
         const q = i * nr + j;
-        f.get(acc[q]).get(va[i]).get(vb[j]).vmul().vadd().set(acc[q]);
+        f.mulAdd(acc[q], () => f.get(va[i]), () => f.get(vb[j]));
       }
     }
     for (let i = 0; i < mr; i++) f.inc(pa[i], 16);
@@ -152,8 +155,9 @@ function buildUpdate(): FunctionBuilder {
  * columns j0 ≤ j < j1 in turn, L[r, j] = (L[r, j] − Σ_{j0≤k<j} L[r, k]·L[j, k]) / L[j, j]
  * (solving the rows below a factored diagonal panel), four rows at a time.
  */
-function buildTrsm(): FunctionBuilder {
+function buildTrsm(fused: boolean): FunctionBuilder {
   const f = new FunctionBuilder('trsm', [I32, I32, I32, I32, I32]);
+  f.fused = fused;
   const [os, nc, nr, j0, j1] = [0, 1, 2, 3, 4];
   const r = f.local(I32);
   const j = f.local(I32);
@@ -182,7 +186,7 @@ function buildTrsm(): FunctionBuilder {
     f.get(pb).get(end).geU().brIf(1);
     f.get(pb).v128Load().set(vb);
     for (let i = 0; i < mr; i++) f.get(pa[i]).v128Load().set(va[i]);
-    for (let i = 0; i < mr; i++) f.get(acc[i]).get(va[i]).get(vb).vmul().vadd().set(acc[i]);
+    for (let i = 0; i < mr; i++) f.mulAdd(acc[i], () => f.get(va[i]), () => f.get(vb));
     for (let i = 0; i < mr; i++) f.inc(pa[i], 16);
     f.inc(pb, 16);
     f.br(0).end().end();
@@ -301,21 +305,40 @@ function buildGather(): FunctionBuilder {
   return f;
 }
 
-let compiled: object | null | undefined;
+/** compiled modules: [plain, fused]; null where the runtime refuses the module */
+const compiled: Array<object | null | undefined> = [undefined, undefined];
 
-function module(): object | null {
-  if (compiled !== undefined) return compiled;
+function module(fused: boolean): object | null {
+  const i = fused ? 1 : 0;
+  if (compiled[i] !== undefined) return compiled[i];
   let mod: object | null = null;
   try {
     if (wasm) {
-      const bytes = assembleModule([buildUpdate(), buildTrsm(), buildGather(), buildSolveForward(), buildSolveBackward(), buildPermuteIn(), buildPermuteOut()]);
+      const fns = [buildUpdate(fused), buildTrsm(fused), buildGather(), buildSolveForward(fused), buildSolveBackward(fused), buildPermuteIn(), buildPermuteOut()];
+      const bytes = assembleModule(fns);
       if (wasm.validate(bytes)) mod = new wasm.Module(bytes);
     }
   } catch {
     mod = null;
   }
-  compiled = mod;
+  compiled[i] = mod;
   return mod;
+}
+
+let fusedWanted = true;
+
+/**
+ * Whether the kernels use relaxed-SIMD fused multiply-add where the runtime has it (default
+ * true; browsers with relaxed SIMD, Node only behind --experimental-wasm-relaxed-simd).
+ * Off, or where unavailable, they multiply and add separately.
+ */
+export function useFusedMultiplyAdd(on: boolean): void {
+  fusedWanted = on;
+}
+
+/** True when kernels with fused multiply-add can be built on this runtime. */
+export function hasFusedMultiplyAdd(): boolean {
+  return module(true) !== null;
 }
 
 /** largest memory asked for (bytes); beyond it the TypeScript kernels are used */
@@ -330,13 +353,15 @@ export function useSimdKernels(on: boolean): void {
 
 /** Kernels over a fresh memory of at least `bytes` bytes, or null when unavailable. */
 export function simdKernels(bytes: number): SimdKernels | null {
-  const mod = enabled ? module() : null;
-  if (!enabled || !wasm || mod === null || bytes > MAX_BYTES) return null;
+  if (!enabled || !wasm || bytes > MAX_BYTES) return null;
+  const fusedMod = fusedWanted ? module(true) : null;
+  const mod = fusedMod ?? module(false);
+  if (mod === null) return null;
   try {
     const memory = new wasm.Memory({ initial: Math.max(1, Math.ceil(bytes / 65536)) });
     const inst = new wasm.Instance(mod, { env: { mem: memory } });
     const ex = inst.exports as unknown as Omit<SimdKernels, 'memory'>;
-    return { memory, update: ex.update, trsm: ex.trsm, gather: ex.gather, solveForward: ex.solveForward, solveBackward: ex.solveBackward, permuteIn: ex.permuteIn, permuteOut: ex.permuteOut };
+    return { memory, fused: mod === fusedMod, update: ex.update, trsm: ex.trsm, gather: ex.gather, solveForward: ex.solveForward, solveBackward: ex.solveBackward, permuteIn: ex.permuteIn, permuteOut: ex.permuteOut };
   } catch {
     return null;
   }

@@ -33,8 +33,9 @@ function loadCaseChunks(f: FunctionBuilder, q8: number, ld8: number, body: (nv: 
   }
 }
 
-export function buildSolveForward(): FunctionBuilder {
+export function buildSolveForward(fused: boolean): FunctionBuilder {
   const f = new FunctionBuilder('solveForward', [I32, I32, I32, I32, I32, I32, I32]);
+  f.fused = fused;
   const [o8, nc, nr, xf8, ld8, rowsB, xB] = [0, 1, 2, 3, 4, 5, 6];
   const nc8 = f.local(I32);
   const i = f.local(I32);
@@ -63,7 +64,7 @@ export function buildSolveForward(): FunctionBuilder {
     f.block().loop();
     f.get(pa[0]).get(end).geU().brIf(1);
     f.get(pa[0]).f64Load().splat().set(lv[0]);
-    for (let c = 0; c < nv; c++) f.get(acc[0][c]).get(lv[0]).get(px).v128Load(16 * c).vmul().vsub().set(acc[0][c]);
+    for (let c = 0; c < nv; c++) f.mulSub(acc[0][c], () => f.get(lv[0]), () => f.get(px).v128Load(16 * c));
     f.inc(pa[0], 8).get(px).get(ld8).add().set(px);
     f.br(0).end().end();
     f.get(pa[0]).f64Load().splat().set(lv[0]);
@@ -84,7 +85,7 @@ export function buildSolveForward(): FunctionBuilder {
       for (let c = 0; c < nv; c++) f.get(px).v128Load(16 * c).set(xv[c]);
       for (let a = 0; a < mr; a++) {
         f.get(pa[a]).f64Load().splat().set(lv[a]);
-        for (let c = 0; c < nv; c++) f.get(acc[a][c]).get(lv[a]).get(xv[c]).vmul().vadd().set(acc[a][c]);
+        for (let c = 0; c < nv; c++) f.mulAdd(acc[a][c], () => f.get(lv[a]), () => f.get(xv[c]));
       }
       for (let a = 0; a < mr; a++) f.inc(pa[a], 8);
       f.get(px).get(ld8).add().set(px);
@@ -108,8 +109,9 @@ export function buildSolveForward(): FunctionBuilder {
   return f;
 }
 
-export function buildSolveBackward(): FunctionBuilder {
+export function buildSolveBackward(fused: boolean): FunctionBuilder {
   const f = new FunctionBuilder('solveBackward', [I32, I32, I32, I32, I32, I32, I32, I32]);
+  f.fused = fused;
   const [o8, nc, nr, xf8, ld8, rowsB, xB, eB] = [0, 1, 2, 3, 4, 5, 6, 7];
   const nc8 = f.local(I32);
   const k = f.local(I32);
@@ -155,7 +157,7 @@ export function buildSolveBackward(): FunctionBuilder {
       for (let c = 0; c < nv; c++) f.get(pe).v128Load(16 * c).set(ev[c]);
       for (let a = 0; a < mk; a++) {
         f.get(pl).f64Load(8 * a).splat().set(lv[a]);
-        for (let c = 0; c < nv; c++) f.get(acc[a][c]).get(lv[a]).get(ev[c]).vmul().vadd().set(acc[a][c]);
+        for (let c = 0; c < nv; c++) f.mulAdd(acc[a][c], () => f.get(lv[a]), () => f.get(ev[c]));
       }
       f.get(pl).get(nc8).add().set(pl);
       f.get(pe).get(ld8).add().set(pe);
@@ -192,7 +194,7 @@ export function buildSolveBackward(): FunctionBuilder {
     f.block().loop();
     f.get(pl).get(end).geU().brIf(1);
     f.get(pl).f64Load().splat().set(lv[0]);
-    for (let c = 0; c < nv; c++) f.get(acc[0][c]).get(lv[0]).get(pe).v128Load(16 * c).vmul().vsub().set(acc[0][c]);
+    for (let c = 0; c < nv; c++) f.mulSub(acc[0][c], () => f.get(lv[0]), () => f.get(pe).v128Load(16 * c));
     f.get(pl).get(nc8).add().set(pl);
     f.get(pe).get(ld8).add().set(pe);
     f.br(0).end().end();

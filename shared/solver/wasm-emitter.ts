@@ -219,6 +219,47 @@ export class FunctionBuilder {
     return this.simd(0xf3);
   }
 
+  // relaxed SIMD (WebAssembly relaxed-simd proposal): a·b + c and −(a·b) + c, fused where the
+  // hardware has fused multiply-add
+  vmadd(): this {
+    return this.simd(0x107);
+  }
+  vnmadd(): this {
+    return this.simd(0x108);
+  }
+
+  /**
+   * With `fused` set, the products below use relaxed fused multiply-add; otherwise a
+   * multiplication and an addition (the fallback where relaxed SIMD is unavailable).
+   */
+  fused = false;
+
+  /** local acc ← acc + a·b (f64x2); pushA and pushB leave one vector each on the stack */
+  mulAdd(acc: number, pushA: () => void, pushB: () => void): this {
+    if (this.fused) {
+      pushA();
+      pushB();
+      return this.get(acc).vmadd().set(acc);
+    }
+    this.get(acc);
+    pushA();
+    pushB();
+    return this.vmul().vadd().set(acc);
+  }
+
+  /** local acc ← acc − a·b (f64x2) */
+  mulSub(acc: number, pushA: () => void, pushB: () => void): this {
+    if (this.fused) {
+      pushA();
+      pushB();
+      return this.get(acc).vnmadd().set(acc);
+    }
+    this.get(acc);
+    pushA();
+    pushB();
+    return this.vmul().vsub().set(acc);
+  }
+
   /** local l += amount (i32) */
   inc(l: number, amount: number): this {
     return this.get(l).i32(amount).add().set(l);

@@ -1,6 +1,11 @@
+import { setFlagsFromString } from 'node:v8';
 import { afterEach, describe, expect, it } from 'vitest';
 import { factorise, SingularMatrixError, type SymmetricCsc } from '../../../shared/solver/index.js';
-import { simdKernels, useSimdKernels } from '../../../shared/solver/simd-kernels.js';
+import { hasFusedMultiplyAdd, simdKernels, useFusedMultiplyAdd, useSimdKernels } from '../../../shared/solver/simd-kernels.js';
+
+// relaxed SIMD (fused multiply-add) is behind a flag in Node 20: on, so that both kernel
+// variants are tested (the flag must be set before the first kernels are built)
+setFlagsFromString('--experimental-wasm-relaxed-simd');
 import { fromDense, gridLaplacian, relativeResidual } from './fixtures.js';
 
 /** deterministic pseudo-random numbers (mulberry32) */
@@ -98,4 +103,45 @@ describe('dense kernels of the factorisation', () => {
     expect(caught).toBeInstanceOf(SingularMatrixError);
     expect([20, 60]).toContain((caught as SingularMatrixError).index);
   });
+});
+
+describe('kernels with and without fused multiply-add', () => {
+  afterEach(() => {
+    useFusedMultiplyAdd(true);
+    useSimdKernels(true);
+  });
+
+  it('builds the fused kernels where the runtime has relaxed SIMD', () => {
+    expect(hasFusedMultiplyAdd()).toBe(true);
+    expect(simdKernels(1024)?.fused).toBe(true);
+    useFusedMultiplyAdd(false);
+    expect(simdKernels(1024)?.fused).toBe(false);
+  });
+
+  const cases: Array<[string, () => SymmetricCsc, number]> = [
+    ['a dense 131×131 system', () => denseSpd(131, 131), 20],
+    ['a dense 50×50 system', () => denseSpd(50, 50), 1],
+    ['a 3D grid Laplacian', () => gridLaplacian([11, 10, 9], 0.05), 20],
+    ['a 3D grid Laplacian, one load case', () => gridLaplacian([11, 10, 9], 0.05), 1],
+  ];
+  for (const [name, make, nrhs] of cases) {
+    it(`fused, unfused SIMD and TypeScript kernels agree on ${name} (1e-12)`, () => {
+      const K = make();
+      const rand = rng(17);
+      const B = new Float64Array(K.n * nrhs).map(() => rand() * 2 - 1);
+      useFusedMultiplyAdd(true);
+      const fused = factorise(K).solve(B, nrhs);
+      useFusedMultiplyAdd(false);
+      const unfused = factorise(K).solve(B, nrhs);
+      useSimdKernels(false);
+      const plain = factorise(K).solve(B, nrhs);
+      for (let q = 0; q < nrhs; q++) expect(relativeResidual(K, fused, B, q)).toBeLessThanOrEqual(1e-12);
+      // |x − x_plain| ≤ 1e-12 · max(1, |x_plain|): same algorithm, roundings of products only
+      for (const x of [fused, unfused]) {
+        let worst = 0;
+        for (let i = 0; i < x.length; i++) worst = Math.max(worst, Math.abs(x[i] - plain[i]) / Math.max(1, Math.abs(plain[i])));
+        expect(worst).toBeLessThanOrEqual(1e-12);
+      }
+    });
+  }
 });
