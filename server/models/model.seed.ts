@@ -11,6 +11,8 @@ import { RunEntity, RunResultEntity } from '../runs/run.entity.js';
 import { encodeJson } from './model-codec.js';
 import { createModelWithVersion } from './model.service.js';
 
+const blob = (b: Uint8Array) => (b.byteLength > 0 ? Buffer.from(b.buffer, b.byteOffset, b.byteLength) : null);
+
 export async function seedSampleModels(seed: SeedContext): Promise<void> {
   const [metricProject, usProject] = seed.projects;
   for (const sample of listSamples()) {
@@ -42,6 +44,7 @@ export async function seedSampleModels(seed: SeedContext): Promise<void> {
         status: 'done', phase: 'saving', progress: 1, message: '', reviewStatus: 'draft', maxRatio: packed.maxRatio,
         passCount: packed.counts.pass, failCount: packed.counts.fail, notCheckedCount: packed.counts.notChecked,
         timingsJson: JSON.stringify(packed.timings), diagnosticsJson: JSON.stringify(packed.diagnostics),
+        stabilityJson: packed.stabilityJson,
         createdBy: seed.users.engineer.id, startedAt: started, finishedAt: new Date(),
       });
       await seed.manager.getRepository(RunResultEntity).insert({
@@ -51,6 +54,8 @@ export async function seedSampleModels(seed: SeedContext): Promise<void> {
         loadingsJson: JSON.stringify(packed.loadings),
         nodeData: Buffer.from(packed.nodeData),
         nodeCount: packed.nodeCount,
+        shapesData: blob(packed.shapesData),
+        analysedModelData: blob(packed.analysedModelData),
       });
     } catch {
       // no run for this sample: the model is still there to run by hand

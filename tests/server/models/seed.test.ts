@@ -21,6 +21,16 @@ describe('demo seed', () => {
     }
   });
 
+  it('keeps the stability summary of a seeded second-order run (analysis order, αcr, modes)', async () => {
+    const [m] = await t.dataSource.query("SELECT id FROM models WHERE name LIKE '%second order%'");
+    const [run] = await t.dataSource.query('SELECT id FROM runs WHERE modelId = ?', [m.id]);
+    const r = await t.as('engineer').get(`/api/runs/${run.id}`);
+    expect(r.status).toBe(200);
+    expect(r.body.stability.analysis).toBe('second_order');
+    expect(r.body.stability.modes.length).toBe(4);
+    expect(r.body.stability.critical.length).toBeGreaterThan(0);
+  });
+
   it('serves the samples list and a sample workbook', async () => {
     const list = await t.as('viewer').get('/api/samples');
     expect(list.status).toBe(200);
