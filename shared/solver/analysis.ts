@@ -22,8 +22,14 @@ export interface SupernodalFactorisation extends Factorisation {
   ordering: Exclude<Ordering, 'auto'>;
   /** the pattern's analysis this factorisation was computed with */
   analysis: PatternAnalysis;
+  /** true when the factor went into the memory of a released factorisation of this analysis */
+  memoryReused: boolean;
   refactorise(values: Float64Array): void;
+  release(): void;
 }
+
+/** released factor memories an analysis keeps for reuse */
+const KEEP_RELEASED = 2;
 
 export interface PatternAnalysis {
   n: number;
@@ -42,7 +48,8 @@ export interface PatternAnalysis {
   matches(K: SymmetricCsc): boolean;
   /**
    * Numeric factorisation of values aligned with the analysed pattern's rowIdx, in memory of
-   * its own. Throws SingularMatrixError for a zero, tiny or negative pivot.
+   * its own: that of a released factorisation of this analysis when there is one (no fresh
+   * pages to fault in), else new. Throws SingularMatrixError for a zero, tiny or negative pivot.
    */
   factorise(values: Float64Array, pivotTolerance?: number): SupernodalFactorisation;
 }
@@ -95,6 +102,8 @@ export function analysePattern(K: SymmetricCsc, options: FactorOptions = {}): Pa
   const sym = analyse(K, order, undefined, tree);
   const tSymbolic = performance.now() - t;
 
+  /** memory of released factorisations, handed to the next ones */
+  const released: NumericFactor[] = [];
   const analysis: PatternAnalysis = {
     n,
     nnzFactor: sym.nnzL,
@@ -118,9 +127,20 @@ export function analysePattern(K: SymmetricCsc, options: FactorOptions = {}): Pa
     factorise(values: Float64Array, pivotTolerance = defaultTolerance): SupernodalFactorisation {
       checkValues(K, values);
       const t0 = performance.now();
-      let factor: NumericFactor = factorNumeric(values, sym, pivotTolerance);
-      let usable = true;
+      const spare = released.pop();
+      let factor: NumericFactor;
+      try {
+        factor = factorNumeric(values, sym, pivotTolerance, spare);
+      } catch (e) {
+        if (spare) released.push(spare);
+        throw e;
+      }
+      let state: 'usable' | 'failed' | 'released' = 'usable';
       const timings = { ordering: 0, symbolic: 0, numeric: performance.now() - t0 };
+      const check = (): void => {
+        if (state === 'failed') throw new Error('solver: the last refactorisation failed; refactorise before solving');
+        if (state === 'released') throw new Error('solver: this factorisation was released');
+      };
       return {
         n,
         nnzFactor: sym.nnzL,
@@ -131,19 +151,26 @@ export function analysePattern(K: SymmetricCsc, options: FactorOptions = {}): Pa
         flops: sym.flops,
         ordering: used,
         analysis,
+        memoryReused: spare !== undefined,
         solve(B: Float64Array, nrhs: number): Float64Array {
           if (!Number.isInteger(nrhs) || nrhs < 0) throw new Error(`solver: nrhs ${nrhs} is not a non-negative integer`);
           if (B.length !== n * nrhs) throw new Error(`solver: right-hand side has ${B.length} values, expected ${n * nrhs}`);
-          if (!usable) throw new Error('solver: the last refactorisation failed; refactorise before solving');
+          check();
           return blockSolve(sym, factor, B, nrhs);
         },
         refactorise(next: Float64Array): void {
+          if (state === 'released') check();
           checkValues(K, next);
           const t1 = performance.now();
-          usable = false;
+          state = 'failed';
           factor = factorNumeric(next, sym, pivotTolerance, factor);
-          usable = true;
+          state = 'usable';
           timings.numeric = performance.now() - t1;
+        },
+        release(): void {
+          if (state === 'released') return;
+          state = 'released';
+          if (released.length < KEEP_RELEASED) released.push(factor);
         },
       };
     },

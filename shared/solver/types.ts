@@ -36,6 +36,12 @@ export interface Factorisation {
    * succeeds. Optional: solvers that cannot reuse their analysis leave it out.
    */
   refactorise?(values: Float64Array): void;
+  /**
+   * Declares the factorisation no longer needed: its memory goes to the next factorisation of
+   * the same analysed pattern (fresh memory costs page faults on every analysis). Solving or
+   * refactorising afterwards throws. Optional, like refactorise.
+   */
+  release?(): void;
 }
 
 /** A zero, tiny or negative pivot: `index` is the freedom (original numbering) at fault. */

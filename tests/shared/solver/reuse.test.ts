@@ -75,6 +75,25 @@ describe('reuse of the analysis of a pattern', () => {
     }
   });
 
+  it('hands the memory of a released factorisation to the next one of the pattern, with the answers of a fresh one (1e-12)', () => {
+    const K1 = gridFrame(8, 10, 1e-4);
+    const K2 = gridFrame(8, 10, 5e-4);
+    const a = analysePattern(K1);
+    const B = loads(K1.n, 20, 8);
+    const f1 = a.factorise(K1.values);
+    f1.solve(B, 20); // grows its memory for the solve workspace too
+    f1.release();
+    expect(() => f1.solve(B, 20)).toThrow(/released/);
+    const f2 = a.factorise(K2.values);
+    expect(f2.memoryReused).toBe(true);
+    expectClose(f2.solve(B, 20), factorise(K2).solve(B, 20), 1e-12);
+    // nothing released now: the next one gets memory of its own, and f2 stays valid beside it
+    const f3 = a.factorise(K1.values);
+    expect(f3.memoryReused).toBe(false);
+    expectClose(f3.solve(B, 20), factorise(K1).solve(B, 20), 1e-12);
+    expectClose(f2.solve(B, 20), factorise(K2).solve(B, 20), 1e-12);
+  });
+
   it('engine bridge: the same connectivity reuses the analysis, new values give fresh answers', () => {
     const K1 = gridFrame(7, 9, 1e-4);
     const K2 = gridFrame(7, 9, 2e-4);
