@@ -13,8 +13,8 @@
  */
 import { buildPattern } from '../engine/assembly.js';
 import type { LinearSystem } from '../engine/system.js';
+import { analysePattern, type SupernodalFactorisation } from '../solver/index.js';
 import { SingularMatrixError, type FactorOptions, type SymmetricCsc } from '../solver/types.js';
-import { type Refactorisation, refactorisation } from './refactorisation.js';
 
 /** K_red or a member's internal block is not positive definite; `index` a full equation at fault. */
 export class CondensedInstability extends Error {
@@ -47,9 +47,19 @@ export interface CondensedSolver {
   nnzFactor: number;
   /**
    * Solve A X = B (A aligned with the full pattern, B and X full, nrhs columns); throws
-   * CondensedInstability when A is not positive definite.
+   * CondensedInstability when A is not positive definite. Same as factor(A) then solveFactored.
    */
   solve(A: Float64Array, B: Float64Array, nrhs: number): Float64Array;
+  /**
+   * Condense and factorise A (members' Cholesky factors and W kept, the reduced system
+   * refactorised into the memory of the previous factor); throws CondensedInstability when A
+   * is not positive definite.
+   */
+  factor(A: Float64Array): void;
+  /** X = A⁻¹ B with the last A factorised (B full, nrhs columns; X a fresh array). */
+  solveFactored(B: Float64Array, nrhs: number): Float64Array;
+  /** CPU phases (condensation, reduced factorisation, solves) into the caller's record, when set */
+  phase?: (name: string) => void;
 }
 
 /** Position of (row, col) in a lower CSC (rows ascending per column), −1 when absent. */
@@ -129,38 +139,39 @@ export function condensedSolver(sys: LinearSystem, options: FactorOptions = {}):
       redPos: Int32Array.from(redPos), redRow: Int32Array.from(redRow), redCol: Int32Array.from(redCol),
     });
   }
-  const refac: Refactorisation | null = nRed > 0 ? refactorisation(red, options) : null;
   const pivotTolerance = options.pivotTolerance ?? 1e-10;
+  // ordering and symbolic analysis of the reduced pattern once; each factorisation refactorises into the same memory
+  const analysis = nRed > 0 ? analysePattern(red, options) : null;
+  let fact: SupernodalFactorisation | null = null;
+  let factored = false;
   const redValues = new Float64Array(red.values.length);
-  // W = A_ii⁻¹ A_ib of every member, kept from the condensation to the back-substitution
-  const wOff = new Int32Array(blocks.length + 1);
-  let maxNi = 0, maxNb = 0;
+  // per member: the Cholesky factor of A_ii and W = A_ii⁻¹ A_ib, kept from the condensation to the solves
+  const wOff = new Int32Array(blocks.length + 1), lOff = new Int32Array(blocks.length + 1);
+  let maxNb = 0;
   blocks.forEach((bk, k) => {
     wOff[k + 1] = wOff[k] + bk.ni * bk.b.length;
-    maxNi = Math.max(maxNi, bk.ni);
+    lOff[k + 1] = lOff[k] + bk.ni * bk.ni;
     maxNb = Math.max(maxNb, bk.b.length);
   });
   const Wall = new Float64Array(wOff[blocks.length]);
-  const L = new Float64Array(maxNi * maxNi), Aib = new Float64Array(maxNi * maxNb);
-
-  return {
+  const Lall = new Float64Array(lOff[blocks.length]);
+  const Aib = new Float64Array(Math.max(1, ...blocks.map((bk) => bk.ni)) * maxNb);
+  const self: CondensedSolver = {
     nReduced: nRed,
-    nnzFactor: refac ? refac.nnzFactor : 0,
-    solve(A: Float64Array, B: Float64Array, nrhs: number): Float64Array {
-      if (B.length !== nEq * nrhs) throw new Error(`condensed system: right-hand side has ${B.length} values, expected ${nEq * nrhs}`);
+    nnzFactor: analysis ? analysis.nnzFactor : 0,
+    factor(A: Float64Array): void {
+      factored = false;
       redValues.fill(0);
       for (let k = 0; k < uuFull.length; k++) redValues[uuRed[k]] += A[uuFull[k]];
-      const Bred = new Float64Array(nRed * nrhs);
-      for (let c = 0; c < nrhs; c++) for (let i = 0; i < nRed; i++) Bred[c * nRed + i] = B[c * nEq + i];
-      // per member: L Lᵀ = A_ii, W = A_ii⁻¹ A_ib, g = A_ii⁻¹ f_i (in place in X); A_red −= A_ibᵀ W, f_red −= Wᵀ f_i
-      const X = new Float64Array(nEq * nrhs);
+      // per member: L Lᵀ = A_ii, W = A_ii⁻¹ A_ib; A_red −= A_ibᵀ W
       for (let k = 0; k < blocks.length; k++) {
-        const bk = blocks[k], ni = bk.ni, b = bk.b, nb = b.length, i0 = bk.i0;
-        L.fill(0, 0, ni * ni);
+        const bk = blocks[k], ni = bk.ni, nb = bk.b.length;
+        const L = Lall.subarray(lOff[k], lOff[k + 1]);
+        L.fill(0);
         Aib.fill(0, 0, ni * nb);
         for (let q = 0; q < bk.iiPos.length; q++) L[bk.iiIdx[q]] += A[bk.iiPos[q]];
         for (let q = 0; q < bk.ibPos.length; q++) Aib[bk.ibIdx[q]] += A[bk.ibPos[q]];
-        cholesky(L, ni, pivotTolerance, i0);
+        cholesky(L, ni, pivotTolerance, bk.i0);
         const W = Wall.subarray(wOff[k], wOff[k + 1]);
         W.set(Aib.subarray(0, ni * nb));
         cholSolve(L, ni, W, nb);
@@ -170,6 +181,31 @@ export function condensedSolver(sys: LinearSystem, options: FactorOptions = {}):
           for (let i = 0; i < ni; i++) sum += Aib[i * nb + r] * W[i * nb + c];
           redValues[bk.redPos[q]] -= sum;
         }
+      }
+      self.phase?.('condensation');
+      if (analysis) {
+        try {
+          if (fact) fact.refactorise(redValues);
+          else fact = analysis.factorise(redValues, pivotTolerance);
+        } catch (err) {
+          if (err instanceof SingularMatrixError) throw new CondensedInstability(err.index);
+          throw err;
+        }
+      }
+      factored = true;
+      self.phase?.('factorisation');
+    },
+    solveFactored(B: Float64Array, nrhs: number): Float64Array {
+      if (!factored) throw new Error('condensed system: no factorisation to solve with');
+      if (B.length !== nEq * nrhs) throw new Error(`condensed system: right-hand side has ${B.length} values, expected ${nEq * nrhs}`);
+      const Bred = new Float64Array(nRed * nrhs);
+      for (let c = 0; c < nrhs; c++) for (let i = 0; i < nRed; i++) Bred[c * nRed + i] = B[c * nEq + i];
+      // per member: f_red −= Wᵀ f_i, g = A_ii⁻¹ f_i (in place in X)
+      const X = new Float64Array(nEq * nrhs);
+      for (let k = 0; k < blocks.length; k++) {
+        const bk = blocks[k], ni = bk.ni, b = bk.b, nb = b.length, i0 = bk.i0;
+        const L = Lall.subarray(lOff[k], lOff[k + 1]);
+        const W = Wall.subarray(wOff[k], wOff[k + 1]);
         for (let c = 0; c < nrhs; c++) {
           const o = c * nEq + i0;
           for (let r = 0; r < nb; r++) {
@@ -177,21 +213,12 @@ export function condensedSolver(sys: LinearSystem, options: FactorOptions = {}):
             for (let i = 0; i < ni; i++) sum += W[i * nb + r] * B[o + i];
             Bred[c * nRed + b[r]] -= sum;
           }
-          // g = A_ii⁻¹ f_i into X (one column)
           const g = X.subarray(o, o + ni);
           g.set(B.subarray(o, o + ni));
           cholSolve(L, ni, g, 1);
         }
       }
-      let Xred: Float64Array = new Float64Array(0);
-      if (refac) {
-        try {
-          Xred = refac.factor(redValues).solve(Bred, nrhs);
-        } catch (err) {
-          if (err instanceof SingularMatrixError) throw new CondensedInstability(err.index);
-          throw err;
-        }
-      }
+      const Xred: Float64Array = fact ? fact.solve(Bred, nrhs) : new Float64Array(0);
       for (let c = 0; c < nrhs; c++) for (let i = 0; i < nRed; i++) X[c * nEq + i] = Xred[c * nRed + i];
       // u_i = g − W u_b
       for (let k = 0; k < blocks.length; k++) {
@@ -206,9 +233,16 @@ export function condensedSolver(sys: LinearSystem, options: FactorOptions = {}):
           }
         }
       }
+      self.phase?.('solve');
       return X;
     },
+    solve(A: Float64Array, B: Float64Array, nrhs: number): Float64Array {
+      if (B.length !== nEq * nrhs) throw new Error(`condensed system: right-hand side has ${B.length} values, expected ${nEq * nrhs}`);
+      self.factor(A);
+      return self.solveFactored(B, nrhs);
+    },
   };
+  return self;
 }
 
 /** In-place dense Cholesky of the lower triangle of L (n × n, row-major); a small pivot throws. */

@@ -152,6 +152,11 @@ function modelLoadings(model: Model, caseIndex: Map<string, number>): Loading[] 
 interface Solvers {
   condensed: CondensedSolver | null;
   full: () => Refactorisation;
+  /** values arrays aligned with pat.K, shared by every loading: K_G, ΔK of the stiffness rule, K + ΔK + K_G */
+  KG: Float64Array;
+  dK: Float64Array;
+  A: Float64Array;
+  sw: Stopwatch;
 }
 
 /** A solved second-order loading (analysed load level) and what its results need. */
@@ -189,10 +194,16 @@ export function analyseSecondOrder(model: Model, options: SecondOrderOptions = {
   const solvers: Solvers = {
     condensed: null,
     full: () => (fullRefac ??= refactorisation(pat.K, opt.solver)),
+    KG: new Float64Array(pat.K.values.length),
+    dK: new Float64Array(pat.K.values.length),
+    A: new Float64Array(pat.K.values.length),
+    sw,
   };
   let X1: Float64Array = new Float64Array(0);
   if (nEq > 0) {
     condensed = solvers.condensed = condensedSolver(sys, opt.solver);
+    sw.fine('condensation setup');
+    condensed.phase = (name) => sw.fine(name);
     try {
       X1 = nCases > 0 ? condensed.solve(pat.K.values, F, nCases) : X1;
     } catch (err) {
@@ -383,8 +394,9 @@ function solveLoading(
   const u1 = combineCases(U1, nDofAll, ld, scale);
   let N = elementAxialForces(mesh, u1, fef, undefined, axialPart);
   const ea = new Float64Array(nEl).fill(1), ei = new Float64Array(nEl).fill(1);
-  const KG = new Float64Array(pat.K.values.length), dK = new Float64Array(pat.K.values.length);
-  const A = new Float64Array(pat.K.values.length);
+  const { KG, dK, A, sw } = solvers;
+  dK.fill(0);
+  sw.fine('loading setup');
   const K0 = pat.K.values;
   let u = u1, used = N, iterations = 0, change = Infinity, converged = false;
   // αcr of the axial forces that failed (their K + K_G is not positive definite, so αcr ≤ 1)
@@ -403,6 +415,7 @@ function solveLoading(
     for (let i = 0; i < A.length; i++) A[i] = K0[i] + dK[i] + KG[i];
     const rhs = Fl.slice();
     if (pl) subtractPrescribed(sys, pl, N, ea, ei, rhs);
+    sw.fine('K_G assembly');
     let X: Float64Array;
     try {
       X = solvers.condensed!.solve(A, rhs, 1);
@@ -414,6 +427,7 @@ function solveLoading(
     const un = new Float64Array(nDofAll);
     for (let g = 0; g < nDofAll; g++) un[g] = eq[g] >= 0 ? X[eq[g]] : pl ? pl[g] : 0;
     const Nn = elementAxialForces(mesh, un, fef, rule ? ea : undefined, axialPart);
+    sw.fine('axial forces');
     let d = 0;
     for (let e = 0; e < nEl; e++) d = Math.max(d, Math.abs(Nn[e] - N[e]));
     const big = maxAbs(Nn);
@@ -436,8 +450,10 @@ function solveLoading(
       throw err;
     }
   }
+  sw.fine('iterations');
   const st: SecondOrderState = { mesh, u, axial: used, eaFactor: rule ? ea : undefined, eiFactor: rule ? ei : undefined, loadSet, fef };
   const R = secondOrderReactions(model, sys, st, ld, scale);
+  sw.fine('reactions');
   const vertical = model.settings.verticalAxis;
   const t1 = maxSway(u1, mesh.nUserNodes, vertical), t2 = maxSway(u, mesh.nUserNodes, vertical);
   const report: SecondOrderLoading = { loading: ld.id, iterations, converged, change };
