@@ -16,6 +16,7 @@ import type { AppConfig } from './config/app-config.js';
 import type { Logger } from './config/logger.js';
 import { apiNotFound, errorHandler } from './errors/error-handler.js';
 import { authenticate } from './middleware/auth.js';
+import { jsonBody } from './middleware/body.js';
 import { projectsRouter } from './projects/project.router.js';
 import { usersRouter } from './users/user.router.js';
 import { modelsRouter, projectModelsRouter } from './models/model.router.js';
@@ -33,6 +34,7 @@ import { closeMailers } from './mail/mailer.js';
 import { mailConfigFromEnv } from './mail/mail-config.js';
 import { accountRouter } from './security/account.router.js';
 import { csrfGuard } from './security/csrf.js';
+import { fairness } from './security/fairness.js';
 import { CONTENT_SECURITY_POLICY } from './security/csp.js';
 
 export interface AppContext {
@@ -76,7 +78,7 @@ export function createApp(ctx: AppContext): Express {
   app.set('trust proxy', config.trustProxy ? 1 : false);
   app.use(helmet({ contentSecurityPolicy: { useDefaults: false, directives: CONTENT_SECURITY_POLICY } }));
   app.use(cookieParser());
-  app.use('/api', express.json({ limit: JSON_BODY_LIMIT }));
+  app.use('/api', jsonBody(JSON_BODY_LIMIT));
   app.use('/api', (_req, res, next) => {
     res.set('Cache-Control', 'no-store');
     next();
@@ -88,6 +90,7 @@ export function createApp(ctx: AppContext): Express {
 
   app.use('/api', csrfGuard(mailConfigFromEnv().appUrl));
   app.use('/api', authenticate(config, dataSource));
+  app.use('/api', fairness());
   app.use('/api', auditTrail(dataSource, logger));
   for (const [mountPath, makeRouter] of apiRouters) app.use(mountPath, makeRouter(ctx));
   app.use('/api', apiNotFound);

@@ -93,6 +93,7 @@ export function auditTrail(ds: DataSource, logger: Logger): RequestHandler {
       const ok = res.statusCode >= 200 && res.statusCode < 300;
       const rule = candidates.find((r) => (r.onStatus ? res.statusCode === r.onStatus : ok));
       if (!rule) return;
+      if (rule.action === 'sign-out' && !before) return; // no valid session: nothing was signed out
       const m = rule.path.exec(path)!;
       const access = req.access;
       const extra = rule.describe?.(req, body, m) ?? {};

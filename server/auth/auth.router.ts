@@ -35,8 +35,9 @@ export function authRouter(ctx: AppContext): Router {
   });
 
   router.post('/logout', async (req, res) => {
+    // only a valid session (authenticate set req.user) is revoked: any other cookie writes nothing
     const token: unknown = req.cookies?.[SESSION_COOKIE];
-    if (typeof token === 'string' && token) await revokeSession(dataSource, token);
+    if (req.user && typeof token === 'string' && token) await revokeSession(dataSource, token);
     res.clearCookie(SESSION_COOKIE, clearCookie);
     res.status(204).end();
   });

@@ -50,10 +50,17 @@ export function toErrorResponse(err: unknown, logger: Logger): { status: number;
       body: { error: { code: 'validation_failed', message: `Invalid request: ${describeFields(details)}`, details } },
     };
   }
+  if (err instanceof URIError) {
+    // a malformed percent-encoding in the path (`/%ff`): the router could not decode a parameter
+    return { status: 400, body: { error: { code: 'bad_request', message: 'The address holds a malformed percent-encoding (such as %ff)' } } };
+  }
   const parser = err as HttpParserError;
   if (parser && typeof parser === 'object' && typeof parser.type === 'string') {
     if (parser.type === 'entity.parse.failed') {
       return { status: 400, body: { error: { code: 'bad_request', message: 'The request body is not valid JSON' } } };
+    }
+    if (parser.type === 'encoding.unsupported') {
+      return { status: 415, body: { error: { code: 'bad_request', message: 'The request body uses a Content-Encoding the server does not read (use gzip, deflate, br or none)' } } };
     }
     if (parser.type === 'entity.too.large') {
       return { status: 413, body: { error: { code: 'payload_too_large', message: 'The request body is too large' } } };
