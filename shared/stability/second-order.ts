@@ -47,10 +47,11 @@ import { type PhaseClock, Stopwatch } from '../engine/stopwatch.js';
 import { buildSystem, type LinearSystem } from '../engine/system.js';
 import type { EquilibriumCheck } from '../engine/types.js';
 import type { Model } from '../model/types.js';
-import { type FactorOptions, SingularMatrixError } from '../solver/types.js';
+import { type FactorOptions, SingularMatrixError, type SymmetricCsc } from '../solver/types.js';
 import { assembleGeometricStiffness, elementAxialForces, localGeometricStiffness } from './geometric.js';
 import { type SecondOrderState, elementEndForces, hasAxialLoad, secondOrderStations } from './p-delta.js';
 import { CondensedInstability, type CondensedSolver, condensedSolver } from './condensation.js';
+import { symmetricProduct } from './csc-product.js';
 import { type Refactorisation, refactorisation } from './refactorisation.js';
 import { criticalFactor, instabilityMessage, SecondOrderInstabilityError } from './second-order-instability.js';
 import type { SecondOrderLoading } from './types.js';
@@ -103,6 +104,11 @@ export interface SecondOrderAnalysis {
   subdivisions: number;
   tolerance: number;
 }
+
+/** a step whose change of the axial forces is above this fraction of the previous one is followed by a factorisation */
+const SLOW_CONTRACTION = 0.25;
+/** a converged loading whose last steps contracted more slowly than this is confirmed by a factorisation at its axial forces */
+const CONFIRM_RATIO = 0.1;
 
 export const MOVING_LOADS_REFUSED =
   'second-order analysis cannot combine with moving-load envelopes (superposition does not hold): set analysis = first_order or remove the moving loads';
@@ -406,6 +412,14 @@ function solveLoading(
     const shown = Math.min(alpha, 1);
     return new SecondOrderInstabilityError(ld.id, shown, approximate, instabilityMessage(ld.kind, ld.id, shown, approximate, scale));
   };
+  // X: the loading's free displacements, from its first-order solution; a step factorises
+  // A(Nᵏ) and solves exactly, or (preconditioned step) X += P⁻¹ (rhs(Nᵏ) − A(Nᵏ) X) with the
+  // factorisation P of an earlier iterate, while the steps contract (see the file header)
+  let X: Float64Array = new Float64Array(nEq);
+  for (let g = 0; g < nDofAll; g++) if (eq[g] >= 0) X[eq[g]] = u1[g];
+  const AX = new Float64Array(nEq);
+  let factoredHere = false, refactor = true, lastRatio = 0, prevChange = Infinity, exactLast = true;
+  let rhsUsed: Float64Array = new Float64Array(0);
   while (iterations < opt.maxIterations && nEq > 0) {
     if (rule) {
       stiffnessFactors(sys, N, rule, ea, ei);
@@ -416,9 +430,20 @@ function solveLoading(
     const rhs = Fl.slice();
     if (pl) subtractPrescribed(sys, pl, N, ea, ei, rhs);
     sw.fine('K_G assembly');
-    let X: Float64Array;
+    rhsUsed = rhs.slice();
+    exactLast = refactor;
     try {
-      X = solvers.condensed!.solve(A, rhs, 1);
+      if (refactor) {
+        solvers.condensed!.factor(A);
+        factoredHere = true;
+        refactor = false;
+        X = solvers.condensed!.solveFactored(rhs, 1);
+      } else {
+        symmetricProduct(pat.K, A, X, AX);
+        for (let i = 0; i < nEq; i++) rhs[i] -= AX[i];
+        const dX = solvers.condensed!.solveFactored(rhs, 1);
+        for (let i = 0; i < nEq; i++) X[i] += dX[i];
+      }
     } catch (err) {
       if (err instanceof CondensedInstability) throw instability();
       throw err;
@@ -437,9 +462,19 @@ function solveLoading(
     N = Nn;
     if (!Number.isFinite(change)) throw instability();
     if (change <= opt.tolerance) { converged = true; break; }
+    lastRatio = change / prevChange;
+    prevChange = change;
+    // steps that contract slowly: factorise at the current axial forces next time
+    if (lastRatio > SLOW_CONTRACTION) refactor = true;
+  }
+  if (converged && !exactLast) {
+    // the last step was preconditioned: refine X against A(N used) until its residual is at rounding level
+    X = refine(pat.K, A, rhsUsed, X, solvers.condensed!, AX);
+    for (let g = 0; g < nDofAll; g++) u[g] = eq[g] >= 0 ? X[eq[g]] : pl ? pl[g] : 0;
+    sw.fine('refinement');
   }
   if (nEq === 0) { converged = true; change = 0; }
-  if (!converged) {
+  if (!converged || (!factoredHere && nEq > 0) || lastRatio > CONFIRM_RATIO) {
     // not converged: unstable when K + K_G of the last axial forces is no longer positive definite
     assembleGeometricStiffness(sys, N, KG);
     for (let i = 0; i < A.length; i++) A[i] = K0[i] + dK[i] + KG[i];
@@ -459,6 +494,29 @@ function solveLoading(
   const report: SecondOrderLoading = { loading: ld.id, iterations, converged, change };
   if (t1 > 0) report.amplification = t2 / t1;
   return { ...st, scale, R, report };
+}
+
+/** relative residual ‖b − A x‖∞ / ‖b‖∞ at which the refinement of a preconditioned step stops */
+const REFINED = 1e-13;
+
+/**
+ * Iterative refinement of A x = b with the factorisation of a nearby matrix: x += P⁻¹ (b − A x)
+ * until the relative residual is REFINED or stops falling tenfold (rounding), at most 8 steps.
+ */
+function refine(K: SymmetricCsc, A: Float64Array, b: Float64Array, x: Float64Array, P: CondensedSolver, Ax: Float64Array): Float64Array {
+  const n = b.length, bn = maxAbs(b) || 1;
+  const r = new Float64Array(n);
+  let last = Infinity;
+  for (let step = 0; step < 8; step++) {
+    symmetricProduct(K, A, x, Ax);
+    for (let i = 0; i < n; i++) r[i] = b[i] - Ax[i];
+    const rn = maxAbs(r) / bn;
+    if (rn <= REFINED || rn > 0.1 * last) break;
+    last = rn;
+    const dx = P.solveFactored(r, 1);
+    for (let i = 0; i < n; i++) x[i] += dx[i];
+  }
+  return x;
 }
 
 /**
