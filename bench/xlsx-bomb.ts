@@ -3,13 +3,13 @@
  * cells (default 2,000 × 16,384, column XFD is Excel's last). Written as a stream (fflate's Zip),
  * so generating it costs a row of text at a time, not the sheet.
  *
- * `npx tsx --tsconfig tsconfig.server.json bench/xlsx-bomb.ts [rows] [columns]` writes it to
- * test-artifacts/xlsx-bomb.xlsx and prints how fast and in how much memory the reader refuses it,
+ * `npx tsx --tsconfig tsconfig.server.json bench/xlsx-bomb.ts [rows] [columns] [--reuse]` writes it to
+ * test-artifacts/xlsx-bomb.xlsx (`--reuse`: reads the one written before) and prints how fast and in how much memory the reader refuses it,
  * once through the zip directory check (what the server does before any worker sees the file)
  * and once streamed with a size limit large enough to let the sheet be parsed (the row, column
  * and cell limits then stop it). Printed, never asserted.
  */
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { Zip, ZipDeflate, strToU8 } from 'fflate';
 
 const CONTENT_TYPES = `<?xml version="1.0" encoding="UTF-8"?><Types xmlns="http://schemas.openxmlformats.org/package/2006/content-types"><Default Extension="rels" ContentType="application/vnd.openxmlformats-package.relationships+xml"/><Default Extension="xml" ContentType="application/xml"/><Override PartName="/xl/workbook.xml" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.sheet.main+xml"/><Override PartName="/xl/worksheets/sheet1.xml" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.worksheet+xml"/></Types>`;
@@ -53,13 +53,21 @@ export function xlsxBomb(rows = 2000, columns = 16384): Uint8Array {
 
 async function main(): Promise<void> {
   const { inspectWorkbook, readWorkbook, DEFAULT_XLSX_LIMITS } = await import('../shared/reader/xlsx.js');
-  const rows = Number(process.argv[2] ?? 2000);
-  const columns = Number(process.argv[3] ?? 16384);
+  const args = process.argv.slice(2).filter((a) => a !== '--reuse');
+  const rows = Number(args[0] ?? 2000);
+  const columns = Number(args[1] ?? 16384);
+  const file = 'test-artifacts/xlsx-bomb.xlsx';
   let t = performance.now();
-  const bomb = xlsxBomb(rows, columns);
-  console.log(`bomb ${rows} × ${columns} cells: ${(bomb.length / 1024).toFixed(0)} kB, generated in ${((performance.now() - t) / 1000).toFixed(1)} s`);
-  mkdirSync('test-artifacts', { recursive: true });
-  writeFileSync('test-artifacts/xlsx-bomb.xlsx', bomb);
+  let bomb: Uint8Array;
+  if (process.argv.includes('--reuse') && existsSync(file)) {
+    bomb = new Uint8Array(readFileSync(file));
+    console.log(`bomb read from ${file}: ${(bomb.length / 1024).toFixed(0)} kB`);
+  } else {
+    bomb = xlsxBomb(rows, columns);
+    console.log(`bomb ${rows} × ${columns} cells: ${(bomb.length / 1024).toFixed(0)} kB, generated in ${((performance.now() - t) / 1000).toFixed(1)} s`);
+    mkdirSync('test-artifacts', { recursive: true });
+    writeFileSync(file, bomb);
+  }
   const rss0 = process.memoryUsage().rss;
   let peak = rss0;
   const sample = setInterval(() => (peak = Math.max(peak, process.memoryUsage().rss)), 5);
