@@ -1,4 +1,6 @@
 /** Hostile uploads (issue 12, items 3 and 4): refused early and by name, problems capped, reads bounded. */
+import { request as httpRequest } from 'node:http';
+import type { AddressInfo } from 'node:net';
 import ExcelJS from 'exceljs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { xlsxBomb } from '../../../bench/xlsx-bomb.js';
@@ -77,6 +79,40 @@ describe('bounded imports', () => {
     const stored = await t.as('engineer').get(`/api/projects/${projectId}/imports/${res.body.id}`);
     expect(stored.body.problems).toHaveLength(1000);
   }, 60_000);
+});
+
+describe('per-request size without Content-Length', () => {
+  it('counts a chunked upload as it arrives and refuses it with 413 once over the limit', async () => {
+    const server = t.app.listen(0, '127.0.0.1');
+    await new Promise((r) => server.once('listening', r));
+    const { port } = server.address() as AddressInfo;
+    const boundary = 'xxBOUNDARYxx';
+    const part = (name: string) => `--${boundary}\r\nContent-Disposition: form-data; name="files"; filename="${name}"\r\nContent-Type: text/csv\r\n\r\n${'x'.repeat(300 * 1024)}\r\n`;
+    try {
+      const res = await new Promise<{ status: number; body: string }>((resolve, reject) => {
+        const req = httpRequest(
+          {
+            host: '127.0.0.1',
+            port,
+            method: 'POST',
+            path: `/api/projects/${projectId}/imports`,
+            headers: { Cookie: t.cookieFor('engineer'), 'Content-Type': `multipart/form-data; boundary=${boundary}`, 'Transfer-Encoding': 'chunked' },
+          },
+          (r) => {
+            let body = '';
+            r.on('data', (c) => (body += c)).on('end', () => resolve({ status: r.statusCode ?? 0, body }));
+          },
+        );
+        req.on('error', reject);
+        for (const name of ['a.csv', 'b.csv', 'c.csv']) req.write(part(name));
+        req.end(`--${boundary}--\r\n`);
+      });
+      expect(res.status).toBe(413);
+      expect(JSON.parse(res.body).error.message).toBe('The upload is larger than the 615 kB limit per upload (IMPORT_MAX_REQUEST_MB)');
+    } finally {
+      server.close();
+    }
+  });
 });
 
 describe('clean refusals in uploaded tables', () => {
