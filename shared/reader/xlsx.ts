@@ -297,7 +297,7 @@ function sheetTable(bytes: Uint8Array, parts: Map<string, ZipPart>, part: string
     if (formula !== null && value === null) {
       unsaved.push({ sheet, row: rowNumber, column, formula });
     } else if (type === 'inlineStr') {
-      cell = inline;
+      cell = inline !== '' ? inline : value;
     } else if (value !== null) {
       if (type === 's') cell = strings[Number(value)] ?? null;
       else if (type === 'b') cell = value === '1' || value === 'true' ? 'true' : 'false';

@@ -96,6 +96,18 @@ describe('XLSX limits', () => {
     expect(e.message).toMatch(/its part xl\/worksheets\/sheet1\.xml unpacks to more than the 100 bytes its zip directory declares/);
   });
 
+  it('does not expand entities a sheet declares (an XML entity bomb is an unreadable workbook)', async () => {
+    const xml = '<!DOCTYPE worksheet [<!ENTITY a "aaaaaaaaaa"><!ENTITY b "&a;&a;&a;&a;&a;&a;&a;&a;&a;&a;">]><worksheet><sheetData><row r="1"><c t="inlineStr"><is><t>&b;</t></is></c></row></sheetData></worksheet>';
+    const book = zipSync({
+      'xl/workbook.xml': strToU8('<workbook xmlns:r="r"><sheets><sheet name="nodes" sheetId="1" r:id="rId1"/></sheets></workbook>'),
+      'xl/_rels/workbook.xml.rels': strToU8('<Relationships><Relationship Id="rId1" Target="worksheets/sheet1.xml"/></Relationships>'),
+      'xl/worksheets/sheet1.xml': strToU8(xml),
+    });
+    const r = await readWorkbook(book);
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.problems[0].message).toMatch(/^the file is not a readable XLSX workbook: .*undefined entity/);
+  });
+
   it('streams a generated workbook of 20,000 rows within the limits', async () => {
     const chunks: Uint8Array[] = [];
     const zip = new Zip((err, data) => {
