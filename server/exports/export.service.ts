@@ -1,88 +1,115 @@
-/** GET /api/runs/:id/exports/:kind.:format — a run's tables as CSV or formatted XLSX. */
+/**
+ * GET /api/runs/:id/exports/:kind.:format — a run's tables as CSV or formatted XLSX.
+ *
+ * The HTTP thread only checks the request and reads the stored blobs (no gunzip, no JSON of
+ * the model); a worker thread builds the table and writes the file in chunks
+ * (server/exports/export-task.ts) that the router pipes to the client. Exports of stored
+ * results use the export pool; member forces and checks that were not kept need the analysis,
+ * so they go to the run pool, whose workers hold it.
+ */
 import type { DataSource } from 'typeorm';
-import type { ExportFormat, ExportKind } from '../../shared/schemas/runs.js';
+import type { ExportFormat, ExportKind, LoadingInfo } from '../../shared/schemas/runs.js';
 import { AppError, badRequest } from '../errors/app-error.js';
-import { findModel } from '../models/model.service.js';
+import { findModel, findVersion } from '../models/model.service.js';
 import { findProject } from '../projects/project.service.js';
-import { doneRun, loadingsOf, membersOf, nodeResultsOf, recordsOf, runMethod, runModel } from '../runs/run.service.js';
-import { runPool } from '../runs/worker-pool.js';
-import { toCsv, type ResultTable } from '../../shared/exports/index.js';
-import { checksExport, displacementsExport, reactionsExport, storedNodeResults, storedNoiseFloor, utilisationExport } from './tables.js';
-import { toXlsx } from './xlsx.js';
+import { doneRun, loadingsOf, runMethod } from '../runs/run.service.js';
+import type { RunRecord } from '../runs/run.entity.js';
+import { exportPool, runPool } from '../runs/worker-pool.js';
+import type { ExportTask, ExportTaskResult } from './export-task.js';
+import type { HeaderBlock } from './xlsx.js';
 
 /** Member-force exports larger than this must name one loading. */
 export const MAX_FORCE_ROWS = 300_000;
 
-export interface ExportFile {
+const CONTENT_TYPES: Record<ExportFormat, string> = {
+  csv: 'text/csv; charset=utf-8',
+  xlsx: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
+};
+
+/** What to send and how to build it. */
+export interface ExportPlan {
   fileName: string;
   contentType: string;
-  body: Buffer | string;
+  task: ExportTask;
 }
 
-function safeName(text: string): string {
+export function safeName(text: string): string {
   return text.replace(/[^A-Za-z0-9._-]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60) || 'model';
 }
 
-export async function exportRun(ds: DataSource, runId: number, kind: ExportKind, format: ExportFormat, loading?: string): Promise<ExportFile> {
-  const { run, result } = await doneRun(ds, runId);
-  const { model, json } = await runModel(ds, run);
-  const loadings = loadingsOf(result);
-  let only: number[] | undefined;
-  if (loading) {
-    const i = loadings.findIndex((l) => l.id === loading);
-    if (i < 0) throw badRequest(`loading: "${loading}" is neither a load case nor a combination of this run`);
-    only = [i];
-  }
-  const nodes = () => {
-    const { displacements, reactions } = nodeResultsOf(result);
-    return storedNodeResults(model, loadings, displacements, reactions, only);
-  };
-  let table: ResultTable;
-  switch (kind) {
-    case 'utilisation':
-      table = utilisationExport(model, membersOf(result));
-      break;
-    case 'checks': {
-      const records = recordsOf(result);
-      table = records
-        ? checksExport(model, records)
-        : await runPool().run({ kind: 'checks', runId: run.id, modelJson: json, designCode: run.designCode });
-      break;
-    }
-    case 'displacements':
-      table = displacementsExport(model, nodes());
-      break;
-    case 'reactions': {
-      const { displacements, reactions } = nodeResultsOf(result);
-      const view = storedNodeResults(model, loadings, displacements, reactions, only);
-      table = reactionsExport(model, view, storedNoiseFloor(model, loadings, displacements, reactions));
-      break;
-    }
-    case 'forces': {
-      const chosen = only ?? loadings.map((_, i) => i);
-      const estimate = chosen.length * model.members.length * 11;
-      if (estimate > MAX_FORCE_ROWS) {
-        throw new AppError(413, 'payload_too_large', `Member forces for every loading would be about ${estimate.toLocaleString('en')} rows; choose one loading (?loading=<case or combination>)`);
-      }
-      table = await runPool().run({ kind: 'forces', runId: run.id, modelJson: json, designCode: run.designCode, loadings: chosen });
-      break;
-    }
-  }
-  const model_ = await findModel(ds, run.modelId);
-  const base = `${safeName(model_.name)}-v${run.version}-run${run.id}-${kind}${only ? `-${safeName(loadings[only[0]].id)}` : ''}`;
-  if (format === 'csv') return { fileName: `${base}.csv`, contentType: 'text/csv; charset=utf-8', body: toCsv(table) };
-  const project = await findProject(ds, model_.projectId);
-  const body = await toXlsx(table, {
+/** The file's name, the header block (units come from the model, in the worker) and the stored model. */
+export async function exportFrame(ds: DataSource, run: RunRecord, suffix: string, format: ExportFormat, method: string) {
+  const model = await findModel(ds, run.modelId);
+  const project = await findProject(ds, model.projectId);
+  const version = await findVersion(ds, run.modelId, run.version);
+  const header: Omit<HeaderBlock, 'units'> = {
     project: project.name,
-    model: model_.name,
+    model: model.name,
     version: run.version,
     run: run.id,
     date: (run.finishedAt ?? run.createdAt).toISOString().slice(0, 16).replace('T', ' ') + ' UTC',
     code: run.designCode,
-    units: model.settings.units,
     counts: { pass: run.passCount ?? 0, fail: run.failCount ?? 0, notChecked: run.notCheckedCount ?? 0 },
     reviewStatus: run.reviewStatus,
-    method: runMethod(run),
-  });
-  return { fileName: `${base}.xlsx`, contentType: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet', body };
+    method,
+  };
+  return {
+    fileName: `${safeName(model.name)}-v${run.version}-run${run.id}-${suffix}.${format}`,
+    contentType: CONTENT_TYPES[format],
+    header,
+    modelData: version.modelData,
+  };
+}
+
+function chosenLoading(loadings: LoadingInfo[], loading: string | undefined): number[] | undefined {
+  if (!loading) return undefined;
+  const i = loadings.findIndex((l) => l.id === loading);
+  if (i < 0) throw badRequest(`loading: "${loading}" is neither a load case nor a combination of this run`);
+  return [i];
+}
+
+export async function planRunExport(ds: DataSource, runId: number, kind: ExportKind, format: ExportFormat, loading?: string): Promise<ExportPlan> {
+  const { run, result } = await doneRun(ds, runId);
+  const loadings = loadingsOf(result);
+  const only = chosenLoading(loadings, loading);
+  if (kind === 'forces') {
+    const members = (run.passCount ?? 0) + (run.failCount ?? 0) + (run.notCheckedCount ?? 0);
+    const estimate = (only ?? loadings).length * members * 11;
+    if (estimate > MAX_FORCE_ROWS) {
+      throw new AppError(413, 'payload_too_large', `Member forces for every loading would be about ${estimate.toLocaleString('en')} rows; choose one loading (?loading=<case or combination>)`);
+    }
+  }
+  const suffix = `${kind}${only ? `-${safeName(loadings[only[0]].id)}` : ''}`;
+  const frame = await exportFrame(ds, run, suffix, format, runMethod(run));
+  const task: ExportTask = {
+    kind: 'export',
+    runId: run.id,
+    designCode: run.designCode,
+    table: kind,
+    format,
+    modelData: frame.modelData,
+    loadings,
+    ...(only ? { only } : {}),
+    header: frame.header,
+  };
+  if (kind === 'utilisation') task.membersData = result.membersData;
+  if (kind === 'checks') task.recordsData = result.recordsData;
+  if (kind === 'displacements' || kind === 'reactions') task.nodeData = result.nodeData;
+  return { fileName: frame.fileName, contentType: frame.contentType, task };
+}
+
+/**
+ * Needs the analysis (member forces; checks whose records were not kept, stored as gzip
+ * "null", a few dozen bytes): the run pool, whose workers hold analyses. Either pool runs the
+ * same task code, so a tiny blob of no records sent there is still right.
+ */
+function needsAnalysis(task: ExportTask): boolean {
+  if (task.prebuilt) return false;
+  return task.table === 'forces' || (task.table === 'checks' && (task.recordsData?.byteLength ?? 0) < 64);
+}
+
+/** Builds the export in a worker; `onChunk` gets each piece of the file, in order. */
+export function buildExport(plan: ExportPlan, onChunk: (chunk: Uint8Array) => void): Promise<ExportTaskResult> {
+  const pool = needsAnalysis(plan.task) ? runPool() : exportPool();
+  return pool.run(plan.task, { onChunk });
 }

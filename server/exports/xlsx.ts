@@ -3,6 +3,7 @@
  * date, code, units, status counts, the caution), then the table with a frozen header row,
  * an autofilter, number formats and fills for ratio bands.
  */
+import { PassThrough, type Writable } from 'node:stream';
 import ExcelJS from 'exceljs';
 import { ratioBand, type RatioBand } from '../../shared/results/member-rows.js';
 import { CHECK_FAMILIES, type CheckStatus } from '../../shared/design/types.js';
@@ -42,7 +43,14 @@ const TITLES: Record<string, string> = {
 const RATIO_COLUMNS = new Set<string>(['ratio', ...CHECK_FAMILIES]);
 const neutralise = neutraliseText;
 
-export async function toXlsx(table: ResultTable, header: HeaderBlock): Promise<Buffer> {
+/** Where the streaming workbook writer sends its bytes (a file, a response, a worker's port). */
+export type ByteSink = Writable;
+
+/**
+ * The formatted workbook written row by row with exceljs' streaming WorkbookWriter: every row
+ * is committed as it is written, so memory holds one row of cells plus the zip buffers.
+ */
+export async function writeXlsx(table: ResultTable, header: HeaderBlock, stream: ByteSink): Promise<number> {
   const title = TITLES[table.name] ?? table.name;
   const columns = table.header.map((h) => ({
     header: h,
@@ -51,11 +59,6 @@ export async function toXlsx(table: ResultTable, header: HeaderBlock): Promise<B
     width: h === 'details' ? 100 : Math.max(10, Math.min(40, h.length + 4)),
   }));
   const statusCol = table.header.indexOf('status');
-  const statuses = statusCol >= 0 ? table.rows.map((r) => String(r[statusCol])) : undefined;
-  const wb = new ExcelJS.Workbook();
-  wb.creator = 'Trestle';
-  wb.created = new Date();
-  const ws = wb.addWorksheet(title.slice(0, 31));
   const block: [string, string | number][] = [
     ['Project', neutralise(header.project)],
     ['Model', neutralise(header.model)],
@@ -70,18 +73,29 @@ export async function toXlsx(table: ResultTable, header: HeaderBlock): Promise<B
     ['Members not checked', header.counts.notChecked],
     ['Review status', header.reviewStatus],
   ];
-  ws.addRow([title]).font = { bold: true, size: 14 };
+  // rows: title, the block, caution, a blank row, then the table's header row
+  const first = block.length + 4;
+  const wb = new ExcelJS.stream.xlsx.WorkbookWriter({ stream, useStyles: true, useSharedStrings: false });
+  wb.creator = 'Trestle';
+  wb.created = new Date();
+  const ws = wb.addWorksheet(title.slice(0, 31), { views: [{ state: 'frozen', xSplit: 0, ySplit: first }] });
+  ws.columns = columns.map((c, i) => ({ width: Math.max(c.width, i === 0 ? 16 : 0), ...(c.numFmt ? { style: { numFmt: c.numFmt } } : {}) }));
+  const titleRow = ws.addRow([title]);
+  titleRow.font = { bold: true, size: 14 };
+  titleRow.commit();
   for (const [k, v] of block) {
     const row = ws.addRow([k, v]);
     row.getCell(1).font = { bold: true };
     row.getCell(2).alignment = { horizontal: 'left' };
+    row.commit();
   }
   const caution = ws.addRow([CAUTION]);
   caution.getCell(1).font = { italic: true, color: { argb: 'FF7A3B00' } };
   ws.mergeCells(caution.number, 1, caution.number, Math.max(6, columns.length));
   caution.getCell(1).alignment = { wrapText: true, vertical: 'top' };
   caution.height = 48;
-  ws.addRow([]);
+  caution.commit();
+  ws.addRow([]).commit();
 
   const headerRow = ws.addRow(columns.map((c) => c.header));
   headerRow.font = { bold: true };
@@ -89,21 +103,29 @@ export async function toXlsx(table: ResultTable, header: HeaderBlock): Promise<B
     cell.fill = { type: 'pattern', pattern: 'solid', fgColor: { argb: 'FFD9DEE8' } };
     cell.border = { bottom: { style: 'thin' } };
   });
-  const first = headerRow.number;
-  columns.forEach((c, i) => {
-    const col = ws.getColumn(i + 1);
-    col.width = Math.max(c.width, i === 0 ? 16 : 0);
-    if (c.numFmt) col.numFmt = c.numFmt;
-  });
+  headerRow.commit();
   const ratioCol = columns.findIndex((c) => c.ratio);
-  table.rows.forEach((cells, r) => {
+  for (const cells of table.rows) {
     const row = ws.addRow(cells.map((v) => (typeof v === 'string' ? neutralise(v) : v)));
-    if (ratioCol >= 0 && statuses) {
-      const band = ratioBand(typeof cells[ratioCol] === 'number' ? (cells[ratioCol] as number) : null, statuses[r] as CheckStatus);
+    if (ratioCol >= 0 && statusCol >= 0) {
+      const band = ratioBand(typeof cells[ratioCol] === 'number' ? (cells[ratioCol] as number) : null, String(cells[statusCol]) as CheckStatus);
       row.getCell(ratioCol + 1).fill = { type: 'pattern', pattern: 'solid', fgColor: { argb: BAND_FILLS[band] } };
     }
-  });
-  ws.views = [{ state: 'frozen', xSplit: 0, ySplit: first }];
+    row.commit();
+  }
   ws.autoFilter = { from: { row: first, column: 1 }, to: { row: first + table.rows.length, column: columns.length } };
-  return Buffer.from(await wb.xlsx.writeBuffer());
+  ws.commit();
+  await wb.commit();
+  return table.rows.length;
+}
+
+/** The whole workbook in memory (tests, small tables); the server streams with writeXlsx. */
+export async function toXlsx(table: ResultTable, header: HeaderBlock): Promise<Buffer> {
+  const chunks: Buffer[] = [];
+  const sink = new PassThrough();
+  sink.on('data', (c: Buffer) => chunks.push(c));
+  const ended = new Promise((resolve) => sink.on('end', resolve));
+  await writeXlsx(table, header, sink);
+  await ended;
+  return Buffer.concat(chunks);
 }

@@ -6,13 +6,14 @@ import {
 import { rolesAtLeast } from '../../shared/schemas/users.js';
 import type { AppContext } from '../app.js';
 import { badRequest, notFound } from '../errors/app-error.js';
-import { exportRun } from '../exports/export.service.js';
-import { requireRole } from '../middleware/auth.js';
+import { buildExport, planRunExport } from '../exports/export.service.js';
+import { exportGate } from '../exports/export-gate.js';
+import { currentUser, requireRole } from '../middleware/auth.js';
 import { parseId } from '../middleware/params.js';
 import { runPool } from './worker-pool.js';
 import { projectGuards } from '../membership/project-access.js';
 import { compareRuns, getMemberDetail, getRun, getRunGeometry, getRunMembers, getRunShape, recoverInterruptedRuns } from './run.service.js';
-import { exportStability } from './stability-export.js';
+import { planStabilityExport } from './stability-export.js';
 
 export const RUN_READERS = rolesAtLeast('viewer');
 export const RUN_EXPORTERS = rolesAtLeast('viewer');
@@ -53,12 +54,30 @@ export function runsRouter({ dataSource, logger }: AppContext): Router {
       throw notFound(`No export ${String(req.params.file)}: choose ${kinds.join(', ')} as .xlsx or .csv`);
     }
     const id = parseId(req.params.id, 'Run');
-    const file = (STABILITY_EXPORT_KINDS as readonly string[]).includes(m[1])
-      ? await exportStability(dataSource, id, m[1] as StabilityExportKind, m[2] as ExportFormat)
-      : await exportRun(dataSource, id, m[1] as ExportKind, m[2] as ExportFormat, text(req.query.loading));
-    res.set('Content-Type', file.contentType);
-    res.set('Content-Disposition', `attachment; filename="${file.fileName}"`);
-    res.send(file.body);
+    const plan = (STABILITY_EXPORT_KINDS as readonly string[]).includes(m[1])
+      ? await planStabilityExport(dataSource, id, m[1] as StabilityExportKind, m[2] as ExportFormat)
+      : await planRunExport(dataSource, id, m[1] as ExportKind, m[2] as ExportFormat, text(req.query.loading));
+    const release = exportGate().enter(currentUser(req).id);
+    // headers go with the first piece, so a failure before it is still a clean JSON error
+    const start = () => {
+      if (res.headersSent) return;
+      res.set('Content-Type', plan.contentType);
+      res.set('Content-Disposition', `attachment; filename="${plan.fileName}"`);
+    };
+    try {
+      await buildExport(plan, (chunk) => {
+        start();
+        if (!res.destroyed && !res.writableEnded) res.write(chunk);
+      });
+      start();
+      res.end();
+    } catch (err) {
+      if (!res.headersSent) throw err;
+      logger.error(`export of run ${id} failed while streaming`, err);
+      res.destroy();
+    } finally {
+      release();
+    }
   });
   return router;
 }

@@ -11,7 +11,11 @@ const port = parentPort;
 
 port.on('message', async ({ id, task }: WorkerRequest) => {
   try {
-    const result = await runWorkerTask(task, (phase) => port.postMessage({ id, type: 'progress', phase } satisfies WorkerReply));
+    const result = await runWorkerTask(
+      task,
+      (phase) => port.postMessage({ id, type: 'progress', phase } satisfies WorkerReply),
+      (data) => port.postMessage({ id, type: 'chunk', data } satisfies WorkerReply, [data.buffer as ArrayBuffer]),
+    );
     port.postMessage({ id, type: 'done', result } satisfies WorkerReply, transferList(result));
   } catch (err) {
     const message = err instanceof Error ? err.message : String(err);

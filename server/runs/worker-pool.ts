@@ -17,6 +17,7 @@ interface Pending {
   task: WorkerTask;
   onStart?: () => void;
   onPhase?: (phase: RunPhase) => void;
+  onChunk?: (data: Uint8Array) => void;
   resolve: (value: unknown) => void;
   reject: (err: Error) => void;
 }
@@ -35,6 +36,8 @@ interface Slot {
 export interface TaskHooks {
   onStart?: () => void;
   onPhase?: (phase: RunPhase) => void;
+  /** export tasks: each piece of the file, in order */
+  onChunk?: (data: Uint8Array) => void;
 }
 
 export class WorkerPool {
@@ -113,6 +116,10 @@ export class WorkerPool {
       pending.onPhase?.(reply.phase);
       return;
     }
+    if (reply.type === 'chunk') {
+      pending.onChunk?.(reply.data);
+      return;
+    }
     this.finish(slot);
     if (reply.type === 'done') pending.resolve(reply.result);
     else pending.reject(new Error(reply.message));
@@ -148,8 +155,20 @@ export function runPool(): WorkerPool {
   return shared;
 }
 
+let exports_: WorkerPool | null = null;
+
+/** Exports of stored results build in their own threads (EXPORT_WORKERS, default 1), so a run never waits behind one. */
+export function exportPool(): WorkerPool {
+  if (!exports_) {
+    const configured = Number(process.env.EXPORT_WORKERS);
+    exports_ = new WorkerPool(Number.isInteger(configured) && configured > 0 ? configured : 1);
+  }
+  return exports_;
+}
+
 export async function closeRunPool(): Promise<void> {
-  const pool = shared;
+  const pools = [shared, exports_];
   shared = null;
-  await pool?.close();
+  exports_ = null;
+  await Promise.all(pools.map((p) => p?.close()));
 }

@@ -6,6 +6,9 @@ import type { CheckRecord } from '../../shared/design/types.js';
 import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
 import type { ResultTable } from '../../shared/exports/results.js';
 import type { PackedRun } from './run-compute.js';
+import type { ExportTask, ExportTaskResult } from '../exports/export-task.js';
+
+export type { ExportTask } from '../exports/export-task.js';
 
 interface TaskBase {
   /** the run whose analysis the task needs (workers keep the last few analyses) */
@@ -48,7 +51,7 @@ export interface ReadTask {
   limits?: Partial<XlsxLimits>;
 }
 
-export type WorkerTask = RunTask | MemberTask | ForcesTask | ChecksTask | ReadTask;
+export type WorkerTask = RunTask | MemberTask | ForcesTask | ChecksTask | ReadTask | ExportTask;
 
 export interface MemberTaskResult {
   stations: Stations;
@@ -67,12 +70,16 @@ export type TaskResult<T extends WorkerTask> = T extends RunTask
     ? MemberTaskResult
     : T extends ReadTask
       ? ReadResult
-      : ResultTable;
+      : T extends ExportTask
+        ? ExportTaskResult
+        : ResultTable;
 
 export type WorkerRequest = { id: number; task: WorkerTask };
 
 export type WorkerReply =
   | { id: 0; type: 'ready' }
   | { id: number; type: 'progress'; phase: RunPhase }
+  /** a piece of an export's file (export tasks stream their bytes) */
+  | { id: number; type: 'chunk'; data: Uint8Array }
   | { id: number; type: 'done'; result: unknown }
   | { id: number; type: 'error'; message: string };

@@ -7,6 +7,7 @@ import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
 import { analyseOnly, checkMemberWithStability, checkWithStability, computeRun, packRun, type Analysed } from './run-compute.js';
 import type { ChecksTask, ForcesTask, ForcesTaskResult, MemberTask, MemberTaskResult, ReadTask, WorkerTask } from './worker-protocol.js';
 import type { ReadResult } from '../../shared/model/types.js';
+import { exportModel, storedTable, streamTable, type ExportTask, type ExportTaskResult } from '../exports/export-task.js';
 import { readCsvBytes, readWorkbook } from '../../shared/reader/index.js';
 
 /** Analyses kept per worker, newest last. */
@@ -19,7 +20,7 @@ function remember(runId: number, analysed: Analysed): void {
   while (cache.size > CACHE_SIZE) cache.delete(cache.keys().next().value as number);
 }
 
-function analysedFor(task: MemberTask | ForcesTask | ChecksTask): Analysed {
+function analysedFor(task: Pick<MemberTask, 'runId' | 'modelJson' | 'designCode'>): Analysed {
   const kept = cache.get(task.runId);
   if (kept) {
     remember(task.runId, kept);
@@ -52,8 +53,9 @@ function memberForces(model: Model, analysis: AnalysisResult, loadings: number[]
   return memberForceTable(model, view);
 }
 
-export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => void): unknown {
+export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => void, onChunk: (chunk: Uint8Array) => void = () => {}): unknown {
   if (task.kind === 'read') return readFiles(task);
+  if (task.kind === 'export') return exportFile(task, onChunk);
   switch (task.kind) {
     case 'run': {
       const { output, analysed } = computeRun(task.modelJson, task.designCode, onPhase);
@@ -83,6 +85,19 @@ export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => vo
       return memberForces(model, analysis, task.loadings);
     }
   }
+}
+
+/** An export built in this thread and streamed out in chunks (server/exports/export-task.ts). */
+export async function exportFile(task: ExportTask, onChunk: (chunk: Uint8Array) => void): Promise<ExportTaskResult> {
+  const { model, json } = exportModel(task);
+  let table = storedTable(task, model);
+  if (!table) {
+    const { model: analysedModel, analysis, stability } = analysedFor({ runId: task.runId, modelJson: json, designCode: task.designCode });
+    table = task.table === 'forces'
+      ? memberForces(analysedModel, analysis, task.only ?? analysis.loadings.map((_, i) => i))
+      : checksTable(analysedModel, checkWithStability(analysedModel, analysis, stability));
+  }
+  return streamTable(table, task, model, onChunk);
 }
 
 /** An upload through the shared reader (one workbook, or CSV files). */

@@ -34,3 +34,16 @@ export function toCsv(table: ResultTable): string {
   for (const row of table.rows) lines.push(row.map(csvCell).join(','));
   return lines.join('\r\n') + '\r\n';
 }
+
+/** The same text as `toCsv`, in pieces of about `rowsPerChunk` lines (for streaming a big table). */
+export function* csvChunks(table: ResultTable, rowsPerChunk = 2000): Generator<string> {
+  let lines = [table.header.map((h) => quote(h)).join(',')];
+  for (const row of table.rows) {
+    lines.push(row.map(csvCell).join(','));
+    if (lines.length >= rowsPerChunk) {
+      yield lines.join('\r\n') + '\r\n';
+      lines = [];
+    }
+  }
+  if (lines.length > 0) yield lines.join('\r\n') + '\r\n';
+}
