@@ -61,6 +61,15 @@ const RULES: Rule[] = [
       return { version: num(b?.currentVersion) ?? undefined, detail: `${edits} member edit(s) on version ${num(reqBody(r).baseVersion) ?? '?'}` };
     },
   },
+  {
+    method: 'PATCH',
+    path: /^\/api\/models\/(\d+)\/tables$/,
+    action: 'edit',
+    describe: (r, b) => {
+      const edits = Array.isArray(reqBody(r).edits) ? (reqBody(r).edits as unknown[]).length : 0;
+      return { version: num(b?.currentVersion) ?? undefined, detail: `${edits} table edit(s) on version ${num(reqBody(r).baseVersion) ?? '?'}` };
+    },
+  },
   { method: 'POST', path: /^\/api\/models\/(\d+)\/runs$/, action: 'run', describe: (_r, b) => ({ runId: num(b?.id), version: num(b?.version) ?? undefined, detail: `run ${num(b?.id)} of version ${num(b?.version)}` }) },
   { method: 'POST', path: /^\/api\/runs\/(\d+)\/review\/submit$/, action: 'submit', describe: (r) => ({ detail: str(reqBody(r).message) }) },
   { method: 'POST', path: /^\/api\/runs\/(\d+)\/review\/return$/, action: 'return', describe: (r) => ({ detail: str(reqBody(r).message) }) },

@@ -8,7 +8,7 @@ import type { AppContext } from '../app.js';
 import { currentUser, requireRole } from '../middleware/auth.js';
 import { parseId } from '../middleware/params.js';
 import { listRuns, startRun } from '../runs/run.service.js';
-import { editMembers, getEditableMembers, getModelDetail, listModels, listVersions, renameModel } from './model.service.js';
+import { editMembers, editTables, getEditableMembers, getModelTables, getModelDetail, listModels, listVersions, renameModel } from './model.service.js';
 import { forViewer, projectGuards, runVisibleTo } from '../membership/project-access.js';
 import { assertModelEditable } from '../reviews/lock.js';
 import { modelVersionWorkbook } from './model-workbook.js';
@@ -56,6 +56,13 @@ export function modelsRouter({ dataSource }: AppContext): Router {
   router.patch('/:id/members', requireRole(...MODEL_EDITORS), guard.model('id', 'engineer'), async (req, res) => {
     await assertModelEditable(dataSource, req.access!.modelId!);
     res.json(await editMembers(dataSource, parseId(req.params.id, 'Model'), currentUser(req).id, req.body ?? {}));
+  });
+  router.get('/:id/tables', requireRole(...MODEL_READERS), guard.model('id'), async (req, res) => {
+    res.json(await getModelTables(dataSource, parseId(req.params.id, 'Model'), optionalVersion(req.query.version)));
+  });
+  router.patch('/:id/tables', requireRole(...MODEL_EDITORS), guard.model('id', 'engineer'), async (req, res) => {
+    await assertModelEditable(dataSource, req.access!.modelId!);
+    res.json(await editTables(dataSource, parseId(req.params.id, 'Model'), currentUser(req).id, req.body ?? {}));
   });
   router.get('/:id/runs', requireRole(...MODEL_READERS), guard.model('id'), async (req, res) => {
     const role = req.access!.role;

@@ -10,6 +10,9 @@ import { catalogueDesignations } from '../../shared/sections/index.js';
 import {
   memberEditsSchema,
   renameModelSchema,
+  tableEditsSchema,
+  type ModelTables,
+  type TableEditsInput,
   type EditableMembers,
   type MemberEditsInput,
   type ModelDetail,
@@ -18,6 +21,7 @@ import {
   type RenameModelInput,
 } from '../../shared/schemas/models.js';
 import { unitOf } from '../../shared/units/index.js';
+import { applyTableEditsToModel, describeTableProblem, modelTablesView } from '../../shared/reader/table-edits.js';
 import { AppError, conflict, notFound } from '../errors/app-error.js';
 import { findProject } from '../projects/project.service.js';
 import { UserEntity } from '../users/user.entity.js';
@@ -236,3 +240,39 @@ export async function editMembers(ds: DataSource, id: number, userId: number | n
   });
 }
 
+
+/** GET /api/models/:id/tables: every table of a version as the Model tab shows it. */
+export async function getModelTables(ds: DataSource, id: number, version?: number): Promise<ModelTables> {
+  const { model, version: v } = await loadModel(ds, id, version);
+  return modelTablesView(model, id, v);
+}
+
+/**
+ * PATCH /api/models/:id/tables: edits of cases, node loads, member loads and combinations,
+ * read again with the reader's rules; all or none, as one new version.
+ */
+export async function editTables(ds: DataSource, id: number, userId: number | null, input: TableEditsInput): Promise<ModelSummary> {
+  const data = tableEditsSchema.parse(input);
+  return ds.transaction(async (m) => {
+    const record = await findModel(m, id);
+    if (record.currentVersion !== data.baseVersion) throw await staleMessage(m, record, data.baseVersion);
+    const base = await findVersion(m, id, data.baseVersion);
+    const outcome = applyTableEditsToModel(decodeModel(base.modelData), data.edits, id, data.baseVersion);
+    if (!outcome.ok) {
+      const more = outcome.problems.length > 1 ? ` (and ${outcome.problems.length - 1} more)` : '';
+      throw new AppError(400, 'validation_failed', `${describeTableProblem(outcome.problems[0])}${more}`, { problems: outcome.problems.slice(0, 1000) });
+    }
+    const counts: Record<string, number> = { ...(JSON.parse(record.countsJson || '{}') as Record<string, number>) };
+    for (const t of ['cases', 'node_loads', 'member_loads', 'combinations']) if (outcome.counts[t] !== undefined) counts[t] = outcome.counts[t];
+    const n = data.edits.length;
+    const updated = await appendVersion(m, record, data.baseVersion, {
+      model: outcome.model,
+      counts,
+      origin: 'edit',
+      message: data.message ?? `${n} edit${n === 1 ? '' : 's'} to ${[...outcome.edited].join(', ').replace(/_/g, ' ')}`,
+      edits: data.edits,
+      createdBy: userId,
+    });
+    return summarise(m, updated);
+  });
+}

@@ -53,6 +53,8 @@ export const ROUTES: RouteRule[] = [
   { method: 'GET', path: '/api/models/:id/versions/:version/workbook.zip', allowed: READ },
   { method: 'GET', path: '/api/models/:id/members', allowed: READ },
   { method: 'PATCH', path: '/api/models/:id/members', allowed: EDIT },
+  { method: 'GET', path: '/api/models/:id/tables', allowed: READ },
+  { method: 'PATCH', path: '/api/models/:id/tables', allowed: EDIT },
   { method: 'GET', path: '/api/models/:id/runs', allowed: READ },
   { method: 'POST', path: '/api/models/:id/runs', allowed: EDIT },
   { method: 'GET', path: '/api/runs/compare', allowed: READ },

@@ -52,6 +52,8 @@ const ROUTES: ScopedRoute[] = [
   { method: 'GET', path: '/api/models/:id/versions/:version/workbook.zip', min: 'viewer', url: () => `/api/models/${modelId}/versions/1/workbook.zip` },
   { method: 'GET', path: '/api/models/:id/members', min: 'viewer', url: () => `/api/models/${modelId}/members` },
   { method: 'PATCH', path: '/api/models/:id/members', min: 'engineer', url: () => `/api/models/${modelId}/members` },
+  { method: 'GET', path: '/api/models/:id/tables', min: 'viewer', url: () => `/api/models/${modelId}/tables` },
+  { method: 'PATCH', path: '/api/models/:id/tables', min: 'engineer', url: () => `/api/models/${modelId}/tables` },
   { method: 'GET', path: '/api/models/:id/runs', min: 'viewer', url: () => `/api/models/${modelId}/runs` },
   { method: 'POST', path: '/api/models/:id/runs', min: 'engineer', url: () => `/api/models/${modelId}/runs` },
   { method: 'GET', path: '/api/runs/compare', min: 'viewer', url: () => `/api/runs/compare?a=${runId}&b=${runId}` },
