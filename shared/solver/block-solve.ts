@@ -9,7 +9,7 @@ import type { NumericFactor } from './numeric.js';
 import type { SymbolicFactor } from './symbolic.js';
 
 export function blockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float64Array, nrhs: number): Float64Array {
-  if (factor.simd && factor.permB !== undefined && nrhs > 0) {
+  if (factor.simd && nrhs > 0) {
     const X = simdBlockSolve(sym, factor, B, nrhs);
     if (X) return X;
   }
@@ -146,10 +146,11 @@ export function blockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float6
 
 /**
  * The same substitution with the SIMD kernels (solve-kernels.ts), one call per supernode and
- * pass. The work array (rows padded to an even number of load cases), the scratch of the
- * backward pass and the staged right-hand sides lie in the kernels' memory after the factor
- * (grown when needed); the permutations in and out run there too. Returns null if the
- * memory cannot grow.
+ * pass. The work array (rows padded to an even number of load cases) and the scratch of the
+ * backward pass lie in the kernels' memory after the factor (grown when needed). The
+ * permutations in and out stay JavaScript loops: staging the right-hand sides in the kernels'
+ * memory cost more in fresh pages than the loops (measured, pratt_10k first solve 30 vs 8 ms).
+ * Returns null if the memory cannot grow.
  */
 function simdBlockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float64Array, nrhs: number): Float64Array | null {
   const simd = factor.simd!;
@@ -160,8 +161,7 @@ function simdBlockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float64Ar
   const ld8 = ld * 8;
   const xB = factor.freeB;
   const eB = xB + n * ld8;
-  const bB = eB + below * ld8;
-  const need = bB + n * nrhs * 8;
+  const need = eB + below * ld8;
   const have = simd.memory.buffer.byteLength;
   if (need > have) {
     try {
@@ -172,9 +172,13 @@ function simdBlockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float64Ar
     // growing detaches the old views
     factor.Lx = new Float64Array(simd.memory.buffer, 0, factor.Lx.length);
   }
-  const staged = new Float64Array(simd.memory.buffer, bB, n * nrhs);
-  staged.set(B);
-  simd.permuteIn(xB, ld8, bB, n, nrhs, factor.permB!);
+  const X = new Float64Array(simd.memory.buffer, xB, n * ld);
+  const perm = sym.perm;
+  for (let q = 0; q < nrhs; q++) {
+    const bq = q * n;
+    for (let k = 0; k < n; k++) X[k * ld + q] = B[bq + perm[k]];
+  }
+  if (ld !== nrhs) for (let k = 0; k < n; k++) X[k * ld + nrhs] = 0;
   const { solveForward, solveBackward } = simd;
   const rowsB = factor.rowsB;
   for (let s = 0; s < nsuper; s++) {
@@ -187,6 +191,10 @@ function simdBlockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float64Ar
     const r0 = superRowPtr[s];
     solveBackward(superValPtr[s] * 8, superFirst[s + 1] - f, superRowPtr[s + 1] - r0, xB + f * ld8, ld8, rowsB + r0 * 4, xB, eB);
   }
-  simd.permuteOut(bB, xB, ld8, n, nrhs, factor.permB!);
-  return staged.slice();
+  const out = new Float64Array(n * nrhs);
+  for (let q = 0; q < nrhs; q++) {
+    const bq = q * n;
+    for (let k = 0; k < n; k++) out[bq + perm[k]] = X[k * ld + q];
+  }
+  return out;
 }

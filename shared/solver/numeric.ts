@@ -31,15 +31,13 @@ const inv = new Float64Array(NB);
 
 /**
  * The factor: Lx holds the supernode blocks. With SIMD kernels it lives in their memory,
- * followed by a copy of the supernode row lists at byte rowsB and of the permutation at permB;
- * bytes from freeB are free for the substitution's work array.
+ * followed by a copy of the supernode row lists at byte rowsB; bytes from freeB are free for
+ * the substitution's work array.
  */
 export interface NumericFactor {
   Lx: Float64Array;
   simd: SimdKernels | null;
   rowsB: number;
-  /** byte address of a copy of the permutation (SIMD kernels only) */
-  permB?: number;
   freeB: number;
   /** the analysis this factor belongs to and its scratch arrays, kept for refactorisation */
   sym?: SymbolicFactor;
@@ -69,15 +67,11 @@ function allocate(sym: SymbolicFactor): NumericFactor {
   const nL = superValPtr[nsuper];
   const nRows = superRowPtr[nsuper];
   const rowsB = nL * 8 + 3 * 4 * maxRows;
-  const permB = rowsB + 4 * nRows;
-  const freeB = Math.ceil((permB + 4 * n) / 16) * 16;
+  const freeB = Math.ceil((rowsB + 4 * nRows) / 16) * 16;
   const simd = simdKernels(freeB);
   const buf = simd ? simd.memory.buffer : null;
   const Lx = buf ? new Float64Array(buf, 0, nL) : new Float64Array(nL);
-  if (buf) {
-    new Int32Array(buf, rowsB, nRows).set(superRows.subarray(0, nRows));
-    new Int32Array(buf, permB, n).set(sym.perm);
-  }
+  if (buf) new Int32Array(buf, rowsB, nRows).set(superRows.subarray(0, nRows));
   const plain = (): Int32Array => new Int32Array(buf ? 0 : maxRows);
   const work: Workspace = {
     maxRows,
@@ -90,7 +84,7 @@ function allocate(sym: SymbolicFactor): NumericFactor {
     tCol: plain(),
     ident: plain(),
   };
-  return { Lx, simd, rowsB, permB, freeB, sym, work };
+  return { Lx, simd, rowsB, freeB, sym, work };
 }
 
 /**

@@ -11,7 +11,7 @@
  *   L[tRow[r] + tCol[c]] −= Σ_{kLo ≤ k < kHi} L[ob + r·w + k] · L[ob + c·w + k]
  *   computed four rows by two columns at a time, two products per SIMD lane pair.
  */
-import { buildPermuteIn, buildPermuteOut, buildSolveBackward, buildSolveForward } from './solve-kernels.js';
+import { buildSolveBackward, buildSolveForward } from './solve-kernels.js';
 import { assembleModule, F64, FunctionBuilder, I32, V128 } from './wasm-emitter.js';
 
 /** The parts of the WebAssembly JavaScript interface used here (not in every lib setting). */
@@ -49,8 +49,6 @@ export interface SimdKernels {
   /** block substitution, one call per supernode and pass (solve-kernels.ts) */
   solveForward(o8: number, nc: number, nr: number, xf8: number, ld8: number, rowsB: number, xB: number): void;
   solveBackward(o8: number, nc: number, nr: number, xf8: number, ld8: number, rowsB: number, xB: number, eB: number): void;
-  permuteIn(xB: number, ld8: number, bB: number, n: number, nrhs: number, permB: number): void;
-  permuteOut(bB: number, xB: number, ld8: number, n: number, nrhs: number, permB: number): void;
 }
 
 function buildUpdate(fused: boolean): FunctionBuilder {
@@ -314,7 +312,7 @@ function module(fused: boolean): object | null {
   let mod: object | null = null;
   try {
     if (wasm) {
-      const fns = [buildUpdate(fused), buildTrsm(fused), buildGather(), buildSolveForward(fused), buildSolveBackward(fused), buildPermuteIn(), buildPermuteOut()];
+      const fns = [buildUpdate(fused), buildTrsm(fused), buildGather(), buildSolveForward(fused), buildSolveBackward(fused)];
       const bytes = assembleModule(fns);
       if (wasm.validate(bytes)) mod = new wasm.Module(bytes);
     }
@@ -361,7 +359,7 @@ export function simdKernels(bytes: number): SimdKernels | null {
     const memory = new wasm.Memory({ initial: Math.max(1, Math.ceil(bytes / 65536)) });
     const inst = new wasm.Instance(mod, { env: { mem: memory } });
     const ex = inst.exports as unknown as Omit<SimdKernels, 'memory'>;
-    return { memory, fused: mod === fusedMod, update: ex.update, trsm: ex.trsm, gather: ex.gather, solveForward: ex.solveForward, solveBackward: ex.solveBackward, permuteIn: ex.permuteIn, permuteOut: ex.permuteOut };
+    return { memory, fused: mod === fusedMod, update: ex.update, trsm: ex.trsm, gather: ex.gather, solveForward: ex.solveForward, solveBackward: ex.solveBackward };
   } catch {
     return null;
   }

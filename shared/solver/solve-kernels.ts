@@ -15,12 +15,8 @@
  * the scratch at eB, then
  *   X1[k] −= Σ_t L[t, k] · E[t] for four columns k by four load cases at a time (reading the
  *   rows of L21 in their stored order), then X1 ← L11⁻ᵀ X1, last row first.
- *
- * permuteIn(xB, ld8, bB, n, nrhs, permB): X[k, q] = B[q·n + perm[k]] (B column after column,
- * perm Int32 at permB), the padding column set to zero. permuteOut(bB, xB, ld8, n, nrhs,
- * permB): the inverse, into B's layout. Both keep the permutations out of JavaScript loops.
  */
-import { F64, FunctionBuilder, I32, V128 } from './wasm-emitter.js';
+import { FunctionBuilder, I32, V128 } from './wasm-emitter.js';
 
 /** emits `for (; q8 + 16·nv ≤ ld8; q8 += 16·nv) body(nv)` for nv = 2 then nv = 1 (ld even) */
 function loadCaseChunks(f: FunctionBuilder, q8: number, ld8: number, body: (nv: number) => void): void {
@@ -204,46 +200,4 @@ export function buildSolveBackward(fused: boolean): FunctionBuilder {
   f.get(k).i32(1).sub().set(k);
   f.br(0).end().end();
   return f;
-}
-
-/** the permutation of a block of right-hand sides into the work array, or back */
-function buildPermute(name: string, inward: boolean): FunctionBuilder {
-  const f = new FunctionBuilder(name, inward ? [I32, I32, I32, I32, I32, I32] : [I32, I32, I32, I32, I32, I32]);
-  // permuteIn(xB, ld8, bB, n, nrhs, permB) / permuteOut(bB, xB, ld8, n, nrhs, permB)
-  const [xB, ld8, bB, n, nrhs, permB] = inward ? [0, 1, 2, 3, 4, 5] : [1, 2, 0, 3, 4, 5];
-  const k = f.local(I32);
-  const q = f.local(I32);
-  const px = f.local(I32);
-  const pb = f.local(I32);
-  const n8 = f.local(I32);
-  const v = f.local(F64);
-  f.get(n).i32(3).shl().set(n8);
-  f.i32(0).set(k);
-  f.block().loop();
-  f.get(k).get(n).geS().brIf(1);
-  f.get(xB).get(k).get(ld8).mul().add().set(px);
-  f.get(bB).get(permB).get(k).i32(2).shl().add().i32Load().i32(3).shl().add().set(pb);
-  f.i32(0).set(q);
-  f.block().loop();
-  f.get(q).get(nrhs).geS().brIf(1);
-  if (inward) f.get(px).get(pb).f64Load().f64Store();
-  else f.get(pb).get(px).f64Load().f64Store();
-  f.inc(px, 8).get(pb).get(n8).add().set(pb);
-  f.inc(q, 1).br(0).end().end();
-  if (inward) {
-    // zero padding column when ld > nrhs
-    f.get(nrhs).i32(3).shl().get(ld8).ltS().if();
-    f.get(px).f64(0).f64Store();
-    f.end();
-  }
-  f.inc(k, 1).br(0).end().end();
-  return f;
-}
-
-export function buildPermuteIn(): FunctionBuilder {
-  return buildPermute('permuteIn', true);
-}
-
-export function buildPermuteOut(): FunctionBuilder {
-  return buildPermute('permuteOut', false);
 }
