@@ -10,6 +10,13 @@ import type { CatalogueSeries } from './types.js';
 
 const FRACTIONS: Record<string, number> = { '3/16': 0.1875, '1/4': 0.25, '5/16': 0.3125, '3/8': 0.375, '1/2': 0.5, '5/8': 0.625 };
 
+// tabulated A [in2], I [in4] (J where recalled), AISC Manual Table 1-12 (from memory)
+const TABULATED: Record<string, { A: number; I_major: number; I_minor: number; J?: number }> = {
+  '6X6X3/8': { A: 7.58, I_major: 39.5, I_minor: 39.5, J: 64.6 },
+  '4X4X1/4': { A: 3.37, I_major: 7.80, I_minor: 7.80 },
+  '8X8X1/2': { A: 13.5, I_major: 125, I_minor: 125 },
+};
+
 // h, b [in], t_nom
 const SIZES: [number, number, string][] = [
   [2, 2, '1/4'], [3, 3, '1/4'], [3, 3, '3/8'], [4, 4, '1/4'], [4, 4, '3/8'], [4, 4, '1/2'],
@@ -32,7 +39,7 @@ export const HSS_RECT: CatalogueSeries = {
       aliases: [`HSS${h}X${b}X${FRACTIONS[tn]}`],
       shape: 'rhs' as const,
       dims: { h, b, t: 0.93 * FRACTIONS[tn] },
-      tabulated: h === 6 && b === 6 && tn === '3/8' ? { A: 7.58, I_major: 39.5, I_minor: 39.5, J: 64.6 } : undefined,
+      tabulated: TABULATED[`${h}X${b}X${tn}`],
     };
   }),
 };

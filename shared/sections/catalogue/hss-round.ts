@@ -26,11 +26,24 @@ const PIPE_XS: [string, number, number][] = [
   ['10', 10.75, 0.5], ['12', 12.75, 0.5],
 ];
 
+// tabulated A [in2], I [in4], AISC Manual Tables 1-13 / 1-14 (from memory)
+const HSS_TABULATED: Record<string, { A: number; I_major: number; I_minor: number }> = {
+  '4.500X0.237': { A: 2.96, I_major: 6.82, I_minor: 6.82 },
+  '6.625X0.280': { A: 5.20, I_major: 26.5, I_minor: 26.5 },
+  '8.625X0.322': { A: 7.85, I_major: 68.1, I_minor: 68.1 },
+};
+const PIPE_TABULATED: Record<string, { A: number; I_major: number; I_minor: number }> = {
+  '4STD': { A: 2.96, I_major: 6.82, I_minor: 6.82 },
+  '6STD': { A: 5.20, I_major: 26.5, I_minor: 26.5 },
+  '8STD': { A: 7.85, I_major: 68.1, I_minor: 68.1 },
+};
+
 function hssEntry([D, t]: [string, string]): CatalogueEntry {
   return {
     name: `HSS${D}X${t}`,
     shape: 'chs',
     dims: { D: Number(D), t: 0.93 * Number(t) },
+    tabulated: HSS_TABULATED[`${D}X${t}`],
   };
 }
 
@@ -39,8 +52,8 @@ function pipeEntry(weight: 'STD' | 'XS') {
     name: `PIPE${size}${weight}`,
     shape: 'chs',
     dims: { D, t: 0.93 * t },
-    // Pipe 4 Std: A = 2.96 in2, I = 6.82 in4 (AISC Manual Table 1-14, from memory)
-    tabulated: size === '4' && weight === 'STD' ? { A: 2.96, I_major: 6.82, I_minor: 6.82 } : undefined,
+    // e.g. Pipe 4 Std: A = 2.96 in2, I = 6.82 in4 (AISC Manual Table 1-14, from memory)
+    tabulated: PIPE_TABULATED[`${size}${weight}`],
   });
 }
 

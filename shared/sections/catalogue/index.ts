@@ -12,8 +12,11 @@ import { HSS_ROUND, PIPE } from './hss-round.js';
 import { IPE } from './ipe.js';
 import type { CatalogueEntry, CatalogueSeries } from './types.js';
 import { W } from './w.js';
+import { UPN } from './upn.js';
+import { ANGLES } from './angles.js';
+import { CHS, RHS, SHS } from './en-hollow.js';
 
-export const CATALOGUE_SERIES: readonly CatalogueSeries[] = [IPE, HEA, HEB, W, HSS_RECT, HSS_ROUND, PIPE];
+export const CATALOGUE_SERIES: readonly CatalogueSeries[] = [IPE, HEA, HEB, W, HSS_RECT, HSS_ROUND, PIPE, UPN, ANGLES, SHS, RHS, CHS];
 
 /**
  * The lookup key of a designation: upper case, spaces removed, decimal numbers written

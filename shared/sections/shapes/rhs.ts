@@ -4,12 +4,21 @@
  * requires it). Corners are rounded with outer radius 2t and inner radius t, the basis of
  * the AISC HSS property tables (from memory) and close to EN 10219 cold-formed practice
  * (2t for t ≤ 6 mm). When 2t exceeds half the smaller side the outer radius is capped there.
+ * An optional outer corner radius `r` replaces 2t, with inner radius min(t, r): the
+ * hot-finished basis of EN 10210-2 (ro = 1.5t, ri = t, from memory) used by the catalogue.
  */
 import type { SectionDims, SectionProps } from '../../model/types.js';
 import { spandrel } from '../parts.js';
 
-/** Outer corner radius used for a wall thickness t (and the inner radius ro − t). */
-export function rhsCornerRadii(h: number, b: number, t: number): { ro: number; ri: number } {
+/**
+ * Outer corner radius used for a wall thickness t (and the inner radius ro − t); with an
+ * outer radius r given, that radius and an inner radius min(t, r) (EN 10210-2 hot-finished).
+ */
+export function rhsCornerRadii(h: number, b: number, t: number, r?: number): { ro: number; ri: number } {
+  if (r !== undefined && r > 0) {
+    const ro = Math.min(r, Math.min(h, b) / 2);
+    return { ro, ri: Math.min(t, ro, Math.min(h, b) / 2 - t) };
+  }
   const ro = Math.min(2 * t, Math.min(h, b) / 2);
   return { ro, ri: Math.max(ro - t, 0) };
 }
@@ -30,15 +39,16 @@ function roundedRect(H: number, B: number, R: number) {
 
 export function rhsProperties(dims: SectionDims): SectionProps {
   const h = dims.h!, b = dims.b!, t = dims.t!;
-  const { ro, ri } = rhsCornerRadii(h, b, t);
+  const { ro, ri } = rhsCornerRadii(h, b, t, dims.r);
   const o = roundedRect(h, b, ro);
   const i = roundedRect(h - 2 * t, b - 2 * t, ri);
   const A = o.A - i.A;
   const I_major = o.Iy - i.Iy;
   const I_minor = o.Iz - i.Iz;
   // Bredt–Batho thin-walled closed section: J = 4·Ap²·t / p, Ap and p on the wall's
-  // mid-line (corner radius ro − t/2); the same basis as the AISC HSS tables (from memory)
-  const rm = ro - t / 2;
+  // mid-line (corner radius (ro + ri)/2, = ro − t/2 for ri = ro − t); the same basis as the
+  // AISC HSS tables (from memory)
+  const rm = (ro + ri) / 2;
   const Ap = (h - t) * (b - t) - (4 - Math.PI) * rm * rm;
   const p = 2 * (h - t) + 2 * (b - t) - (8 - 2 * Math.PI) * rm;
   return {
