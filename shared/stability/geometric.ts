@@ -168,6 +168,30 @@ export function elementAxialForces(
   return out;
 }
 
+/**
+ * The fixed-end part of elementAxialForces for one element: f its fixed-end forces (local),
+ * ls its own load set when that carries axial loads (exact mean), otherwise the mean of the ends.
+ */
+export function fixedMeanAxial(f: ArrayLike<number>, ls: LoadSet | undefined, h: number): number {
+  return ls ? meanFixedAxial(ls, f[0], h) : (f[6] - f[0]) / 2;
+}
+
+/**
+ * elementAxialForces with the fixed-end part given per element (`fixed[e]`, from
+ * fixedMeanAxial; linear in the loads, so a combination's is the factored sum of its cases'),
+ * into `out`.
+ */
+export function axialForcesWithFixed(mesh: Mesh, u: ArrayLike<number>, fixed: Float64Array, eaFactor: ArrayLike<number> | undefined, out: Float64Array): Float64Array {
+  const { elStart, elEnd, elMember, elProps, elL, members } = mesh;
+  for (let e = 0; e < mesh.nElements; e++) {
+    const R = members[elMember[e]].R;
+    const a = elStart[e] * 6, b = elEnd[e] * 6;
+    const du = R[0] * (u[b] - u[a]) + R[1] * (u[b + 1] - u[a + 1]) + R[2] * (u[b + 2] - u[a + 2]);
+    out[e] = ((eaFactor ? eaFactor[e] : 1) * elProps[e * 5] / elL[e]) * du + fixed[e];
+  }
+  return out;
+}
+
 /** (1/h)∫₀ʰ N dx of the fixed-end state: N(x) = −f1x − Σ_{s<x} Px − ∫₀ˣ qx. */
 function meanFixedAxial(ls: LoadSet, f1x: number, h: number): number {
   let m = 0;

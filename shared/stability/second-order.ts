@@ -48,7 +48,7 @@ import { buildSystem, type LinearSystem } from '../engine/system.js';
 import type { EquilibriumCheck } from '../engine/types.js';
 import type { Model } from '../model/types.js';
 import { type FactorOptions, SingularMatrixError, type SymmetricCsc } from '../solver/types.js';
-import { assembleGeometricStiffness, elementAxialForces, localGeometricStiffness } from './geometric.js';
+import { assembleGeometricStiffness, axialForcesWithFixed, fixedMeanAxial, localGeometricStiffness } from './geometric.js';
 import { type SecondOrderState, elementEndForces, hasAxialLoad, secondOrderStations } from './p-delta.js';
 import { CondensedInstability, type CondensedSolver, condensedSolver } from './condensation.js';
 import { symmetricProduct } from './csc-product.js';
@@ -163,6 +163,8 @@ interface Solvers {
   dK: Float64Array;
   A: Float64Array;
   sw: Stopwatch;
+  /** per case: the fixed-end part of every element's mean axial force (geometric.ts fixedMeanAxial), computed on first use */
+  fixedAxial: (c: number) => Float64Array;
 }
 
 /** A solved second-order loading (analysed load level) and what its results need. */
@@ -204,6 +206,7 @@ export function analyseSecondOrder(model: Model, options: SecondOrderOptions = {
     dK: new Float64Array(pat.K.values.length),
     A: new Float64Array(pat.K.values.length),
     sw,
+    fixedAxial: caseFixedAxial(sys),
   };
   let X1: Float64Array = new Float64Array(0);
   if (nEq > 0) {
@@ -330,6 +333,30 @@ function assembleStiffnessChange(sys: LinearSystem, ea: Float64Array, ei: Float6
   }
 }
 
+/** Per case, the fixed-end part of each element's mean axial force, cached (see Solvers.fixedAxial). */
+function caseFixedAxial(sys: LinearSystem): (c: number) => Float64Array {
+  const { mesh, nCases, loadSets, fefOf } = sys;
+  const cache: (Float64Array | undefined)[] = [];
+  return (c) => {
+    let out = cache[c];
+    if (out) return out;
+    out = cache[c] = new Float64Array(mesh.nElements);
+    for (let e = 0; e < mesh.nElements; e++) {
+      const mi = mesh.elMember[e], ls = loadSets[mi * nCases + c];
+      if (!ls) continue;
+      const f = fefOf(e, c);
+      if (!f) continue;
+      let part: LoadSet | undefined;
+      if (hasAxialLoad(ls)) {
+        const m = mesh.members[mi], x0 = mesh.elX0[e];
+        part = m.elementCount > 1 ? clipLoadSet(ls, x0, x0 + mesh.elL[e], e === m.firstElement + m.elementCount - 1) : ls;
+      }
+      out[e] = fixedMeanAxial(f, part, mesh.elL[e]);
+    }
+    return out;
+  };
+}
+
 /** Per element EA and EI factors from the stiffness rule and the current axial forces. */
 function stiffnessFactors(
   sys: LinearSystem, N: Float64Array, rule: (mi: number, N: number) => StiffnessFactors, ea: Float64Array, ei: Float64Array,
@@ -382,23 +409,15 @@ function solveLoading(
     if (!lsCache.has(mi)) lsCache.set(mi, combineLoadSets(loadSets, nCases, mi, ld, scale));
     return lsCache.get(mi);
   };
-  // the element's own part of its member's loads, where they act along the member (exact mean N)
-  const partCache = new Map<number, LoadSet | null>();
-  const axialPart = (e: number): LoadSet | undefined => {
-    let p = partCache.get(e);
-    if (p === undefined) {
-      const mi = mesh.elMember[e], m = mesh.members[mi], ls = loadSet(mi);
-      p = null;
-      if (ls && hasAxialLoad(ls)) {
-        const x0 = mesh.elX0[e];
-        p = m.elementCount > 1 ? clipLoadSet(ls, x0, x0 + mesh.elL[e], e === m.firstElement + m.elementCount - 1) : ls;
-      }
-      partCache.set(e, p);
-    }
-    return p ?? undefined;
-  };
   const u1 = combineCases(U1, nDofAll, ld, scale);
-  let N = elementAxialForces(mesh, u1, fef, undefined, axialPart);
+  // the fixed-end part of the mean axial forces, the factored sum of the cases' (linear in the loads)
+  const fixed = new Float64Array(nEl);
+  for (const { caseIndex: c, factor } of ld.terms) {
+    if (factor === 0) continue;
+    const fc = solvers.fixedAxial(c), f = factor * scale;
+    for (let e = 0; e < nEl; e++) fixed[e] += f * fc[e];
+  }
+  let N = axialForcesWithFixed(mesh, u1, fixed, undefined, new Float64Array(nEl));
   const ea = new Float64Array(nEl).fill(1), ei = new Float64Array(nEl).fill(1);
   const { KG, dK, A, sw } = solvers;
   dK.fill(0);
@@ -451,7 +470,7 @@ function solveLoading(
     iterations++;
     const un = new Float64Array(nDofAll);
     for (let g = 0; g < nDofAll; g++) un[g] = eq[g] >= 0 ? X[eq[g]] : pl ? pl[g] : 0;
-    const Nn = elementAxialForces(mesh, un, fef, rule ? ea : undefined, axialPart);
+    const Nn = axialForcesWithFixed(mesh, un, fixed, rule ? ea : undefined, new Float64Array(nEl));
     sw.fine('axial forces');
     let d = 0;
     for (let e = 0; e < nEl; e++) d = Math.max(d, Math.abs(Nn[e] - N[e]));
