@@ -8,8 +8,9 @@
 import { analysePattern, checkSymmetricCsc, type PatternAnalysis, type SupernodalFactorisation } from '../solver/index.js';
 import type { FactorOptions, SymmetricCsc } from '../solver/types.js';
 
-/** patterns kept (most recently used first) */
+/** patterns kept (most recently used first), and at most this many matrix entries among them */
 const KEPT = 4;
+const KEPT_ENTRIES = 8_000_000;
 
 interface Kept {
   ordering: NonNullable<FactorOptions['ordering']>;
@@ -37,7 +38,14 @@ export function factorise(K: SymmetricCsc, options: FactorOptions = {}): Superno
     const analysis = analysePattern(pattern, options);
     hit = { ordering, pattern, analysis };
     kept.unshift(hit);
-    if (kept.length > KEPT) kept.length = KEPT;
+    let entries = 0;
+    for (let i = 0; i < kept.length; i++) {
+      entries += kept[i].pattern.colPtr[kept[i].pattern.n];
+      if (i >= KEPT || (i > 0 && entries > KEPT_ENTRIES)) {
+        kept.length = i;
+        break;
+      }
+    }
     const f = hit.analysis.factorise(K.values, options.pivotTolerance);
     f.timings.ordering = analysis.timings.ordering;
     f.timings.symbolic = analysis.timings.symbolic;
