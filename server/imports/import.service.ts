@@ -122,7 +122,10 @@ export function buildPreview(
   maxListed = 1000,
 ): ImportPreview {
   const problems = result.ok ? result.warnings : result.problems;
-  const errorCount = problems.filter((p) => p.severity === 'error').length;
+  // the reader lists the first problems and counts them all when a file holds very many
+  const problemCounts = result.problemCounts ?? countProblems(problems);
+  const errorCount = problemCounts.reduce((n, c) => n + c.errors, 0);
+  const total = problemCounts.reduce((n, c) => n + c.errors + c.warnings, 0);
   // errors first, each group in reading order; the list is capped, the counts are not
   const listed = problems.length <= maxListed ? problems : [...problems.filter((p) => p.severity === 'error'), ...problems.filter((p) => p.severity !== 'error')].slice(0, maxListed);
   const model: Model | null = result.ok ? result.model : null;
@@ -156,10 +159,10 @@ export function buildPreview(
       generatedCombinations: model?.combinations.filter((c) => c.generated).length ?? 0,
     },
     problems: listed.map((p) => ({ ...p })),
-    problemCounts: countProblems(problems),
-    problemsTruncated: listed.length < problems.length,
+    problemCounts,
+    problemsTruncated: listed.length < total,
     errorCount,
-    warningCount: problems.length - errorCount,
+    warningCount: total - errorCount,
     canCommit: result.ok && errorCount === 0,
     createdAt: base.createdAt.toISOString(),
     expiresAt: base.expiresAt.toISOString(),

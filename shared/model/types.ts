@@ -330,6 +330,15 @@ export interface Problem {
   message: string;
 }
 
+/** Problems of one table and column (column null: the table or file as a whole). */
+export interface ProblemCount {
+  table: string;
+  column: string | null;
+  errors: number;
+  warnings: number;
+}
+
+/** `problemCounts` counts every problem when the list holds only the first ones (shared/reader/problems.ts). */
 export type ReadResult =
-  | { ok: true; model: Model; warnings: Problem[]; counts: Record<string, number> }
-  | { ok: false; problems: Problem[]; counts: Record<string, number> };
+  | { ok: true; model: Model; warnings: Problem[]; counts: Record<string, number>; problemCounts?: ProblemCount[] }
+  | { ok: false; problems: Problem[]; counts: Record<string, number>; problemCounts?: ProblemCount[] };

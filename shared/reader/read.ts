@@ -52,7 +52,7 @@ export function readTables(tables: RawTable[], options: ReadOptions = {}): ReadR
     return readInner(tables, options, problems, counts);
   } catch (e) {
     problems.error('', undefined, undefined, `the model could not be read: ${(e as Error)?.message ?? String(e)}`);
-    return { ok: false, problems: problems.list, counts };
+    return { ok: false, problems: problems.list, counts, ...(problems.truncated ? { problemCounts: problems.counts() } : {}) };
   }
 }
 
@@ -541,6 +541,7 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
     .map((p, i) => ({ p, i }))
     .sort((a, b) => rank(a.p.table) - rank(b.p.table) || (a.p.row ?? 0) - (b.p.row ?? 0) || a.i - b.i)
     .map((x) => x.p);
-  if (problems.hasErrors) return { ok: false, problems: list, counts };
-  return { ok: true, model, warnings: list, counts };
+  const cut = problems.truncated ? { problemCounts: problems.counts() } : {};
+  if (problems.hasErrors) return { ok: false, problems: list, counts, ...cut };
+  return { ok: true, model, warnings: list, counts, ...cut };
 }
