@@ -140,6 +140,72 @@ export function assembleGeometricStiffness(
 }
 
 /**
+ * y += K_G(N)·x element by element, without assembling K_G: x and y indexed by equation (`eq`,
+ * prescribed freedoms read as 0). Unreleased frame and truss elements in local axes from the
+ * closed form above; elements with end releases through their global matrix.
+ */
+export function geometricProduct(mesh: Mesh, eq: Int32Array, axial: ArrayLike<number>, x: Float64Array, y: Float64Array): void {
+  const ug = new Float64Array(12), ul = new Float64Array(12), fl = new Float64Array(12), fg = new Float64Array(12);
+  const kg = new Float64Array(144), s = geometricScratch();
+  const { elStart, elEnd, elMember, elRel, elL, members } = mesh;
+  for (let e = 0; e < mesh.nElements; e++) {
+    const N = axial[e];
+    if (N === 0) continue;
+    const a = elStart[e] * 6, b = elEnd[e] * 6;
+    for (let k = 0; k < 6; k++) {
+      const ea = eq[a + k], eb = eq[b + k];
+      ug[k] = ea >= 0 ? x[ea] : 0;
+      ug[6 + k] = eb >= 0 ? x[eb] : 0;
+    }
+    const m = members[elMember[e]];
+    if (elRel[e] !== 0 && !m.truss) {
+      elementGeometricGlobal(mesh, e, N, kg, 0, s);
+      for (let i = 0; i < 12; i++) {
+        let t = 0;
+        for (let j = 0; j < 12; j++) t += kg[i * 12 + j] * ug[j];
+        fg[i] = t;
+      }
+    } else {
+      const R = m.R, L = elL[e], c = N / L;
+      for (let o = 0; o < 12; o += 3) {
+        const p = ug[o], q = ug[o + 1], r = ug[o + 2];
+        ul[o] = R[0] * p + R[1] * q + R[2] * r;
+        ul[o + 1] = R[3] * p + R[4] * q + R[5] * r;
+        ul[o + 2] = R[6] * p + R[7] * q + R[8] * r;
+      }
+      fl.fill(0);
+      if (m.truss) {
+        fl[1] = c * (ul[1] - ul[7]); fl[7] = -fl[1];
+        fl[2] = c * (ul[2] - ul[8]); fl[8] = -fl[2];
+      } else {
+        const A = (6 / 5) * c, B = (L / 10) * c, D = ((2 * L * L) / 15) * c, E = (-(L * L) / 30) * c;
+        const v1 = ul[1], tz1 = ul[5], v2 = ul[7], tz2 = ul[11];
+        fl[1] = A * (v1 - v2) + B * (tz1 + tz2);
+        fl[7] = -fl[1];
+        fl[5] = B * (v1 - v2) + D * tz1 + E * tz2;
+        fl[11] = B * (v1 - v2) + E * tz1 + D * tz2;
+        const w1 = ul[2], ty1 = ul[4], w2 = ul[8], ty2 = ul[10];
+        fl[2] = A * (w1 - w2) - B * (ty1 + ty2);
+        fl[8] = -fl[2];
+        fl[4] = -B * (w1 - w2) + D * ty1 + E * ty2;
+        fl[10] = -B * (w1 - w2) + E * ty1 + D * ty2;
+      }
+      for (let o = 0; o < 12; o += 3) {
+        const p = fl[o], q = fl[o + 1], r = fl[o + 2];
+        fg[o] = R[0] * p + R[3] * q + R[6] * r;
+        fg[o + 1] = R[1] * p + R[4] * q + R[7] * r;
+        fg[o + 2] = R[2] * p + R[5] * q + R[8] * r;
+      }
+    }
+    for (let k = 0; k < 6; k++) {
+      const ea = eq[a + k], eb = eq[b + k];
+      if (ea >= 0) y[ea] += fg[k];
+      if (eb >= 0) y[eb] += fg[6 + k];
+    }
+  }
+}
+
+/**
  * Axial force of every element (tension positive) from full node displacements `u` (nNodes × 6,
  * global) and the element's fixed-end forces (local, may be undefined): its mean along the
  * element, N̄ = (1/h)∫N dx, so an element under an axial span load carries its average.

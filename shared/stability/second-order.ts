@@ -47,8 +47,8 @@ import { type PhaseClock, Stopwatch } from '../engine/stopwatch.js';
 import { buildSystem, type LinearSystem } from '../engine/system.js';
 import type { EquilibriumCheck } from '../engine/types.js';
 import type { Model } from '../model/types.js';
-import { type FactorOptions, SingularMatrixError, type SymmetricCsc } from '../solver/types.js';
-import { assembleGeometricStiffness, axialForcesWithFixed, fixedMeanAxial, localGeometricStiffness } from './geometric.js';
+import { type FactorOptions, SingularMatrixError } from '../solver/types.js';
+import { assembleGeometricStiffness, axialForcesWithFixed, fixedMeanAxial, geometricProduct, localGeometricStiffness } from './geometric.js';
 import { type SecondOrderState, elementEndForces, hasAxialLoad, secondOrderStations } from './p-delta.js';
 import { CondensedInstability, type CondensedSolver, condensedSolver } from './condensation.js';
 import { symmetricProduct } from './csc-product.js';
@@ -424,12 +424,27 @@ function solveLoading(
   sw.fine('loading setup');
   const K0 = pat.K.values;
   let u = u1, used = N, iterations = 0, change = Infinity, converged = false;
+  // K_G assembled only where a factorisation (or αcr of a refused loading) needs it; kgOf: its axial forces
+  let kgOf: Float64Array | null = null;
+  const assembleAt = (Nx: Float64Array): void => {
+    if (kgOf !== Nx) { assembleGeometricStiffness(sys, Nx, KG); kgOf = Nx; }
+    for (let i = 0; i < A.length; i++) A[i] = K0[i] + dK[i] + KG[i];
+  };
   // αcr of the axial forces that failed (their K + K_G is not positive definite, so αcr ≤ 1)
-  const instability = (): SecondOrderInstabilityError => {
+  const instability = (Nx: Float64Array): SecondOrderInstabilityError => {
+    if (kgOf !== Nx) { assembleGeometricStiffness(sys, Nx, KG); kgOf = Nx; }
     for (let i = 0; i < A.length; i++) A[i] = K0[i] + dK[i];
     const { alpha, approximate } = nEq > 0 ? criticalFactor(solvers.full(), pat.K, A, KG) : { alpha: Infinity, approximate: true };
     const shown = Math.min(alpha, 1);
     return new SecondOrderInstabilityError(ld.id, shown, approximate, instabilityMessage(ld.kind, ld.id, shown, approximate, scale));
+  };
+  // y = A(Nx)·x = (K + ΔK)·x + K_G(Nx)·x, K_G element by element
+  const product = (Nx: Float64Array, x: Float64Array, y: Float64Array): void => {
+    if (rule) {
+      for (let i = 0; i < A.length; i++) A[i] = K0[i] + dK[i];
+      symmetricProduct(pat.K, A, x, y);
+    } else symmetricProduct(pat.K, K0, x, y);
+    geometricProduct(mesh, eq, Nx, x, y);
   };
   // X: the loading's free displacements, from its first-order solution; a step factorises
   // A(Nᵏ) and solves exactly, or (preconditioned step) X += P⁻¹ (rhs(Nᵏ) − A(Nᵏ) X) with the
@@ -444,27 +459,27 @@ function solveLoading(
       stiffnessFactors(sys, N, rule, ea, ei);
       assembleStiffnessChange(sys, ea, ei, dK);
     }
-    assembleGeometricStiffness(sys, N, KG);
-    for (let i = 0; i < A.length; i++) A[i] = K0[i] + dK[i] + KG[i];
     const rhs = Fl.slice();
     if (pl) subtractPrescribed(sys, pl, N, ea, ei, rhs);
-    sw.fine('K_G assembly');
     rhsUsed = rhs.slice();
     exactLast = refactor;
     try {
       if (refactor) {
+        assembleAt(N);
+        sw.fine('K_G assembly');
         solvers.condensed!.factor(A);
         factoredHere = true;
         refactor = false;
         X = solvers.condensed!.solveFactored(rhs, 1);
       } else {
-        symmetricProduct(pat.K, A, X, AX);
+        product(N, X, AX);
         for (let i = 0; i < nEq; i++) rhs[i] -= AX[i];
+        sw.fine('residual');
         const dX = solvers.condensed!.solveFactored(rhs, 1);
         for (let i = 0; i < nEq; i++) X[i] += dX[i];
       }
     } catch (err) {
-      if (err instanceof CondensedInstability) throw instability();
+      if (err instanceof CondensedInstability) throw instability(N);
       throw err;
     }
     iterations++;
@@ -479,7 +494,7 @@ function solveLoading(
     u = un;
     used = N;
     N = Nn;
-    if (!Number.isFinite(change)) throw instability();
+    if (!Number.isFinite(change)) throw instability(used);
     if (change <= opt.tolerance) { converged = true; break; }
     lastRatio = change / prevChange;
     prevChange = change;
@@ -488,19 +503,19 @@ function solveLoading(
   }
   if (converged && !exactLast) {
     // the last step was preconditioned: refine X against A(N used) until its residual is at rounding level
-    X = refine(pat.K, A, rhsUsed, X, solvers.condensed!, AX);
+    const usedN = used;
+    X = refine((x, y) => product(usedN, x, y), rhsUsed, X, solvers.condensed!, AX);
     for (let g = 0; g < nDofAll; g++) u[g] = eq[g] >= 0 ? X[eq[g]] : pl ? pl[g] : 0;
     sw.fine('refinement');
   }
   if (nEq === 0) { converged = true; change = 0; }
   if (!converged || (!factoredHere && nEq > 0) || lastRatio > CONFIRM_RATIO) {
-    // not converged: unstable when K + K_G of the last axial forces is no longer positive definite
-    assembleGeometricStiffness(sys, N, KG);
-    for (let i = 0; i < A.length; i++) A[i] = K0[i] + dK[i] + KG[i];
+    // not converged (or confirming): unstable when K + K_G of the last axial forces is no longer positive definite
+    assembleAt(N);
     try {
-      solvers.condensed!.solve(A, new Float64Array(nEq), 1);
+      solvers.condensed!.factor(A);
     } catch (err) {
-      if (err instanceof CondensedInstability) throw instability();
+      if (err instanceof CondensedInstability) throw instability(N);
       throw err;
     }
   }
@@ -522,12 +537,12 @@ const REFINED = 1e-13;
  * Iterative refinement of A x = b with the factorisation of a nearby matrix: x += P⁻¹ (b − A x)
  * until the relative residual is REFINED or stops falling tenfold (rounding), at most 8 steps.
  */
-function refine(K: SymmetricCsc, A: Float64Array, b: Float64Array, x: Float64Array, P: CondensedSolver, Ax: Float64Array): Float64Array {
+function refine(product: (x: Float64Array, y: Float64Array) => void, b: Float64Array, x: Float64Array, P: CondensedSolver, Ax: Float64Array): Float64Array {
   const n = b.length, bn = maxAbs(b) || 1;
   const r = new Float64Array(n);
   let last = Infinity;
   for (let step = 0; step < 8; step++) {
-    symmetricProduct(K, A, x, Ax);
+    product(x, Ax);
     for (let i = 0; i < n; i++) r[i] = b[i] - Ax[i];
     const rn = maxAbs(r) / bn;
     if (rn <= REFINED || rn > 0.1 * last) break;
