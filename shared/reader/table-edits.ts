@@ -17,7 +17,8 @@ import { splitHeader } from '../units/index.js';
 import { canonicalName } from './names.js';
 import { readTables } from './read.js';
 import { COMBINATIONS_LONG, TABLES } from './specs.js';
-import type { Cell, RawTable, TableSpec } from './table.js';
+import { parseTable, type Cell, type RawTable, type TableSpec } from './table.js';
+import { Problems } from './problems.js';
 import { modelTables, type WrittenTable } from './workbook-writer.js';
 
 const SPECS: Record<string, TableSpec> = { ...TABLES, combinations: COMBINATIONS_LONG };
@@ -187,4 +188,21 @@ export function checkTableEdits(view: ModelTables, edits: readonly TableEdit[]):
   if (applied.problems.length) return applied.problems;
   const result = readTables(applied.raw, {});
   return result.ok ? [] : tableProblems(result.problems);
+}
+
+/**
+ * One cell as the user types it, checked by the reader's own cell rules for that column
+ * (number, bounds, one of the allowed words, id rules); null when it reads, else the message.
+ * Ids that must exist elsewhere (a case, a node) are checked on the whole tables
+ * (`checkTableEdits`).
+ */
+export function checkCell(table: string, column: ModelTableColumn, value: TableCell, units: Model['settings']['units']): string | null {
+  const spec = SPECS[table];
+  if (!spec) return null;
+  const problems = new Problems();
+  const raw: RawTable = { name: table, rows: [[column.header], [value === '' ? null : value]], rowNumbers: [0, 1], source: 'xlsx' };
+  const one: TableSpec = { ...spec, columns: spec.columns.filter((c) => c.name === canonicalName(column.name)) };
+  parseTable(raw, one, units, problems);
+  const found = problems.list.find((p) => p.severity === 'error');
+  return found ? found.message : null;
 }

@@ -1,6 +1,6 @@
 /** Model endpoints: one function per route (shared/schemas/models.ts). */
 import type {
-  EditableMembers, MemberEditsInput, ModelDetail, ModelSummary, ModelVersionSummary,
+  EditableMembers, MemberEditsInput, ModelDetail, ModelSummary, ModelTables, ModelVersionSummary, TableEditsInput,
 } from '../../shared/schemas/models.js';
 import { http } from './http.js';
 
@@ -36,4 +36,14 @@ export function getEditableMembers(id: number): Promise<EditableMembers> {
 /** PATCH /api/models/:id/members: one new version; 409 when baseVersion is stale. */
 export function saveMemberEdits(id: number, input: MemberEditsInput): Promise<ModelSummary> {
   return http.patch<ModelSummary>(`/api/models/${id}/members`, input);
+}
+
+/** GET /api/models/:id/tables: every table of the current version, values in the model's unit system. */
+export function getModelTables(id: number): Promise<ModelTables> {
+  return http.get<ModelTables>(`/api/models/${id}/tables`);
+}
+
+/** PATCH /api/models/:id/tables: edits of cases, loads and combinations as one new version; 409 when baseVersion is stale. */
+export function saveTableEdits(id: number, input: TableEditsInput): Promise<ModelSummary> {
+  return http.patch<ModelSummary>(`/api/models/${id}/tables`, input);
 }
