@@ -34,6 +34,7 @@ import { closeMailers } from './mail/mailer.js';
 import { mailConfigFromEnv } from './mail/mail-config.js';
 import { accountRouter } from './security/account.router.js';
 import { csrfGuard } from './security/csrf.js';
+import { verificationRouter } from './verification/verification.router.js';
 import { fairness } from './security/fairness.js';
 import { CONTENT_SECURITY_POLICY } from './security/csp.js';
 
@@ -94,6 +95,7 @@ export function createApp(ctx: AppContext): Express {
   app.use('/api', auditTrail(dataSource, logger));
   for (const [mountPath, makeRouter] of apiRouters) app.use(mountPath, makeRouter(ctx));
   app.use('/api', apiNotFound);
+  app.use('/verification', verificationRouter());
 
   serveClient(app, config.distDir);
   app.use(errorHandler(logger));

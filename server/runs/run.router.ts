@@ -1,7 +1,7 @@
 /** /api/runs — status, results for the grid, member detail, picture, comparison, exports. */
 import { Router } from 'express';
 import {
-  EXPORT_FORMATS, EXPORT_KINDS, STABILITY_EXPORT_KINDS, type ExportFormat, type ExportKind, type StabilityExportKind,
+  EXPORT_FORMATS, EXPORT_KINDS, MEMBERS_LAYOUTS, STABILITY_EXPORT_KINDS, type ExportFormat, type ExportKind, type MembersLayout, type StabilityExportKind,
 } from '../../shared/schemas/runs.js';
 import { rolesAtLeast } from '../../shared/schemas/users.js';
 import type { AppContext } from '../app.js';
@@ -36,7 +36,14 @@ export function runsRouter({ dataSource, logger }: AppContext): Router {
     res.json(await getRun(dataSource, parseId(req.params.id, 'Run')));
   });
   router.get('/:id/members', requireRole(...RUN_READERS), guard.run('id'), async (req, res) => {
-    res.json(await getRunMembers(dataSource, parseId(req.params.id, 'Run')));
+    const layout = text(req.query.layout) ?? 'rows';
+    if (!(MEMBERS_LAYOUTS as readonly string[]).includes(layout)) throw badRequest(`layout: choose ${MEMBERS_LAYOUTS.join(' or ')}`);
+    const gzip = /\bgzip\b/.test(String(req.headers['accept-encoding'] ?? ''));
+    const body = await getRunMembers(dataSource, parseId(req.params.id, 'Run'), layout as MembersLayout, gzip);
+    res.set('Content-Type', 'application/json; charset=utf-8');
+    res.set('Vary', 'Accept-Encoding');
+    if (gzip) res.set('Content-Encoding', 'gzip');
+    res.end(body);
   });
   router.get('/:id/members/:member', requireRole(...RUN_READERS), guard.run('id'), async (req, res) => {
     res.json(await getMemberDetail(dataSource, parseId(req.params.id, 'Run'), String(req.params.member), text(req.query.loading)));

@@ -13,7 +13,7 @@ import type { CheckRecord, MemberUtilisation } from '../../shared/design/types.j
 import type { DesignCode, Model } from '../../shared/model/types.js';
 import { compareMembers } from '../../shared/results/compare.js';
 import { runGeometry } from '../../shared/results/geometry.js';
-import { familiesPresent, memberRows, statusCounts, type PreviousMember } from '../../shared/results/member-rows.js';
+import { memberRows } from '../../shared/results/member-rows.js';
 import {
   startRunSchema,
   type LoadingInfo,
@@ -21,7 +21,7 @@ import {
   type Run,
   type RunComparison,
   type RunGeometry,
-  type RunMembers,
+  type MembersLayout,
   type RunPhase,
   type RunShape,
   type RunStability,
@@ -35,7 +35,7 @@ import { decodeJson, decodeText } from '../models/model-codec.js';
 import { findModel, findVersion } from '../models/model.service.js';
 import type { PackedRun } from './run-compute.js';
 import { RunEntity, RunResultEntity, type RunRecord, type RunResultRecord } from './run.entity.js';
-import { runPool } from './worker-pool.js';
+import { resultsPool, runPool } from './worker-pool.js';
 import { shapeFromBlock } from './stability-codec.js';
 
 const gunzipAsync = promisify(gunzip);
@@ -330,22 +330,23 @@ async function previousDone(ds: DataSource, run: RunRecord): Promise<RunData | n
   return result ? { run: prev, result } : null;
 }
 
-export async function getRunMembers(ds: DataSource, id: number): Promise<RunMembers> {
+/**
+ * The grid's payload as JSON bytes, built in a worker from the stored blobs (this thread
+ * neither unzips nor parses them): rows, or column by column with `layout: 'table'`.
+ */
+export async function getRunMembers(ds: DataSource, id: number, layout: MembersLayout = 'rows', gzip = false): Promise<Uint8Array> {
   const { run, result } = await doneRun(ds, id);
-  const members = membersOf(result);
   const prev = await previousDone(ds, run);
-  let previous: Map<string, PreviousMember> | undefined;
-  if (prev) previous = new Map(membersOf(prev.result).map((m) => [m.member, { ratio: m.ratio, section: m.section }]));
   const settings = JSON.parse(run.settingsJson) as { units?: 'metric' | 'us' };
-  return {
+  return resultsPool().run({
+    kind: 'members',
     runId: run.id,
-    previousRunId: prev?.run.id ?? null,
-    units: settings.units ?? 'metric',
-    designCode: run.designCode,
-    families: familiesPresent(members),
-    counts: statusCounts(members),
-    members: memberRows(members, previous),
-  };
+    meta: { runId: run.id, previousRunId: prev?.run.id ?? null, units: settings.units ?? 'metric', designCode: run.designCode },
+    layout,
+    gzip,
+    membersData: result.membersData,
+    ...(prev ? { previousData: prev.result.membersData } : {}),
+  });
 }
 
 /** A loading's key in `?loading=`: its id, with `@max` / `@min` for a moving-load envelope. */

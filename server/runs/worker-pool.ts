@@ -166,9 +166,21 @@ export function exportPool(): WorkerPool {
   return exports_;
 }
 
+let results_: WorkerPool | null = null;
+
+/** The grid's payloads build in their own thread (RESULTS_WORKERS, default 1): never behind a run or an export. */
+export function resultsPool(): WorkerPool {
+  if (!results_) {
+    const configured = Number(process.env.RESULTS_WORKERS);
+    results_ = new WorkerPool(Number.isInteger(configured) && configured > 0 ? configured : 1);
+  }
+  return results_;
+}
+
 export async function closeRunPool(): Promise<void> {
-  const pools = [shared, exports_];
+  const pools = [shared, exports_, results_];
   shared = null;
   exports_ = null;
+  results_ = null;
   await Promise.all(pools.map((p) => p?.close()));
 }

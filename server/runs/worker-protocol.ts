@@ -9,6 +9,9 @@ import type { PackedRun } from './run-compute.js';
 import type { ExportTask, ExportTaskResult } from '../exports/export-task.js';
 
 export type { ExportTask } from '../exports/export-task.js';
+import type { MembersTask } from './members-table.js';
+
+export type { MembersTask } from './members-table.js';
 
 interface TaskBase {
   /** the run whose analysis the task needs (workers keep the last few analyses) */
@@ -51,7 +54,7 @@ export interface ReadTask {
   limits?: Partial<XlsxLimits>;
 }
 
-export type WorkerTask = RunTask | MemberTask | ForcesTask | ChecksTask | ReadTask | ExportTask;
+export type WorkerTask = RunTask | MemberTask | ForcesTask | ChecksTask | ReadTask | ExportTask | MembersTask;
 
 export interface MemberTaskResult {
   stations: Stations;
@@ -72,7 +75,9 @@ export type TaskResult<T extends WorkerTask> = T extends RunTask
       ? ReadResult
       : T extends ExportTask
         ? ExportTaskResult
-        : ResultTable;
+        : T extends MembersTask
+          ? Uint8Array
+          : ResultTable;
 
 export type WorkerRequest = { id: number; task: WorkerTask };
 

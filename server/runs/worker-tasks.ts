@@ -7,6 +7,7 @@ import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
 import { analyseOnly, checkMemberWithStability, checkWithStability, computeRun, packRun, type Analysed } from './run-compute.js';
 import type { ChecksTask, ForcesTask, ForcesTaskResult, MemberTask, MemberTaskResult, ReadTask, WorkerTask } from './worker-protocol.js';
 import type { ReadResult } from '../../shared/model/types.js';
+import { membersPayload } from './members-table.js';
 import { exportModel, storedTable, streamTable, type ExportTask, type ExportTaskResult } from '../exports/export-task.js';
 import { readCsvBytes, readWorkbook } from '../../shared/reader/index.js';
 
@@ -56,6 +57,7 @@ function memberForces(model: Model, analysis: AnalysisResult, loadings: number[]
 export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => void, onChunk: (chunk: Uint8Array) => void = () => {}): unknown {
   if (task.kind === 'read') return readFiles(task);
   if (task.kind === 'export') return exportFile(task, onChunk);
+  if (task.kind === 'members') return membersPayload(task);
   switch (task.kind) {
     case 'run': {
       const { output, analysed } = computeRun(task.modelJson, task.designCode, onPhase);
@@ -109,6 +111,7 @@ export async function readFiles(task: ReadTask): Promise<ReadResult> {
 /** Buffers to move rather than copy back to the HTTP thread. */
 export function transferList(result: unknown): ArrayBuffer[] {
   const out: ArrayBuffer[] = [];
+  if (result instanceof Uint8Array && result.byteOffset === 0 && result.byteLength === result.buffer.byteLength) return [result.buffer as ArrayBuffer];
   if (result && typeof result === 'object') {
     for (const v of Object.values(result)) {
       if ((v instanceof Float64Array || v instanceof Int32Array || v instanceof Uint8Array) && v.byteOffset === 0 && v.byteLength === v.buffer.byteLength) {

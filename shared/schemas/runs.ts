@@ -5,6 +5,7 @@
  *   GET  /api/models/:id/runs                 → RunSummary[] (newest first)
  *   GET  /api/runs/:id                        → Run (poll for status, phase, progress)
  *   GET  /api/runs/:id/members                → RunMembers (the utilisation grid)
+ *   GET  /api/runs/:id/members?layout=table   → RunMembersTable (the same rows, column by column)
  *   GET  /api/runs/:id/members/:member[?loading=]   → MemberDetail
  *   GET  /api/runs/:id/model[?loading=]       → RunGeometry (the 3D picture)
  *   GET  /api/runs/compare?a=&b=              → RunComparison
@@ -189,6 +190,37 @@ export const runMembersSchema = z.object({
   members: z.array(memberRowSchema),
 });
 export type RunMembers = z.infer<typeof runMembersSchema>;
+
+/**
+ * The grid's rows column by column (`?layout=table`), for runs of 100k+ members: no key
+ * repeated per row, each text value other than the member id once in `strings` (the text
+ * columns hold indices into it), numbers as they are (exactly the numbers of RunMembers).
+ * `familyRatios[f][i]` is the member's ratio in family f, null for no ratio, false when the family
+ * does not apply to it; `familyStatus[f][i]` is an index into `strings`, -1 when absent.
+ * Fields most rows lack (warnings, vehicle position, previous section) sit in `extras` by row.
+ */
+const textColumn = z.array(z.number().int());
+export const runMembersTableSchema = runMembersSchema.omit({ members: true }).extend({
+  count: z.number().int(),
+  strings: z.array(z.string()),
+  member: z.array(z.string()),
+  group: textColumn,
+  section: textColumn,
+  material: textColumn,
+  check: textColumn,
+  clause: textColumn,
+  combination: textColumn,
+  status: textColumn,
+  length: z.array(z.number()),
+  ratio: z.array(z.number().nullable()),
+  previousRatio: z.array(z.number().nullable()),
+  familyRatios: z.record(z.string(), z.array(z.union([z.number(), z.null(), z.literal(false)]))),
+  familyStatus: z.record(z.string(), textColumn),
+  extras: z.record(z.string(), z.object({ warnings: z.array(z.string()).optional(), vehiclePosition: z.number().optional(), previousSection: z.string().optional() })),
+});
+export type RunMembersTable = z.infer<typeof runMembersTableSchema>;
+export const MEMBERS_LAYOUTS = ['rows', 'table'] as const;
+export type MembersLayout = (typeof MEMBERS_LAYOUTS)[number];
 
 /** A check record as JSON (shared/design/types.ts CheckRecord). */
 export const checkRecordSchema = z.object({

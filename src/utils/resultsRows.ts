@@ -4,7 +4,7 @@
  */
 import type { CheckStatus } from '../../shared/design/types.js';
 import type { EditableMember } from '../../shared/schemas/models.js';
-import type { MemberRow } from '../../shared/schemas/runs.js';
+import type { MemberRow, RunMembers, RunMembersTable } from '../../shared/schemas/runs.js';
 import { ratioDelta } from './ratioBand.js';
 
 export interface GridRow {
@@ -132,4 +132,43 @@ export function distinctValues(rows: readonly GridRow[], pick: (r: GridRow) => s
     if (v) set.add(v);
   }
   return [...set].sort((a, b) => a.localeCompare(b, undefined, { numeric: true }));
+}
+
+/** The grid's rows from the column-by-column payload (`?layout=table`): exactly RunMembers. */
+export function membersFromTable(t: RunMembersTable): RunMembers {
+  const { strings } = t;
+  const families = Object.keys(t.familyRatios);
+  const members: MemberRow[] = new Array(t.count);
+  for (let i = 0; i < t.count; i++) {
+    const ratios: Record<string, number | null> = {};
+    const statuses: Record<string, CheckStatus> = {};
+    for (const f of families) {
+      const r = t.familyRatios[f][i];
+      if (r !== false) ratios[f] = r;
+      const s = t.familyStatus[f][i];
+      if (s >= 0) statuses[f] = strings[s] as CheckStatus;
+    }
+    const extra = t.extras[i];
+    const row: MemberRow = {
+      member: t.member[i],
+      group: strings[t.group[i]],
+      section: strings[t.section[i]],
+      material: strings[t.material[i]],
+      length: t.length[i],
+      ratio: t.ratio[i],
+      check: strings[t.check[i]],
+      clause: strings[t.clause[i]],
+      combination: strings[t.combination[i]],
+      status: strings[t.status[i]] as CheckStatus,
+      families: ratios,
+      familyStatus: statuses,
+      warnings: extra?.warnings ?? [],
+      previousRatio: t.previousRatio[i],
+    };
+    if (extra?.vehiclePosition !== undefined) row.vehiclePosition = extra.vehiclePosition;
+    if (extra?.previousSection !== undefined) row.previousSection = extra.previousSection;
+    members[i] = row;
+  }
+  const { runId, previousRunId, units, designCode, families: present, counts } = t;
+  return { runId, previousRunId, units, designCode, families: present, counts, members };
 }

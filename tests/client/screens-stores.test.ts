@@ -86,7 +86,10 @@ describe('runs store', () => {
     serve((method, url) => {
       if (url === '/api/models/7/runs' && method === 'POST') return { status: 202, body: { id: 5, modelId: 7, status: 'queued', phase: null } };
       if (url === '/api/runs/5') return { status: 200, body: { id: 5, modelId: 7, ...states[Math.min(polls++, 2)] } };
-      if (url === '/api/runs/5/members') return { status: 200, body: { runId: 5, members: [], families: [], counts: { pass: 0, fail: 0, notChecked: 0 } } };
+      if (url === '/api/runs/5/members?layout=table') {
+        const empty = { member: [], group: [], section: [], material: [], check: [], clause: [], combination: [], status: [], length: [], ratio: [], previousRatio: [] };
+        return { status: 200, body: { runId: 5, families: [], counts: { pass: 0, fail: 0, notChecked: 0 }, count: 0, strings: [], ...empty, familyRatios: {}, familyStatus: {}, extras: {} } };
+      }
       if (url === '/api/models/7/runs') return { status: 200, body: [{ id: 5 }] };
       return { status: 404 };
     });

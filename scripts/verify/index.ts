@@ -1,0 +1,52 @@
+/**
+ * `npm run verify`: runs the verification tests (./vitest.config.ts) and writes the report
+ * generated from them to docs/verification/ — report.html (served by the app at
+ * /verification/report.html, linked from About) and report.json. No PDF: no PDF library is
+ * installed (the HTML prints to PDF from a browser; sections start on new pages).
+ * Extra arguments are passed to vitest (e.g. a path filter). Exits 1 when a test failed.
+ */
+import { execFileSync, spawnSync } from 'node:child_process';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { buildReport, renderHtml, type VitestJson } from './report.js';
+
+const root = fileURLToPath(new URL('../../', import.meta.url));
+const outDir = path.join(root, 'docs/verification');
+const jsonFile = path.join(outDir, 'results.json');
+
+function version(): string {
+  const pkg = JSON.parse(readFileSync(path.join(root, 'package.json'), 'utf8')) as { version: string };
+  try {
+    const commit = execFileSync('git', ['rev-parse', '--short', 'HEAD'], { cwd: root, encoding: 'utf8' }).trim();
+    const dirty = execFileSync('git', ['status', '--porcelain', '--', 'shared', 'server', 'tests'], { cwd: root, encoding: 'utf8' }).trim();
+    return `${pkg.version} (commit ${commit}${dirty ? ', with uncommitted changes' : ''})`;
+  } catch {
+    return pkg.version;
+  }
+}
+
+mkdirSync(outDir, { recursive: true });
+const vitest = path.join(root, 'node_modules/vitest/vitest.mjs');
+const run = spawnSync(process.execPath, [vitest, 'run', '--config', 'scripts/verify/vitest.config.ts', ...process.argv.slice(2)], {
+  cwd: root,
+  stdio: 'inherit',
+  env: { ...process.env, VERIFY_JSON: jsonFile },
+});
+if (!existsSync(jsonFile)) {
+  console.error('verify: vitest wrote no results; no report written');
+  process.exit(run.status || 1);
+}
+const json = JSON.parse(readFileSync(jsonFile, 'utf8')) as VitestJson;
+const report = buildReport(json, {
+  software: 'Trestle',
+  version: version(),
+  date: new Date().toISOString().replace('T', ' ').replace(/\.\d+Z$/, ' UTC'),
+  root,
+  readFile: (f) => (existsSync(f) ? readFileSync(f, 'utf8') : undefined),
+});
+writeFileSync(path.join(outDir, 'report.json'), JSON.stringify(report, null, 1));
+writeFileSync(path.join(outDir, 'report.html'), renderHtml(report));
+const k = report.counts;
+console.log(`verify: ${k.tests} problems (${k.passed} passed, ${k.failed} failed, ${k.skipped} skipped), ${k.records} comparisons → docs/verification/report.html`);
+process.exit(k.failed > 0 ? 1 : 0);
