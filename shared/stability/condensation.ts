@@ -39,6 +39,8 @@ interface MemberBlock {
   redPos: Int32Array;
   redRow: Int32Array;
   redCol: Int32Array;
+  /** skyline of A_ii: first column of row r holding an entry (the factor keeps that envelope) */
+  first: Int32Array;
 }
 
 export interface CondensedSolver {
@@ -134,7 +136,10 @@ export function condensedSolver(sys: LinearSystem, options: FactorOptions = {}):
         redPos.push(q); redRow.push(r); redCol.push(c);
       }
     }
+    const first = Int32Array.from({ length: ni }, (_, r) => r);
+    for (const ix of iiIdx) { const r = Math.floor(ix / ni), c = ix % ni; if (c < first[r]) first[r] = c; }
     blocks.push({
+      first,
       i0, ni, b, iiPos: Int32Array.from(iiPos), iiIdx: Int32Array.from(iiIdx), ibPos: Int32Array.from(ibPos), ibIdx: Int32Array.from(ibIdx),
       redPos: Int32Array.from(redPos), redRow: Int32Array.from(redRow), redCol: Int32Array.from(redCol),
     });
@@ -171,10 +176,10 @@ export function condensedSolver(sys: LinearSystem, options: FactorOptions = {}):
         Aib.fill(0, 0, ni * nb);
         for (let q = 0; q < bk.iiPos.length; q++) L[bk.iiIdx[q]] += A[bk.iiPos[q]];
         for (let q = 0; q < bk.ibPos.length; q++) Aib[bk.ibIdx[q]] += A[bk.ibPos[q]];
-        cholesky(L, ni, pivotTolerance, bk.i0);
+        cholesky(L, ni, bk.first, pivotTolerance, bk.i0);
         const W = Wall.subarray(wOff[k], wOff[k + 1]);
         W.set(Aib.subarray(0, ni * nb));
-        cholSolve(L, ni, W, nb);
+        cholSolve(L, ni, bk.first, W, nb);
         for (let q = 0; q < bk.redPos.length; q++) {
           const r = bk.redRow[q], c = bk.redCol[q];
           let sum = 0;
@@ -215,7 +220,7 @@ export function condensedSolver(sys: LinearSystem, options: FactorOptions = {}):
           }
           const g = X.subarray(o, o + ni);
           g.set(B.subarray(o, o + ni));
-          cholSolve(L, ni, g, 1);
+          cholSolve1(L, ni, bk.first, g);
         }
       }
       const Xred: Float64Array = fact ? fact.solve(Bred, nrhs) : new Float64Array(0);
@@ -245,39 +250,59 @@ export function condensedSolver(sys: LinearSystem, options: FactorOptions = {}):
   return self;
 }
 
-/** In-place dense Cholesky of the lower triangle of L (n × n, row-major); a small pivot throws. */
-function cholesky(L: Float64Array, n: number, tol: number, eq0: number): void {
-  for (let j = 0; j < n; j++) {
-    const diag = L[j * n + j];
+/**
+ * In-place Cholesky of the lower triangle of L (n × n, row-major) within its skyline (row r
+ * from column first[r]; the factor has no entries outside it); a small pivot throws.
+ */
+function cholesky(L: Float64Array, n: number, first: Int32Array, tol: number, eq0: number): void {
+  for (let i = 0; i < n; i++) {
+    const fi = first[i], ri = i * n;
+    for (let j = fi; j < i; j++) {
+      const rj = j * n, k0 = fi > first[j] ? fi : first[j];
+      let v = L[ri + j];
+      for (let k = k0; k < j; k++) v -= L[ri + k] * L[rj + k];
+      L[ri + j] = v / L[rj + j];
+    }
+    const diag = L[ri + i];
     let d = diag;
-    for (let k = 0; k < j; k++) d -= L[j * n + k] * L[j * n + k];
-    if (!(d > tol * Math.abs(diag))) throw new CondensedInstability(eq0 + j);
-    const s = Math.sqrt(d);
-    L[j * n + j] = s;
-    for (let i = j + 1; i < n; i++) {
-      let v = L[i * n + j];
-      for (let k = 0; k < j; k++) v -= L[i * n + k] * L[j * n + k];
-      L[i * n + j] = v / s;
+    for (let k = fi; k < i; k++) d -= L[ri + k] * L[ri + k];
+    if (!(d > tol * Math.abs(diag))) throw new CondensedInstability(eq0 + i);
+    L[ri + i] = Math.sqrt(d);
+  }
+}
+
+/** X ← (L Lᵀ)⁻¹ X for X n × m (row-major), L within its skyline. */
+function cholSolve(L: Float64Array, n: number, first: Int32Array, X: Float64Array, m: number): void {
+  for (let i = 0; i < n; i++) {
+    const ri = i * n, xi = i * m;
+    for (let k = first[i]; k < i; k++) {
+      const l = L[ri + k], xk = k * m;
+      if (l !== 0) for (let c = 0; c < m; c++) X[xi + c] -= l * X[xk + c];
+    }
+    const d = L[ri + i];
+    for (let c = 0; c < m; c++) X[xi + c] /= d;
+  }
+  for (let i = n - 1; i >= 0; i--) {
+    const ri = i * n, xi = i * m, d = L[ri + i];
+    for (let c = 0; c < m; c++) X[xi + c] /= d;
+    for (let k = first[i]; k < i; k++) {
+      const l = L[ri + k], xk = k * m;
+      if (l !== 0) for (let c = 0; c < m; c++) X[xk + c] -= l * X[xi + c];
     }
   }
 }
 
-/** X ← (L Lᵀ)⁻¹ X for X n × m (row-major). */
-function cholSolve(L: Float64Array, n: number, X: Float64Array, m: number): void {
+/** x ← (L Lᵀ)⁻¹ x for one column, L within its skyline. */
+function cholSolve1(L: Float64Array, n: number, first: Int32Array, x: Float64Array): void {
   for (let i = 0; i < n; i++) {
-    for (let k = 0; k < i; k++) {
-      const l = L[i * n + k];
-      if (l !== 0) for (let c = 0; c < m; c++) X[i * m + c] -= l * X[k * m + c];
-    }
-    const d = L[i * n + i];
-    for (let c = 0; c < m; c++) X[i * m + c] /= d;
+    const ri = i * n;
+    let v = x[i];
+    for (let k = first[i]; k < i; k++) v -= L[ri + k] * x[k];
+    x[i] = v / L[ri + i];
   }
   for (let i = n - 1; i >= 0; i--) {
-    for (let k = i + 1; k < n; k++) {
-      const l = L[k * n + i];
-      if (l !== 0) for (let c = 0; c < m; c++) X[i * m + c] -= l * X[k * m + c];
-    }
-    const d = L[i * n + i];
-    for (let c = 0; c < m; c++) X[i * m + c] /= d;
+    const ri = i * n, v = x[i] / L[ri + i];
+    x[i] = v;
+    for (let k = first[i]; k < i; k++) x[k] -= L[ri + k] * v;
   }
 }
