@@ -22,6 +22,7 @@ import { usersRouter } from './users/user.router.js';
 import { modelsRouter, projectModelsRouter } from './models/model.router.js';
 import { importsRouter } from './imports/import.router.js';
 import { runsRouter } from './runs/run.router.js';
+import { reportsRouter } from './reports/report.router.js';
 import { closeRunPool } from './runs/worker-pool.js';
 import { samplesRouter, templatesRouter } from './samples/sample.router.js';
 import { accessRouter, membersRouter } from './membership/member.router.js';
@@ -59,6 +60,7 @@ export const apiRouters: [string, (ctx: AppContext) => Router][] = [
   ['/api/projects/:projectId/access', accessRouter],
   ['/api/runs/:runId/review', reviewsRouter],
   ['/api/runs/:runId/comments', commentsRouter],
+  ['/api/runs/:runId/reports', reportsRouter],
   ['/api/audit', auditRouter],
   ['/api/outbox', outboxRouter],
   ['/api/account', accountRouter],

@@ -14,6 +14,7 @@ import { listRoutes } from '../helpers/list-routes.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import { CSV, importDemo, upload } from '../models/fixture.js';
 import { settle } from '../runs/poll.js';
+import { reportSettled } from '../../../server/reports/report.service.js';
 import { makeTeam, type Team } from './fixture.js';
 
 interface ScopedRoute {
@@ -30,6 +31,7 @@ let team: Team;
 let modelId: number;
 let runId: number;
 let importId: string;
+let reportId: string;
 
 const P = () => team.projectId;
 const ROUTES: ScopedRoute[] = [
@@ -69,6 +71,9 @@ const ROUTES: ScopedRoute[] = [
   { method: 'POST', path: '/api/runs/:runId/review/approve', min: 'lead', url: () => `/api/runs/${runId}/review/approve` },
   { method: 'GET', path: '/api/runs/:runId/comments', min: 'viewer', url: () => `/api/runs/${runId}/comments` },
   { method: 'POST', path: '/api/runs/:runId/comments', min: 'engineer', url: () => `/api/runs/${runId}/comments` },
+  { method: 'POST', path: '/api/runs/:runId/reports', min: 'viewer', url: () => `/api/runs/${runId}/reports` },
+  { method: 'GET', path: '/api/runs/:runId/reports/:reportId', min: 'viewer', url: () => `/api/runs/${runId}/reports/${reportId}` },
+  { method: 'GET', path: '/api/runs/:runId/reports/:reportId/file', min: 'viewer', url: () => `/api/runs/${runId}/reports/${reportId}/file` },
 ];
 
 /** Routes that name no project (accounts, users, audit with its own scoping, samples, outbox). */
@@ -85,6 +90,8 @@ beforeAll(async () => {
   expect((await t.as('engineer').post(`/api/runs/${runId}/review/submit`).send({ message: 'check' })).status).toBe(200);
   expect((await t.as('lead').post(`/api/runs/${runId}/review/approve`).send({})).status).toBe(200);
   importId = (await upload(t, team.projectId, CSV, { modelId: String(modelId) })).body.id as string;
+  reportId = (await t.as('engineer').post(`/api/runs/${runId}/reports`).send({ members: 'failing' })).body.id as string;
+  await reportSettled(reportId);
 }, 120_000);
 afterAll(async () => {
   await closeRunPool();
