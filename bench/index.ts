@@ -94,6 +94,9 @@ async function main(): Promise<void> {
     const f = await benchApi();
     console.log(`  upload→preview ${f.uploadToPreviewMs.toFixed(0)}, commit ${f.commitMs.toFixed(0)}, full run ${f.fullRunMs.toFixed(0)}, edit ${f.editMs.toFixed(0)}, rerun ${f.rerunMs.toFixed(0)}`);
     console.log(`  bare analysis + checks ${f.bareAnalysisAndChecksMs?.toFixed(0) ?? '–'}; (edit + rerun) / bare = ${f.rerunOverBare?.toFixed(2) ?? '–'} (target ≤ 1.2)`);
+    // issue 12: results and exports under load (BENCH_API_BAYS × BENCH_API_BAYS × BENCH_API_STOREYS, default the 110k frame)
+    const { benchResults } = await import('./api.js');
+    await benchResults(Number(process.env.BENCH_API_BAYS) || 60, Number(process.env.BENCH_API_STOREYS) || 10);
   }
 }
 
