@@ -3,7 +3,8 @@
  * generated from them to docs/verification/ — report.html (served by the app at
  * /verification/report.html, linked from About) and report.json. No PDF: no PDF library is
  * installed (the HTML prints to PDF from a browser; sections start on new pages).
- * Extra arguments are passed to vitest (e.g. a path filter). Exits 1 when a test failed.
+ * Extra arguments are passed to vitest (e.g. a path filter); `--report-only` rebuilds the
+ * report from the last run's results. Exits 1 when a test failed.
  */
 import { execFileSync, spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
@@ -28,14 +29,20 @@ function version(): string {
 
 mkdirSync(outDir, { recursive: true });
 const vitest = path.join(root, 'node_modules/vitest/vitest.mjs');
-const run = spawnSync(process.execPath, [vitest, 'run', '--config', 'scripts/verify/vitest.config.ts', ...process.argv.slice(2)], {
-  cwd: root,
-  stdio: 'inherit',
-  env: { ...process.env, VERIFY_JSON: jsonFile },
-});
+// `--report-only`: rebuild the report from the last run's results.json without running the tests
+const reportOnly = process.argv.includes('--report-only');
+if (!reportOnly) {
+  const args = process.argv.slice(2);
+  const run = spawnSync(process.execPath, [vitest, 'run', '--config', 'scripts/verify/vitest.config.ts', ...args], {
+    cwd: root,
+    stdio: 'inherit',
+    env: { ...process.env, VERIFY_JSON: jsonFile },
+  });
+  if (run.status !== 0 && run.status !== 1) console.error(`verify: vitest exited with ${run.status}`);
+}
 if (!existsSync(jsonFile)) {
   console.error('verify: vitest wrote no results; no report written');
-  process.exit(run.status || 1);
+  process.exit(1);
 }
 const json = JSON.parse(readFileSync(jsonFile, 'utf8')) as VitestJson;
 const report = buildReport(json, {

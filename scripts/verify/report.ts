@@ -33,6 +33,8 @@ export interface Problem {
   records: VerificationRecord[];
   /** records beyond the per-test limit */
   omitted: number;
+  /** the test's expectation lines as written, shown when it registered no numbers */
+  assertions: string[];
 }
 
 export interface Chapter {
@@ -66,7 +68,7 @@ export function chapterOf(file: string): string {
 
 /** Words that mark a reference: a standard, a handbook, a closed form, a recalled value. */
 const SOURCE_WORDS =
-  /\b(EN ?\d{3,5}|EN ?199\d|Eurocode|AISC|AASHTO|ASTM|DIN|BS ?\d|Roark|Timoshenko|Gere|Przemieniecki|Bathe|Chen|Trahair|Galambos|SCI|Design Guide|Table|clause|eq\.|equation|Annex|Appendix|closed[- ]form|formula|from memory|handbook|worked example|textbook|exact|analytic|theory|Euler|Bredt|Castigliano|Maxwell|Müller-Breslau|influence line)\b|§|cl\. ?\d/i;
+  /\b(EN ?\d{3,5}|EN ?199\d|Eurocode|AISC|ASCE|SEI|AASHTO|ASTM|DIN|BS ?\d|Roark|Timoshenko|Gere|Przemieniecki|Bathe|Chen|Trahair|Galambos|SCI|Design Guide|Table|Chapter [A-N]|clause|Eq\. ?[A-Z]?\d|equation|Annex|Appendix|closed[- ]form|formula|from memory|handbook|worked example|textbook|exact|analytic|theory|Euler|Bredt|Castigliano|Maxwell|Müller-Breslau|influence line|statics|method of (?:joints|sections)|slope[- ]deflection|moment distribution|virtual work|[A-K]\d{1,2}(?:\.\d+)?[a-z]?|\d+\.\d+\.\d+(?:\.\d+)*)\b|§|cl\. ?\d/i;
 
 /** Parenthesised fragments of a title, and its clauses after a colon, that name a source. */
 export function sourcesInTitle(title: string): string[] {
@@ -117,6 +119,15 @@ export function sourcesInComments(body: string): string[] {
   return out;
 }
 
+/** The lines of a test body that assert something (at most 8), trimmed. */
+export function expectationLines(body: string): string[] {
+  return body
+    .split('\n')
+    .filter((l) => /\bexpect(\.soft)?\(|\bclose\(|\bwithin\(|\bverification\(/.test(l))
+    .map((l) => l.trim())
+    .slice(0, 8);
+}
+
 function isRecord(x: unknown): x is VerificationRecord {
   return typeof x === 'object' && x !== null && ((x as { kind?: unknown }).kind === 'within' || (x as { kind?: unknown }).kind === 'bound');
 }
@@ -153,6 +164,7 @@ export function buildReport(json: VitestJson, opts: BuildOptions): VerificationR
       const records = Array.isArray(raw) ? raw.filter(isRecord) : [];
       for (const r of records) if (r.kind === 'within' && r.source && !explicit.includes(r.source)) explicit.push(r.source);
       const sources = [...new Set([...fromTitle, ...explicit, ...sourcesInComments(body)])];
+      if (sources.length === 0 && / = /.test(t.title)) sources.push('the closed form or worked values stated in the title');
       const status = t.status === 'passed' ? 'passed' : t.status === 'failed' ? 'failed' : 'skipped';
       counts.tests++;
       counts[status]++;
@@ -164,6 +176,7 @@ export function buildReport(json: VitestJson, opts: BuildOptions): VerificationR
         where: line ? `${file}:${line}` : file,
         records,
         omitted: Number(t.meta?.[`${META_KEY}Omitted`] ?? 0),
+        assertions: records.length > 0 ? [] : expectationLines(body),
       });
     }
     chapter.files.push({ file, problems });
@@ -190,7 +203,8 @@ export function num(x: number): string {
 
 function recordRows(p: Problem): string {
   if (p.records.length === 0) {
-    return '<tr class="rec"><td colspan="4" class="muted">asserted in the test; no numbers registered (see the source and the test)</td></tr>';
+    const lines = p.assertions.length > 0 ? `<pre>${esc(p.assertions.join('\n'))}</pre>` : '';
+    return `<tr class="rec"><td colspan="4"><span class="muted">no numbers registered while it ran; its expectations as written in the test:</span>${lines}</td></tr>`;
   }
   const rows = p.records.map((r) =>
     r.kind === 'within'
@@ -233,7 +247,7 @@ h1{margin-bottom:.2rem}h2{margin-top:2.5rem;border-bottom:2px solid #345}h3{marg
 table{border-collapse:collapse;width:100%;margin-bottom:1rem}th,td{border:1px solid #ccd;padding:.25rem .45rem;text-align:left;vertical-align:top}
 th{background:#eef1f5}tr.head td{background:#f7f8fa}.source{color:#345;font-size:.9em;margin-top:.2rem}.where,.muted{color:#778;font-size:.85em}
 .status{display:inline-block;min-width:4.5em;font-weight:600;text-transform:uppercase;font-size:.75em}
-.passed .status{color:#176}.failed .status{color:#b00}.skipped .status{color:#886}td:not([colspan]){font-family:monospace}
+pre{margin:.3rem 0 0;white-space:pre-wrap;font-size:.85em}.passed .status{color:#176}.failed .status{color:#b00}.skipped .status{color:#886}td:not([colspan]){font-family:monospace}
 @media print{section{page-break-before:always}}
 </style></head>
 <body>

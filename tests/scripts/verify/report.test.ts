@@ -119,6 +119,7 @@ describe('verification report', () => {
     expect(html).toContain('<td>3e-12</td><td>≤ 1e-9</td>');
     expect(html).toContain('and 3 more comparisons');
     expect(html).toContain('no numbers registered');
+    expect(html).toContain('<pre>expect(sum).toBeCloseTo(0, 9); // an invariant, no source words here</pre>');
     expect(html).toContain('0.1.0 (commit abc1234)');
     expect(html).toContain('2026-12-05 18:00:00 UTC');
     expect(html).not.toMatch(/<script/i);
@@ -128,6 +129,9 @@ describe('verification report', () => {
     expect(testBody(text, 1)).toBe("it('a (b', () => {\n  // c) d\n  x(')');\n});");
     expect(sourcesInComments('// EN 1993-1-1 6.3.2\n/* nothing */\n')).toEqual(['EN 1993-1-1 6.3.2']);
     expect(sourcesInTitle('A = 53.8 cm² (EN 10365 tables, from memory) (0.5 %)')).toEqual(['EN 10365 tables, from memory']);
+    expect(sourcesInTitle('rupture: 716.6 kips (Eq. D2-2)')).toEqual(['Eq. D2-2']);
+    expect(sourcesInTitle('6.3.2 lateral-torsional buckling')).toEqual(['6.3.2 lateral-torsional buckling']);
+    expect(sourcesInTitle('refuses a model without mass')).toEqual([]);
   });
   it('writes numbers with six significant digits', () => {
     expect(num(0.1 + 0.2)).toBe('0.3');
