@@ -160,7 +160,7 @@ export function condensedSolver(sys: LinearSystem, options: FactorOptions = {}):
   });
   const Wall = new Float64Array(wOff[blocks.length]);
   const Lall = new Float64Array(lOff[blocks.length]);
-  const Aib = new Float64Array(Math.max(1, ...blocks.map((bk) => bk.ni)) * maxNb);
+  const Aib = new Float64Array(Math.max(1, ...blocks.map((bk) => bk.ni)) * maxNb), acc = new Float64Array(maxNb);
   const self: CondensedSolver = {
     nReduced: nRed,
     nnzFactor: analysis ? analysis.nnzFactor : 0,
@@ -170,20 +170,18 @@ export function condensedSolver(sys: LinearSystem, options: FactorOptions = {}):
       for (let k = 0; k < uuFull.length; k++) redValues[uuRed[k]] += A[uuFull[k]];
       // per member: L Lᵀ = A_ii, W = A_ii⁻¹ A_ib; A_red −= A_ibᵀ W
       for (let k = 0; k < blocks.length; k++) {
-        const bk = blocks[k], ni = bk.ni, nb = bk.b.length;
-        const L = Lall.subarray(lOff[k], lOff[k + 1]);
-        L.fill(0);
+        const bk = blocks[k], ni = bk.ni, nb = bk.b.length, lo = lOff[k], wo = wOff[k];
+        Lall.fill(0, lo, lo + ni * ni);
         Aib.fill(0, 0, ni * nb);
-        for (let q = 0; q < bk.iiPos.length; q++) L[bk.iiIdx[q]] += A[bk.iiPos[q]];
+        for (let q = 0; q < bk.iiPos.length; q++) Lall[lo + bk.iiIdx[q]] += A[bk.iiPos[q]];
         for (let q = 0; q < bk.ibPos.length; q++) Aib[bk.ibIdx[q]] += A[bk.ibPos[q]];
-        cholesky(L, ni, bk.first, pivotTolerance, bk.i0);
-        const W = Wall.subarray(wOff[k], wOff[k + 1]);
-        W.set(Aib.subarray(0, ni * nb));
-        cholSolve(L, ni, bk.first, W, nb);
+        cholesky(Lall, lo, ni, bk.first, pivotTolerance, bk.i0);
+        for (let q = 0; q < ni * nb; q++) Wall[wo + q] = Aib[q];
+        cholSolve(Lall, lo, ni, bk.first, Wall, wo, nb);
         for (let q = 0; q < bk.redPos.length; q++) {
           const r = bk.redRow[q], c = bk.redCol[q];
           let sum = 0;
-          for (let i = 0; i < ni; i++) sum += Aib[i * nb + r] * W[i * nb + c];
+          for (let i = 0; i < ni; i++) sum += Aib[i * nb + r] * Wall[wo + i * nb + c];
           redValues[bk.redPos[q]] -= sum;
         }
       }
@@ -207,38 +205,41 @@ export function condensedSolver(sys: LinearSystem, options: FactorOptions = {}):
       for (let c = 0; c < nrhs; c++) for (let i = 0; i < nRed; i++) Bred[c * nRed + i] = B[c * nEq + i];
       // per member: f_red −= Wᵀ f_i, g = A_ii⁻¹ f_i (in place in X)
       const X = new Float64Array(nEq * nrhs);
+      X.set(B);
       for (let k = 0; k < blocks.length; k++) {
-        const bk = blocks[k], ni = bk.ni, b = bk.b, nb = b.length, i0 = bk.i0;
-        const L = Lall.subarray(lOff[k], lOff[k + 1]);
-        const W = Wall.subarray(wOff[k], wOff[k + 1]);
+        const bk = blocks[k], ni = bk.ni, b = bk.b, nb = b.length, i0 = bk.i0, lo = lOff[k], wo = wOff[k];
         for (let c = 0; c < nrhs; c++) {
-          const o = c * nEq + i0;
-          for (let r = 0; r < nb; r++) {
-            let sum = 0;
-            for (let i = 0; i < ni; i++) sum += W[i * nb + r] * B[o + i];
-            Bred[c * nRed + b[r]] -= sum;
+          const o = c * nEq + i0, ro = c * nRed;
+          acc.fill(0, 0, nb);
+          for (let i = 0; i < ni; i++) {
+            const fi = B[o + i];
+            if (fi === 0) continue;
+            const w = wo + i * nb;
+            for (let r = 0; r < nb; r++) acc[r] += Wall[w + r] * fi;
           }
-          const g = X.subarray(o, o + ni);
-          g.set(B.subarray(o, o + ni));
-          cholSolve1(L, ni, bk.first, g);
+          for (let r = 0; r < nb; r++) Bred[ro + b[r]] -= acc[r];
+          cholSolve1(Lall, lo, ni, bk.first, X, o);
         }
       }
+      self.phase?.('solve: members');
       const Xred: Float64Array = fact ? fact.solve(Bred, nrhs) : new Float64Array(0);
+      self.phase?.('solve: reduced');
       for (let c = 0; c < nrhs; c++) for (let i = 0; i < nRed; i++) X[c * nEq + i] = Xred[c * nRed + i];
       // u_i = g − W u_b
       for (let k = 0; k < blocks.length; k++) {
-        const bk = blocks[k], ni = bk.ni, b = bk.b, nb = b.length;
-        const W = Wall.subarray(wOff[k], wOff[k + 1]);
+        const bk = blocks[k], ni = bk.ni, b = bk.b, nb = b.length, wo = wOff[k];
         for (let c = 0; c < nrhs; c++) {
           const o = c * nEq + bk.i0, ob = c * nRed;
+          for (let r = 0; r < nb; r++) acc[r] = Xred[ob + b[r]];
           for (let i = 0; i < ni; i++) {
             let sum = X[o + i];
-            for (let r = 0; r < nb; r++) sum -= W[i * nb + r] * Xred[ob + b[r]];
+            const w = wo + i * nb;
+            for (let r = 0; r < nb; r++) sum -= Wall[w + r] * acc[r];
             X[o + i] = sum;
           }
         }
       }
-      self.phase?.('solve');
+      self.phase?.('solve: members');
       return X;
     },
     solve(A: Float64Array, B: Float64Array, nrhs: number): Float64Array {
@@ -251,14 +252,14 @@ export function condensedSolver(sys: LinearSystem, options: FactorOptions = {}):
 }
 
 /**
- * In-place Cholesky of the lower triangle of L (n × n, row-major) within its skyline (row r
- * from column first[r]; the factor has no entries outside it); a small pivot throws.
+ * In-place Cholesky of the lower triangle of L (n × n, row-major from offset lo) within its
+ * skyline (row r from column first[r]; the factor has no entries outside it); a small pivot throws.
  */
-function cholesky(L: Float64Array, n: number, first: Int32Array, tol: number, eq0: number): void {
+function cholesky(L: Float64Array, lo: number, n: number, first: Int32Array, tol: number, eq0: number): void {
   for (let i = 0; i < n; i++) {
-    const fi = first[i], ri = i * n;
+    const fi = first[i], ri = lo + i * n;
     for (let j = fi; j < i; j++) {
-      const rj = j * n, k0 = fi > first[j] ? fi : first[j];
+      const rj = lo + j * n, k0 = fi > first[j] ? fi : first[j];
       let v = L[ri + j];
       for (let k = k0; k < j; k++) v -= L[ri + k] * L[rj + k];
       L[ri + j] = v / L[rj + j];
@@ -271,38 +272,38 @@ function cholesky(L: Float64Array, n: number, first: Int32Array, tol: number, eq
   }
 }
 
-/** X ← (L Lᵀ)⁻¹ X for X n × m (row-major), L within its skyline. */
-function cholSolve(L: Float64Array, n: number, first: Int32Array, X: Float64Array, m: number): void {
+/** X ← (L Lᵀ)⁻¹ X for X n × m (row-major from offset xo), L (from lo) within its skyline. */
+function cholSolve(L: Float64Array, lo: number, n: number, first: Int32Array, X: Float64Array, xo: number, m: number): void {
   for (let i = 0; i < n; i++) {
-    const ri = i * n, xi = i * m;
+    const ri = lo + i * n, xi = xo + i * m;
     for (let k = first[i]; k < i; k++) {
-      const l = L[ri + k], xk = k * m;
+      const l = L[ri + k], xk = xo + k * m;
       if (l !== 0) for (let c = 0; c < m; c++) X[xi + c] -= l * X[xk + c];
     }
     const d = L[ri + i];
     for (let c = 0; c < m; c++) X[xi + c] /= d;
   }
   for (let i = n - 1; i >= 0; i--) {
-    const ri = i * n, xi = i * m, d = L[ri + i];
+    const ri = lo + i * n, xi = xo + i * m, d = L[ri + i];
     for (let c = 0; c < m; c++) X[xi + c] /= d;
     for (let k = first[i]; k < i; k++) {
-      const l = L[ri + k], xk = k * m;
+      const l = L[ri + k], xk = xo + k * m;
       if (l !== 0) for (let c = 0; c < m; c++) X[xk + c] -= l * X[xi + c];
     }
   }
 }
 
-/** x ← (L Lᵀ)⁻¹ x for one column, L within its skyline. */
-function cholSolve1(L: Float64Array, n: number, first: Int32Array, x: Float64Array): void {
+/** x[xo..xo+n) ← (L Lᵀ)⁻¹ x for one column, L (from lo) within its skyline. */
+function cholSolve1(L: Float64Array, lo: number, n: number, first: Int32Array, x: Float64Array, xo: number): void {
   for (let i = 0; i < n; i++) {
-    const ri = i * n;
-    let v = x[i];
-    for (let k = first[i]; k < i; k++) v -= L[ri + k] * x[k];
-    x[i] = v / L[ri + i];
+    const ri = lo + i * n;
+    let v = x[xo + i];
+    for (let k = first[i]; k < i; k++) v -= L[ri + k] * x[xo + k];
+    x[xo + i] = v / L[ri + i];
   }
   for (let i = n - 1; i >= 0; i--) {
-    const ri = i * n, v = x[i] / L[ri + i];
-    x[i] = v;
-    for (let k = first[i]; k < i; k++) x[k] -= L[ri + k] * v;
+    const ri = lo + i * n, v = x[xo + i] / L[ri + i];
+    x[xo + i] = v;
+    for (let k = first[i]; k < i; k++) x[xo + k] -= L[ri + k] * v;
   }
 }

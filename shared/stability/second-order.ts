@@ -215,6 +215,7 @@ export function analyseSecondOrder(model: Model, options: SecondOrderOptions = {
     condensed.phase = (name) => sw.fine(name);
     try {
       X1 = nCases > 0 ? condensed.solve(pat.K.values, F, nCases) : X1;
+      sw.fine(`first order (${nCases} cases)`);
     } catch (err) {
       if (err instanceof CondensedInstability || err instanceof SingularMatrixError) {
         const g = eqDof[err.index];
