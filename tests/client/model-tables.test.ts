@@ -8,6 +8,7 @@ import { applyTableEditsToModel, checkCell, checkTableEdits, modelTablesView } f
 import type { Model } from '../../shared/model/types.js';
 import { problemIndex, shownRows, withEdit } from '../../src/components/model/tableRows.js';
 import { useModelTablesStore } from '../../src/stores/modelTables.js';
+import { buildSketch, project } from '../../src/components/model/sketch.js';
 import { CSV } from '../server/models/fixture.js';
 
 function demo(files: Record<string, string> = CSV): Model {
@@ -121,5 +122,29 @@ describe('model tables store', () => {
     expect(patch.url).toBe('/api/models/7/tables');
     expect(patch.body).toEqual({ baseVersion: 1, edits: [{ action: 'change', table: 'member_loads', row: 1, column: 'w1', value: -7.5 }] });
     expect(store.editCount).toBe(0);
+  });
+});
+
+describe('model sketch before a run', () => {
+  it('draws members, supports by kind and the loads of one case pointing the way they act', () => {
+    const view = modelTablesView(demo(), 1, 1);
+    const sketch = buildSketch(view.tables, 'D', 'XY', 900, 520);
+    expect(sketch.nodes.map((n) => n.id)).toEqual(['N1', 'N2', 'N3']);
+    expect(sketch.members).toHaveLength(2);
+    // fixture supports: N1 ux, uy (pinned in the plane), N2 and N3 uy only (rollers)
+    expect(sketch.supports.map((s) => s.kind)).toEqual(['pinned', 'roller', 'roller']);
+    // case D: two uniform loads along −global_y, three arrows each, pointing down the screen
+    expect(sketch.arrows).toHaveLength(6);
+    expect(sketch.arrows.every((a) => a.dy > 0 && Math.abs(a.dx) < 1e-12)).toBe(true);
+    // +x runs to the right in a plane frame (not mirrored)
+    expect(sketch.nodes[2].x).toBeGreaterThan(sketch.nodes[0].x);
+    expect(buildSketch(view.tables, null, 'XY').arrows).toHaveLength(0);
+  });
+
+  it('projects a plane frame face-on with +x to the right and the vertical axis up', () => {
+    expect(project([1, 0, 0], 'XZ', 'Z')).toEqual([1, -0]);
+    expect(project([0, 0, 2], 'XZ', 'Z')).toEqual([0, -2]);
+    const [, up] = project([0, 0, 1], null, 'Z');
+    expect(up).toBeLessThan(0);
   });
 });
