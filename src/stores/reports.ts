@@ -3,7 +3,6 @@ import { defineStore } from 'pinia';
 import { computed, ref } from 'vue';
 import type { ReportJob, StartReportInput } from '../../shared/schemas/reports.js';
 import { getReport, reportFileUrl, startReport } from '../api/reports.js';
-import { getRunMembers } from '../api/runs.js';
 import { errorMessage } from '../utils/format.js';
 
 /** Poll interval while a package is written (ms). */
@@ -11,9 +10,6 @@ export const REPORT_POLL_MS = 400;
 
 export const useReportsStore = defineStore('reports', () => {
   const job = ref<ReportJob | null>(null);
-  const memberIds = ref<string[]>([]);
-  const failCount = ref(0);
-  const loading = ref(false);
   const writing = ref(false);
   const error = ref<string | null>(null);
 
@@ -26,20 +22,6 @@ export const useReportsStore = defineStore('reports', () => {
     const part = j.total ? j.done / j.total : 1;
     return j.phase === 'gathering' ? part / 2 : 0.5 + part / 2;
   });
-
-  async function loadMembers(runId: number): Promise<void> {
-    loading.value = true;
-    error.value = null;
-    try {
-      const res = await getRunMembers(runId);
-      memberIds.value = res.members.map((m) => m.member);
-      failCount.value = res.counts.fail;
-    } catch (err) {
-      error.value = errorMessage(err);
-    } finally {
-      loading.value = false;
-    }
-  }
 
   async function generate(runId: number, input: StartReportInput): Promise<void> {
     writing.value = true;
@@ -64,5 +46,5 @@ export const useReportsStore = defineStore('reports', () => {
     error.value = null;
   }
 
-  return { job, memberIds, failCount, loading, writing, error, fileUrl, progress, loadMembers, generate, reset };
+  return { job, writing, error, fileUrl, progress, generate, reset };
 });
