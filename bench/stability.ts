@@ -61,7 +61,9 @@ export async function benchStability(opts: { all: boolean }): Promise<void> {
 
   benchModes('frame 10×10×30', m, 3000);
 
-  type SecondOrder = (model: Model, o: { secondOrderLoadings: string[] }) => { loadings: { iterations: number }[] };
+  type SecondOrder = (
+    model: Model, o: { secondOrderLoadings: string[]; clock?: { now: () => number; timings: Record<string, number> } },
+  ) => { loadings: { iterations: number }[]; analysis: { diagnostics: { freedoms: number; nnzFactor: number } } };
   let secondOrder: SecondOrder | undefined;
   try {
     secondOrder = (await import('../shared/stability/second-order.js')).analyseSecondOrder as never;
@@ -70,9 +72,13 @@ export async function benchStability(opts: { all: boolean }): Promise<void> {
   }
   if (secondOrder) {
     const run: SecondOrder = secondOrder;
-    const s = timed(() => run(m, { secondOrderLoadings: ids }));
+    const clock = { now: cpuNow, timings: {} as Record<string, number> };
+    const s = timed(() => run(m, { secondOrderLoadings: ids, clock }));
     const its = s.value.loadings.map((l: { iterations: number }) => l.iterations);
+    const sd = s.value.analysis.diagnostics;
     console.log(`  second order of ${ids.length} strength combinations  CPU ${s.cpu.toFixed(0)} ms, wall ${s.wall.toFixed(0)} ms (target ≤ 20000 ms); iterations ${Math.min(...its)}–${Math.max(...its)}`);
+    console.log(`    freedoms ${sd.freedoms} (factor of the condensed system: ${sd.nnzFactor} nonzeros)`);
+    console.log(`    phases (CPU ms): ${phases(clock.timings)}`);
   } else {
     console.log('  second order: shared/stability/second-order.ts not present, skipped');
   }

@@ -7,7 +7,11 @@
  *
  * The engine numbers the user's nodes first (shared/engine/assembly.ts numberEquations), so a
  * user freedom keeps its equation number in the reduced system. Dense work per member: a
- * Cholesky factorisation of its internal block (6 × (sub-elements − 1) freedoms at most).
+ * Cholesky factorisation of its internal block (6 × (sub-elements − 1) freedoms at most),
+ * within the block's skyline (block-tridiagonal along the member). The members' factors and W
+ * are kept, so solveFactored can apply the last factorisation again (the second-order
+ * iteration's preconditioned steps); the reduced system is refactorised into the memory of its
+ * previous factor with the ordering and symbolic analysis of the first.
  * A member whose internal block is not positive definite buckles between its ends even with
  * them held: that is reported as an InternalInstability, as is a reduced matrix that is not.
  */

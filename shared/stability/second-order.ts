@@ -7,11 +7,24 @@
  * - P-Δ and P-δ: every prismatic frame member is split into `subdivisions` sub-elements
  *   (internal nodes), so the curvature between a member's ends enters K_G; the member forces
  *   at stations come from the statics of the deformed member (p-delta.ts).
- * - Iteration: N⁰ from the first-order solution of the loading; then factorise K + K_G(Nᵏ),
- *   solve, recompute the element axial forces Nᵏ⁺¹; stop when max|Nᵏ⁺¹ − Nᵏ| ≤ tolerance ·
- *   max|Nᵏ⁺¹|. Each solve condenses every member's internal nodes out exactly (condensation.ts)
- *   and factorises a system of the user's nodes only; its ordering and symbolic factorisation
- *   are done once for all loadings.
+ * - Iteration: N⁰ from the first-order solution of the loading; then solve (K + K_G(Nᵏ)) X = F,
+ *   recompute the element axial forces Nᵏ⁺¹; stop when max|Nᵏ⁺¹ − Nᵏ| ≤ tolerance ·
+ *   max|Nᵏ⁺¹|. The first iteration of a loading factorises K + K_G(N⁰); the later ones are
+ *   preconditioned steps X += P⁻¹ (F − (K + K_G(Nᵏ)) X) with that factorisation P (K_G·X element
+ *   by element, geometric.ts geometricProduct), which converge to the same fixed point: P differs
+ *   from K + K_G(Nᵏ) only by the geometric stiffness of the second-order change of N. A step
+ *   whose change of N is above SLOW_CONTRACTION of the previous one makes the next iteration
+ *   factorise again. After the last step X is refined against K + K_G(N used) to a relative
+ *   residual of 1e-13, so results agree with a factorisation at every iteration to rounding
+ *   (test: within 1e-9). Each factorisation condenses every member's internal nodes out exactly
+ *   (condensation.ts) and refactorises a system of the user's nodes only into the same memory;
+ *   its ordering and symbolic analysis are done once for all loadings.
+ * - Positive definiteness: a loading's factorisation at N⁰ checks K + K_G(N⁰); at the final axial
+ *   forces K + K_G(N) is factorised again (and so checked) when the iteration did not converge
+ *   or its last steps contracted by less than CONFIRM_RATIO (a loading near its critical load:
+ *   the second-order change of N is then no longer small). A loading whose N⁰ is stable but
+ *   whose converged N is not, and whose iteration still contracted fast, is not caught: a gap
+ *   left open (it needs αcr at N⁰ just above 1 and a buckling mode the loading does not excite).
  * - Equilibrium diagnostics of a second-order loading are taken on the displaced geometry
  *   (loads and reactions at the displaced nodes); what remains is of the order of the
  *   rotations squared (the geometric stiffness is linearised).
