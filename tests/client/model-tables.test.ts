@@ -139,6 +139,10 @@ describe('model sketch before a run', () => {
     // +x runs to the right in a plane frame (not mirrored)
     expect(sketch.nodes[2].x).toBeGreaterThan(sketch.nodes[0].x);
     expect(buildSketch(view.tables, null, 'XY').arrows).toHaveLength(0);
+    // a horizontal member along +x with Y vertical: local x along +x (right), local z = +Y (conventions.md), up the screen
+    const [x, , z] = sketch.members[0].axes!;
+    expect(x[0]).toBeCloseTo(1, 12);
+    expect(z[1]).toBeCloseTo(-1, 12);
   });
 
   it('projects a plane frame face-on with +x to the right and the vertical axis up', () => {

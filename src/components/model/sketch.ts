@@ -4,10 +4,12 @@
  * supports by kind, and the loads of one case as arrows. Pure, tested without mounting.
  */
 import type { ModelTable, TableCell } from '../../../shared/schemas/models.js';
+import { localAxes } from '../../../shared/engine/axes.js';
 
 export type Plane = 'XY' | 'XZ' | 'YZ' | null;
 export interface SketchNode { id: string; x: number; y: number }
-export interface SketchMember { id: string; a: SketchNode; b: SketchNode }
+/** `axes`: screen directions of local x, y, z (unit length; a zero vector points at the viewer) */
+export interface SketchMember { id: string; a: SketchNode; b: SketchNode; axes: [number, number][] | null }
 export interface SketchSupport { node: SketchNode; kind: 'fixed' | 'pinned' | 'roller' }
 export interface SketchArrow { x: number; y: number; dx: number; dy: number; label: string }
 export interface Sketch { nodes: SketchNode[]; members: SketchMember[]; supports: SketchSupport[]; arrows: SketchArrow[]; width: number; height: number }
@@ -38,7 +40,8 @@ export function buildSketch(tables: ModelTable[], loadCase: string | null, plane
   const t = (name: string) => tables.find((x) => x.name === name);
   const settings = Object.fromEntries(cellsBy(t('settings')).map((r) => [String(r.key), r.value]));
   const vertical = settings.vertical_axis === 'Z' ? 'Z' : 'Y';
-  const raw = cellsBy(t('nodes')).map((r) => ({ id: String(r.node), p: project([num(r.x), num(r.y), num(r.z)], plane, vertical) }));
+  const raw = cellsBy(t('nodes')).map((r) => ({ id: String(r.node), g: [num(r.x), num(r.y), num(r.z)] as [number, number, number], p: project([num(r.x), num(r.y), num(r.z)], plane, vertical) }));
+  const global = new Map(raw.map((n) => [n.id, n.g]));
   const xs = raw.map((n) => n.p[0]);
   const ys = raw.map((n) => n.p[1]);
   const [x0, x1, y0, y1] = [Math.min(...xs, 0), Math.max(...xs, 0), Math.min(...ys, 0), Math.max(...ys, 0)];
@@ -48,10 +51,27 @@ export function buildSketch(tables: ModelTable[], loadCase: string | null, plane
   const oy = (height - k * (y1 - y0)) / 2;
   const nodes = raw.map((n) => ({ id: n.id, x: ox + k * (n.p[0] - x0), y: oy + k * (n.p[1] - y0) }));
   const byId = new Map(nodes.map((n) => [n.id, n]));
+  const screenDir = (d: readonly number[]): [number, number] => {
+    const [px, py] = project([d[0], d[1], d[2]], plane, vertical);
+    const [qx, qy] = project([0, 0, 0], plane, vertical);
+    const l = Math.hypot(px - qx, py - qy);
+    return l > 1e-9 ? [(px - qx) / l, (py - qy) / l] : [0, 0];
+  };
+  // the engine's local axes (conventions.md): rows of R are local x, y, z in global axes
+  const rows = new Map<string, Float64Array>();
   const members = cellsBy(t('members')).flatMap((r) => {
     const a = byId.get(String(r.start));
     const b = byId.get(String(r.end));
-    return a && b ? [{ id: String(r.member), a, b }] : [];
+    if (!a || !b) return [];
+    let axes: [number, number][] | null = null;
+    try {
+      const R = localAxes(global.get(String(r.start))!, global.get(String(r.end))!, (num(r.roll) * Math.PI) / 180, vertical);
+      rows.set(String(r.member), R);
+      axes = [0, 1, 2].map((i) => screenDir([R[3 * i], R[3 * i + 1], R[3 * i + 2]]));
+    } catch {
+      axes = null;
+    }
+    return [{ id: String(r.member), a, b, axes }];
   });
   const supports = cellsBy(t('supports')).flatMap((r) => {
     const node = byId.get(String(r.node));
@@ -63,12 +83,6 @@ export function buildSketch(tables: ModelTable[], loadCase: string | null, plane
     return [{ node, kind: (rot && trans === 3 ? 'fixed' : trans >= (plane ? 2 : 3) ? 'pinned' : 'roller') as SketchSupport['kind'] }];
   });
   const arrows: SketchArrow[] = [];
-  const screenDir = (d: [number, number, number]): [number, number] => {
-    const [px, py] = project(d, plane, vertical);
-    const [qx, qy] = project([0, 0, 0], plane, vertical);
-    const l = Math.hypot(px - qx, py - qy);
-    return l > 1e-9 ? [(px - qx) / l, (py - qy) / l] : [0, 0];
-  };
   if (loadCase !== null) {
     for (const r of cellsBy(t('node_loads'))) {
       if (String(r.case) !== loadCase) continue;
@@ -88,12 +102,10 @@ export function buildSketch(tables: ModelTable[], loadCase: string | null, plane
       const dir = String(r.direction ?? '');
       const ax = dir.slice(-1);
       let d: [number, number];
-      if (dir.startsWith('local')) {
-        // drawn across the member in the picture (its local axes depend on roll: shown as text)
-        const lx = m.b.x - m.a.x;
-        const ly = m.b.y - m.a.y;
-        const l = Math.hypot(lx, ly) || 1;
-        d = ax === 'x' ? [lx / l, ly / l] : [ly / l, -lx / l];
+      const R = rows.get(m.id);
+      if (dir.startsWith('local') && R) {
+        const i = ax === 'x' ? 0 : ax === 'y' ? 1 : 2;
+        d = screenDir([R[3 * i], R[3 * i + 1], R[3 * i + 2]]);
       } else d = screenDir(DIRS[ax] ?? [0, 1, 0]);
       const along = String(r.kind) === 'point' || String(r.kind) === 'moment' ? [0.5] : [0.2, 0.5, 0.8];
       for (const s of along) {
