@@ -86,7 +86,7 @@ describe.skipIf(!enabled)('model tab in the browser', () => {
     await input.fill('-3.25');
     await input.press('Enter');
     await expect.poll(() => page.locator('[data-test=tables-pending-count]').textContent()).toBe('1');
-    expect(await w1.getAttribute('class')).toContain('table-cell-changed');
+    await expect.poll(() => w1.getAttribute('class')).toContain('table-cell-changed');
     await screenshot(page, 'model-tab-04-pending');
 
     await page.locator('[data-test=tables-save]').click();
