@@ -10,7 +10,7 @@ import { buildExport, planRunExport } from '../exports/export.service.js';
 import { exportGate } from '../exports/export-gate.js';
 import { currentUser, requireRole } from '../middleware/auth.js';
 import { parseId } from '../middleware/params.js';
-import { runPool } from './worker-pool.js';
+import { exportPool, resultsPool, runPool } from './worker-pool.js';
 import { projectGuards } from '../membership/project-access.js';
 import { compareRuns, getMemberDetail, getRun, getRunGeometry, getRunMembers, getRunShape, recoverInterruptedRuns } from './run.service.js';
 import { planStabilityExport } from './stability-export.js';
@@ -24,7 +24,12 @@ export function runsRouter({ dataSource, logger }: AppContext): Router {
   const router = Router();
   const guard = projectGuards(dataSource);
   void recoverInterruptedRuns(dataSource, logger);
-  if (process.env.NODE_ENV !== 'test') void runPool().warm();
+  if (process.env.NODE_ENV !== 'test') {
+    // threads load their modules at boot, not on the first run, export or grid load
+    void runPool().warm();
+    void exportPool().warm();
+    void resultsPool().warm();
+  }
 
   router.get('/compare', requireRole(...RUN_READERS), guard.runsInQuery('a', 'b'), async (req, res) => {
     const a = text(req.query.a);
