@@ -72,10 +72,19 @@ class Layout {
     for (const f of [...this.faces[400], ...this.faces[700]]) this.doc.registerFont(f.name, f.data);
   }
 
+  /** widths at size 1 by weight and text (labels repeat on every page and record) */
+  private readonly widths = new Map<string, number>();
+
   width(text: string, size = 9, weight: Weight = 400): number {
-    let w = 0;
-    for (const run of fontRuns(text, this.faces[weight])) w += this.doc.font(run.face.name).fontSize(size).widthOfString(run.text);
-    return w;
+    const key = `${weight}\u0000${text}`;
+    let unit = this.widths.get(key);
+    if (unit === undefined) {
+      unit = 0;
+      for (const run of fontRuns(text, this.faces[weight])) unit += this.doc.font(run.face.name).fontSize(1).widthOfString(run.text);
+      if (this.widths.size > 50_000) this.widths.clear();
+      this.widths.set(key, unit);
+    }
+    return unit * size;
   }
 
   /** One line of text at (x, y); no wrapping, no page break. Returns its width. */
