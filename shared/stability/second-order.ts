@@ -401,9 +401,9 @@ function solveLoading(
     pl ??= new Float64Array(nDofAll);
     for (let g = 0; g < nDofAll; g++) pl[g] += factor * scale * u[g];
   }
-  const fefCache = new Map<number, Float64Array | null>();
+  const fefCache: (Float64Array | null | undefined)[] = new Array(mesh.nElements);
   const fef = (e: number): Float64Array | undefined => {
-    let f = fefCache.get(e);
+    let f = fefCache[e];
     if (f === undefined) {
       f = null;
       const mi = mesh.elMember[e];
@@ -414,7 +414,7 @@ function solveLoading(
         f ??= new Float64Array(12);
         for (let i = 0; i < 12; i++) f[i] += factor * scale * fc[i];
       }
-      fefCache.set(e, f);
+      fefCache[e] = f;
     }
     return f ?? undefined;
   };
@@ -661,9 +661,9 @@ function displacedTotals(model: Model, sys: LinearSystem, ld: Loading, s: Solved
     const f = loaded ? s.fef(e) : undefined;
     if (!f) continue;
     vecToGlobal12(mesh.members[mi].R, f, fg);
-    for (const [g, o] of [[mesh.elStart[e] * 6, 0], [mesh.elEnd[e] * 6, 6]]) {
-      addCross(a, u[g] * inv, u[g + 1] * inv, u[g + 2] * inv, -fg[o] * inv, -fg[o + 1] * inv, -fg[o + 2] * inv);
-    }
+    const g0 = mesh.elStart[e] * 6, g1 = mesh.elEnd[e] * 6;
+    addCross(a, u[g0] * inv, u[g0 + 1] * inv, u[g0 + 2] * inv, -fg[0] * inv, -fg[1] * inv, -fg[2] * inv);
+    addCross(a, u[g1] * inv, u[g1 + 1] * inv, u[g1 + 2] * inv, -fg[6] * inv, -fg[7] * inv, -fg[8] * inv);
   }
   const c = mesh.coords, R = s.R;
   for (let n = 0; n < mesh.nNodes; n++) {
