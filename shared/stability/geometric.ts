@@ -113,8 +113,40 @@ export function geometricScratch(): GeometricScratch {
 /** Global 12×12 geometric stiffness (row-major) of mesh element e for axial force N into kg at off. */
 export function elementGeometricGlobal(mesh: Mesh, e: number, N: number, kg: Float64Array, off: number, s: GeometricScratch): void {
   const m = mesh.members[mesh.elMember[e]];
+  if (mesh.elRel[e] === 0 || m.truss) {
+    unreleasedGeometricGlobal(N, mesh.elL[e], m.truss, m.R, kg, off);
+    return;
+  }
   localGeometricStiffness(N, mesh.elL[e], m.truss, elementReleases(mesh.elRel[e]), s.kl);
   toGlobalStiffness(s.kl, m.R, kg, s.tmp, off);
+}
+
+/**
+ * The rotated local matrix in closed form, for an element without releases: with x the
+ * element axis (global), Q = I − x xᵀ and M r = r × x (the local [0, θz, −θy] couplings),
+ * blocks on (t1, r1, t2, r2): tt ±(6/5)(N/L)·Q, tr ±(N/10)·M, r1r1 = r2r2 = (2L/15)N·Q,
+ * r1r2 = −(L/30)N·Q; a truss only ±(N/L)·Q on the translations.
+ */
+function unreleasedGeometricGlobal(N: number, L: number, truss: boolean, R: ArrayLike<number>, kg: Float64Array, off: number): void {
+  kg.fill(0, off, off + 144);
+  if (N === 0) return;
+  const x0 = R[0], x1 = R[1], x2 = R[2], c = N / L;
+  const a = truss ? c : (6 / 5) * c, b = (L / 10) * c, d = ((2 * L * L) / 15) * c, e = (-(L * L) / 30) * c;
+  const x = [x0, x1, x2];
+  const M = [0, x2, -x1, -x2, 0, x0, x1, -x0, 0];
+  for (let i = 0; i < 3; i++) {
+    for (let j = 0; j < 3; j++) {
+      const q = (i === j ? 1 : 0) - x[i] * x[j];
+      const t1 = off + i * 12, t2 = off + (6 + i) * 12;
+      kg[t1 + j] = a * q; kg[t1 + 6 + j] = -a * q; kg[t2 + j] = -a * q; kg[t2 + 6 + j] = a * q;
+      if (truss) continue;
+      const r1 = off + (3 + i) * 12, r2 = off + (9 + i) * 12;
+      kg[r1 + 3 + j] = d * q; kg[r2 + 9 + j] = d * q; kg[r1 + 9 + j] = e * q; kg[r2 + 3 + j] = e * q;
+      const bm = b * M[i * 3 + j];
+      kg[t1 + 3 + j] = bm; kg[t1 + 9 + j] = bm; kg[t2 + 3 + j] = -bm; kg[t2 + 9 + j] = -bm;
+      kg[off + (3 + j) * 12 + i] = bm; kg[off + (9 + j) * 12 + i] = bm; kg[off + (3 + j) * 12 + 6 + i] = -bm; kg[off + (9 + j) * 12 + 6 + i] = -bm;
+    }
+  }
 }
 
 /**
