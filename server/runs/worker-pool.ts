@@ -12,8 +12,14 @@ import { Worker } from 'node:worker_threads';
 import type { RunPhase } from '../../shared/schemas/runs.js';
 import type { TaskResult, WorkerReply, WorkerTask } from './worker-protocol.js';
 
+/** How long a task waits for the busy worker that holds its run's analysis before another re-analyses. */
+const HOLDER_WAIT_MS = 3000;
+/** Tasks that work on a run's analysis (an export needs it for member forces and recomputed checks). */
+const USES_ANALYSIS = new Set<WorkerTask['kind']>(['member', 'forces', 'checks', 'export']);
+
 interface Pending {
   id: number;
+  queuedAt: number;
   task: WorkerTask;
   onStart?: () => void;
   onPhase?: (phase: RunPhase) => void;
@@ -45,6 +51,7 @@ export class WorkerPool {
   private readonly queue: Pending[] = [];
   private nextId = 1;
   private closed = false;
+  private retry: ReturnType<typeof setTimeout> | null = null;
 
   constructor(readonly size = Math.max(1, Math.min(2, os.availableParallelism?.() ?? os.cpus().length))) {
     for (let i = 0; i < size; i++) this.slots.push({ worker: null, busy: null, runs: [] });
@@ -73,7 +80,7 @@ export class WorkerPool {
   run<T extends WorkerTask>(task: T, hooks: TaskHooks = {}): Promise<TaskResult<T>> {
     if (this.closed) return Promise.reject(new Error('the worker pool is closed'));
     return new Promise((resolve, reject) => {
-      this.queue.push({ id: this.nextId++, task, ...hooks, resolve: resolve as (v: unknown) => void, reject });
+      this.queue.push({ id: this.nextId++, queuedAt: Date.now(), task, ...hooks, resolve: resolve as (v: unknown) => void, reject });
       this.pump();
     });
   }
@@ -84,11 +91,23 @@ export class WorkerPool {
   }
 
   private pump(): void {
-    while (this.queue.length > 0) {
+    for (let i = 0; i < this.queue.length; ) {
       const idle = this.slots.filter((s) => !s.busy);
       if (idle.length === 0) return;
-      const next = this.queue.shift()!;
-      const slot = idle.find((s) => s.runs.includes(next.task.runId)) ?? idle[0];
+      const next = this.queue[i];
+      // a task that needs a run's analysis waits a little for the busy worker holding it
+      // rather than re-analysing the model on an idle one (HOLDER_WAIT_MS at most)
+      const holder = USES_ANALYSIS.has(next.task.kind) ? this.slots.find((s) => s.runs.includes(next.task.runId)) : undefined;
+      if (holder?.busy && Date.now() - next.queuedAt < HOLDER_WAIT_MS) {
+        if (!this.retry) this.retry = setTimeout(() => {
+          this.retry = null;
+          this.pump();
+        }, HOLDER_WAIT_MS).unref();
+        i++;
+        continue;
+      }
+      this.queue.splice(i, 1);
+      const slot = holder && !holder.busy ? holder : idle.find((s) => s.runs.includes(next.task.runId)) ?? idle[0];
       slot.busy = next;
       slot.runs = [...slot.runs.filter((r) => r !== next.task.runId), next.task.runId].slice(-2);
       next.onStart?.();
@@ -139,6 +158,7 @@ export class WorkerPool {
 
   async close(): Promise<void> {
     this.closed = true;
+    if (this.retry) clearTimeout(this.retry);
     for (const p of this.queue.splice(0)) p.reject(new Error('the server is shutting down'));
     await Promise.all(this.slots.map((s) => s.worker?.terminate()));
   }
