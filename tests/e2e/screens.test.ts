@@ -112,6 +112,8 @@ describe.skipIf(!enabled)('working screens in the browser', () => {
     await page.locator('[data-test=run-model]').click();
     await page.locator('[data-test=results-caption]').waitFor();
     await expect.poll(() => rowCount(page, '[data-test=results-grid]')).toBe(2);
+    // the model's members are listed at once; their results follow from the results worker
+    await expect.poll(() => cell(page, 'M1', 'ratio').textContent(), { timeout: 30_000 }).toMatch(/^\d/);
     const ratio = await cell(page, 'M1', 'ratio').textContent();
     expect(Number(ratio)).toBeGreaterThan(0);
     expect(await page.locator('[data-test=count-shown]').textContent()).toContain('2 of 2');
@@ -152,6 +154,7 @@ describe.skipIf(!enabled)('working screens in the browser', () => {
 
     await page.locator('[data-test=run-model]').click();
     await expect.poll(() => cell(page, 'M1', 'delta').textContent(), { timeout: 60_000 }).toMatch(/^[−+]\d/);
+    await expect.poll(() => cell(page, 'M1', 'ratio').textContent(), { timeout: 30_000 }).toMatch(/^\d/);
     const after = Number(await cell(page, 'M1', 'ratio').textContent());
     expect(after).toBeLessThan(before); // a deeper section with the same loads: lower utilisation (closed form: M/W with larger W)
     expect(await cell(page, 'M1', 'delta').textContent()).toBe(`−${(before - after).toFixed(3)}`.replace(/−(\d+\.\d{3})$/, (_m, d) => `−${d}`));
