@@ -25,7 +25,11 @@ export function localAxes(
   const cosUp = x0 * up[0] + x1 * up[1] + x2 * up[2];
   let z0: number, z1: number, z2: number;
   if (Math.abs(cosUp) >= Math.cos(VERTICAL_TOLERANCE)) {
-    z0 = 1; z1 = 0; z2 = 0; // vertical member: local z = global +X
+    // vertical member: local z = global +X, made perpendicular to x (a member leaning by less
+    // than the tolerance has x0 ≠ 0; without this the rotation would not be orthonormal)
+    z0 = 1 - x0 * x0; z1 = -x0 * x1; z2 = -x0 * x2;
+    const n = Math.hypot(z0, z1, z2);
+    z0 /= n; z1 /= n; z2 /= n;
   } else {
     z0 = up[0] - cosUp * x0;
     z1 = up[1] - cosUp * x1;

@@ -192,3 +192,15 @@ describe('invariants', () => {
     ), { numRuns: 50 });
   });
 });
+
+describe('local axes of a member leaning less than the vertical tolerance', () => {
+  it('are orthonormal (a rotation), with local z as close to global +X as the member allows', () => {
+    // conventions.md: local x within 0.001 rad of vertical → local z = global +X; here the member
+    // leans 1e-8 rad, so z must be +X made perpendicular to x. Orthonormal to 1e-15 (rounding).
+    const R = localAxes([0, 0, 0], [1.0416666666666669e-9, 0, 0.10000000000000002], 0, 'Z');
+    const row = (i: number) => [R[3 * i], R[3 * i + 1], R[3 * i + 2]];
+    const dot = (a: number[], b: number[]) => a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
+    for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) expect(Math.abs(dot(row(i), row(j)) - (i === j ? 1 : 0))).toBeLessThan(1e-15);
+    expect(row(2)[0]).toBeGreaterThan(1 - 1e-15);
+  });
+});
