@@ -321,3 +321,13 @@ export async function screenshotOpenPages(app: TrestleApp, prefix: string): Prom
 export function slug(text: string): string {
   return text.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 60);
 }
+
+/** Writes each named CSV text into dir (created if missing); returns the file paths, for an upload. */
+export function writeCsvs(dir: string, files: Record<string, string>): string[] {
+  mkdirSync(dir, { recursive: true });
+  return Object.entries(files).map(([name, text]) => {
+    const file = path.join(dir, name);
+    writeFileSync(file, text);
+    return file;
+  });
+}

@@ -10,7 +10,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { apiFromPage, ARTIFACTS_DIR, chromiumAvailable, screenshot, signIn, startApp, stopApp, type TrestleApp } from './harness.js';
+import { apiFromPage, ARTIFACTS_DIR, chromiumAvailable, screenshot, signIn, startApp, stopApp, type TrestleApp, writeCsvs } from './harness.js';
 
 const enabled = chromiumAvailable('screens');
 
@@ -34,15 +34,6 @@ const CSV: Record<string, string> = {
   'member_loads.csv': 'case,member,kind,direction,w1\nD,M1,uniform,global_y,-5\nD,M2,uniform,global_y,-5\nL,M1,uniform,global_y,-12\nL,M2,uniform,global_y,-12\n',
   'combinations.csv': 'combination,case,factor,limit_state\nULS,D,1.35,strength\nULS,L,1.5,strength\nSLS,D,1,service\nSLS,L,1,service\n',
 };
-
-function writeCsvs(dir: string, files: Record<string, string>): string[] {
-  mkdirSync(dir, { recursive: true });
-  return Object.entries(files).map(([name, text]) => {
-    const file = path.join(dir, name);
-    writeFileSync(file, text);
-    return file;
-  });
-}
 
 /** The grid cell of a member's row in a column (pinned or not). */
 function cell(page: Page, member: string, colId: string) {

@@ -5,12 +5,12 @@
  * modes table), draw mode 1 in the picture and let it swing, and read the member detail's
  * statement of which analysis its diagrams come from. Screenshots in test-artifacts/.
  */
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { apiFromPage, chromiumAvailable, screenshot, signIn, startApp, stopApp, type TrestleApp } from './harness.js';
+import { apiFromPage, chromiumAvailable, screenshot, signIn, startApp, stopApp, type TrestleApp, writeCsvs } from './harness.js';
 
 const enabled = chromiumAvailable('stability');
 
@@ -30,15 +30,6 @@ const CSV: Record<string, string> = {
   'node_loads.csv': 'case,node,fx [kN]\nW,B,10\n',
   'combinations.csv': 'combination,case,factor,limit_state\nULS-1,G,1.35,strength\nULS-1,W,1.5,strength\nULS-2,G,1.35,strength\nSLS-1,G,1,service\n',
 };
-
-function writeCsvs(dir: string, files: Record<string, string>): string[] {
-  mkdirSync(dir, { recursive: true });
-  return Object.entries(files).map(([name, text]) => {
-    const file = path.join(dir, name);
-    writeFileSync(file, text);
-    return file;
-  });
-}
 
 describe.skipIf(!enabled)('stability results in the browser', () => {
   let app: TrestleApp;
