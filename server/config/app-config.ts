@@ -14,7 +14,7 @@ export interface AppConfig {
   loginRateWindowMs: number;
   /** Express `trust proxy` (true behind one reverse proxy). */
   trustProxy: boolean;
-  /** Folder of the built client (`dist/`). */
+  /** Folder of the built client (`CLIENT_DIST`, default `dist/`). */
   distDir: string;
   /** Folder for the database and other files. */
   dataDir: string;
@@ -30,7 +30,7 @@ export function appConfigFromEnv(env: Env, jwtSecret: string): AppConfig {
     loginRateLimit: env.LOGIN_RATE_LIMIT,
     loginRateWindowMs: env.LOGIN_RATE_WINDOW_MINUTES * 60_000,
     trustProxy: env.TRUST_PROXY,
-    distDir: path.resolve('dist'),
+    distDir: path.resolve(env.CLIENT_DIST),
     dataDir: path.resolve(env.DATA_DIR),
     production,
   };

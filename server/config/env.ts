@@ -41,6 +41,7 @@ const envSchema = z
     PORT: z.coerce.number({ message: 'must be a port number' }).int('must be a whole number').min(0).max(65535).default(3000),
     HOST: z.string().min(1).optional(),
     DATA_DIR: z.string().min(1).default('./data'),
+    CLIENT_DIST: z.string().min(1).default('./dist'),
     JWT_SECRET: z.string().min(32, 'must be at least 32 characters').optional(),
     SESSION_HOURS: z.coerce.number({ message: 'must be a number of hours' }).positive().max(24 * 90).default(12),
     COOKIE_SECURE: bool.optional(),

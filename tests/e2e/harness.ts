@@ -61,11 +61,14 @@ export function clientSourceHash(root = ROOT): string {
 }
 
 const STAMP = '.source-hash';
+/** Where the client is built and served from (CLIENT_DIST lets parallel work trees of one checkout build their own). */
+export const DIST_DIR = path.resolve(ROOT, process.env.CLIENT_DIST ?? 'dist');
 
 /** True when dist/ is missing or was built from other sources than the current ones. */
 export function clientIsStale(root = ROOT): boolean {
-  const stamp = path.join(root, 'dist', STAMP);
-  if (!existsSync(path.join(root, 'dist', 'index.html')) || !existsSync(stamp)) return true;
+  const dist = path.resolve(root, process.env.CLIENT_DIST ?? 'dist');
+  const stamp = path.join(dist, STAMP);
+  if (!existsSync(path.join(dist, 'index.html')) || !existsSync(stamp)) return true;
   return readFileSync(stamp, 'utf8').trim() !== clientSourceHash(root);
 }
 
@@ -78,9 +81,9 @@ export function ensureClientBuilt(): void {
   if (process.env.E2E_REBUILD !== '1' && !clientIsStale()) return;
   const hash = clientSourceHash();
   const vite = path.join(path.dirname(require.resolve('vite/package.json')), 'bin', 'vite.js');
-  const result = spawnSync(process.execPath, [vite, 'build', '--logLevel', 'warn'], { cwd: ROOT, encoding: 'utf8' });
+  const result = spawnSync(process.execPath, [vite, 'build', '--logLevel', 'warn', '--outDir', DIST_DIR, '--emptyOutDir'], { cwd: ROOT, encoding: 'utf8' });
   if (result.status !== 0) throw new Error(`vite build failed:\n${result.stdout}\n${result.stderr}`);
-  writeFileSync(path.join(ROOT, 'dist', STAMP), hash + '\n');
+  writeFileSync(path.join(DIST_DIR, STAMP), hash + '\n');
 }
 
 async function freePort(): Promise<number> {
