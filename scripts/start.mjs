@@ -1,27 +1,23 @@
-// `npm start`: build the client when dist/index.html is missing, then run the server with tsx.
-// Plain Node (no shell), so it behaves the same on Linux, macOS and Windows.
-import { spawn, spawnSync } from 'node:child_process';
-import { existsSync } from 'node:fs';
+// `npm start`: build the client when the one in CLIENT_DIST (default ./dist) is missing or was
+// built from other sources than the current ones (scripts/client-build.mjs), then run the
+// server with tsx. Plain Node (no shell), so it behaves the same on Linux, macOS and Windows.
+import { spawn } from 'node:child_process';
 import { createRequire } from 'node:module';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { ROOT, clientDist, ensureClientBuilt } from './client-build.mjs';
 
-const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
-const require = createRequire(path.join(root, 'package.json'));
+const require = createRequire(path.join(ROOT, 'package.json'));
 const node = process.execPath;
 
-if (!existsSync(path.join(root, 'dist', 'index.html'))) {
-  console.log('dist/index.html is missing: building the client with Vite…');
-  const vite = path.join(path.dirname(require.resolve('vite/package.json')), 'bin', 'vite.js');
-  const build = spawnSync(node, [vite, 'build'], { cwd: root, stdio: 'inherit' });
-  if (build.status !== 0) {
-    console.error('The client build failed; see the messages above.');
-    process.exit(build.status ?? 1);
-  }
+try {
+  ensureClientBuilt(ROOT, clientDist(ROOT), { inherit: true, log: (m) => console.log(m) });
+} catch {
+  console.error('The client build failed; see the messages above.');
+  process.exit(1);
 }
 
 const tsx = path.join(path.dirname(require.resolve('tsx/package.json')), 'dist', 'cli.mjs');
-const server = spawn(node, [tsx, 'server/index.ts'], { cwd: root, stdio: 'inherit' });
+const server = spawn(node, [tsx, 'server/index.ts'], { cwd: ROOT, stdio: 'inherit' });
 for (const signal of ['SIGINT', 'SIGTERM']) {
   process.on(signal, () => server.kill(signal));
 }

@@ -10,15 +10,17 @@
  *     it('…', async () => { const page = await t.app.newPage(); await signIn(page, 'engineer@example.com'); … });
  *   });
  */
-import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
-import { createHash } from 'node:crypto';
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { spawn, type ChildProcess } from 'node:child_process';
+import { existsSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { createRequire } from 'node:module';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { clientDist, clientIsStale as isStale, clientSourceHash, ensureClientBuilt as ensureBuilt } from '../../scripts/client-build.mjs';
+
+export { clientSourceHash };
 
 export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
 export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
@@ -26,7 +28,6 @@ export const ARTIFACTS_DIR = path.join(ROOT, 'test-artifacts');
 export const DEMO_PASSWORD = 'trestle-demo';
 
 const require = createRequire(path.join(ROOT, 'package.json'));
-const CLIENT_SOURCES = ['src', 'shared', 'index.html', 'vite.config.ts', 'public'];
 
 /** True when the browser tests can run; otherwise says why, once, on the console. */
 export function chromiumAvailable(suite: string): boolean {
@@ -38,52 +39,21 @@ export function chromiumAvailable(suite: string): boolean {
   return false;
 }
 
-/** Every client source file under the given paths, sorted (node_modules skipped). */
-function sourceFiles(paths: string[]): string[] {
-  const out: string[] = [];
-  const visit = (p: string): void => {
-    if (!existsSync(p)) return;
-    if (statSync(p).isDirectory()) {
-      for (const name of readdirSync(p)) if (name !== 'node_modules') visit(path.join(p, name));
-    } else out.push(p);
-  };
-  for (const p of paths) visit(p);
-  return out.sort();
-}
-
-/** A fingerprint of the client's sources (paths and contents), so a build is reused only for the same sources. */
-export function clientSourceHash(root = ROOT): string {
-  const hash = createHash('sha256');
-  for (const file of sourceFiles(CLIENT_SOURCES.map((p) => path.join(root, p)))) {
-    hash.update(path.relative(root, file)).update('\0').update(readFileSync(file)).update('\0');
-  }
-  return hash.digest('hex');
-}
-
-const STAMP = '.source-hash';
 /** Where the client is built and served from (CLIENT_DIST lets parallel work trees of one checkout build their own). */
-export const DIST_DIR = path.resolve(ROOT, process.env.CLIENT_DIST ?? 'dist');
+export const DIST_DIR = clientDist(ROOT);
 
-/** True when dist/ is missing or was built from other sources than the current ones. */
+/** True when the built client is missing or was built from other sources (scripts/client-build.mjs). */
 export function clientIsStale(root = ROOT): boolean {
-  const dist = path.resolve(root, process.env.CLIENT_DIST ?? 'dist');
-  const stamp = path.join(dist, STAMP);
-  if (!existsSync(path.join(dist, 'index.html')) || !existsSync(stamp)) return true;
-  return readFileSync(stamp, 'utf8').trim() !== clientSourceHash(root);
+  return isStale(root, clientDist(root));
 }
 
 /**
- * Runs `vite build` unless dist/ was already built from exactly these sources (checked by
+ * Runs `vite build` unless the client was already built from exactly these sources (checked by
  * content, not file times, so CI builds once per run and a local run only after a change).
  * E2E_REBUILD=1 forces a build.
  */
 export function ensureClientBuilt(): void {
-  if (process.env.E2E_REBUILD !== '1' && !clientIsStale()) return;
-  const hash = clientSourceHash();
-  const vite = path.join(path.dirname(require.resolve('vite/package.json')), 'bin', 'vite.js');
-  const result = spawnSync(process.execPath, [vite, 'build', '--logLevel', 'warn', '--outDir', DIST_DIR, '--emptyOutDir'], { cwd: ROOT, encoding: 'utf8' });
-  if (result.status !== 0) throw new Error(`vite build failed:\n${result.stdout}\n${result.stderr}`);
-  writeFileSync(path.join(DIST_DIR, STAMP), hash + '\n');
+  ensureBuilt(ROOT, DIST_DIR, { force: process.env.E2E_REBUILD === '1' });
 }
 
 async function freePort(): Promise<number> {
