@@ -11,6 +11,7 @@ import { createLogger } from './config/logger.js';
 import { resolveJwtSecret } from './config/secret.js';
 import { DATABASE_FILE, openDatabase } from './db/data-source.js';
 import { seedDemoData, seedFirstAdmin } from './db/seed.js';
+import { redactUrl } from './queue/connection.js';
 
 async function main(): Promise<void> {
   let env;
@@ -28,8 +29,9 @@ async function main(): Promise<void> {
   const config = appConfigFromEnv(env, resolveJwtSecret(env.JWT_SECRET, dataDir));
 
   const databaseFile = path.join(dataDir, DATABASE_FILE);
-  const { dataSource, isNew, applied } = await openDatabase({ database: databaseFile });
-  logger.info(`database ${databaseFile}${applied.length ? `; applied migrations: ${applied.join(', ')}` : ''}`);
+  const { dataSource, isNew, applied } = await openDatabase(env.DATABASE_URL ? { url: env.DATABASE_URL } : { database: databaseFile });
+  const where = env.DATABASE_URL ? `PostgreSQL ${redactUrl(env.DATABASE_URL)}` : databaseFile;
+  logger.info(`database ${where}${applied.length ? `; applied migrations: ${applied.join(', ')}` : ''}`);
   if (isNew && env.SEED_DEMO) {
     await seedDemoData(dataSource);
     logger.info('new database: demo accounts and demo projects seeded (password trestle-demo)');

@@ -33,6 +33,14 @@ export const fairnessEnvShape = {
   COMPARE_RATE_LIMIT: count(30),
 };
 
+/** The scaled mode (issue 15): PostgreSQL instead of SQLite, a Redis queue instead of in-process threads. */
+export const scaledEnvShape = {
+  DATABASE_URL: z.string().regex(/^postgres(ql)?:\/\//, 'must be a postgres:// URL (unset: SQLite under DATA_DIR)').optional(),
+  QUEUE_URL: z.string().regex(/^rediss?:\/\//, 'must be a redis:// URL (unset: runs in threads of this process)').optional(),
+  /** jobs one `npm run worker` process works on at once */
+  WORKER_CONCURRENCY: count(1),
+};
+
 const envSchema = z
   .object({
     ...importEnvShape,
@@ -52,6 +60,7 @@ const envSchema = z
     ADMIN_EMAIL: z.email('must be an e-mail address').optional(),
     ADMIN_PASSWORD: z.string().min(8, 'must be at least 8 characters').max(72).optional(),
     LOG_LEVEL: z.enum(['silent', 'error', 'warn', 'info', 'debug']).default('info'),
+    ...scaledEnvShape,
   })
   .superRefine((env, ctx) => {
     if (!!env.ADMIN_EMAIL !== !!env.ADMIN_PASSWORD) {

@@ -253,6 +253,9 @@ export async function commitImport(
   const model = decodeModel(pending.modelData);
   const message = data.message ?? `Imported from ${preview.fileNames.join(', ')}`;
   return ds.transaction(async (m) => {
+    // single use: of two commits of one upload at once (two servers), only one deletes it
+    const taken = await m.getRepository(PendingImportEntity).delete({ id: pending.id });
+    if (taken.affected !== 1) throw notFound(`Import ${importId} was committed already or has expired; upload the files again`);
     const version = { model, counts: preview.counts, origin: 'import' as const, message, sourceData: pending.sourceData, createdBy: userId };
     let record;
     if (pending.modelId !== null) {
@@ -271,7 +274,6 @@ export async function commitImport(
     } else {
       record = await createModelWithVersion(m, projectId, data.name ?? pending.name, version);
     }
-    await m.getRepository(PendingImportEntity).delete({ id: pending.id });
     return { model: await summarise(m, record), version: record.currentVersion };
   });
 }

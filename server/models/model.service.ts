@@ -28,15 +28,23 @@ import { UserEntity } from '../users/user.entity.js';
 import { applyMemberEdits, editableMembers } from './member-edits.js';
 import { decodeModel, encodeModel } from './model-codec.js';
 import { ModelEntity, ModelVersionEntity, type ModelRecord, type ModelVersionRecord } from './model.entity.js';
+import { RunEntity } from '../runs/run.entity.js';
 
 async function lastRuns(ds: DataSource | EntityManager, modelIds: number[]): Promise<Map<number, ModelSummary['lastRun']>> {
   const out = new Map<number, ModelSummary['lastRun']>();
   if (modelIds.length === 0) return out;
-  const rows: { id: number; modelId: number; status: string; version: number; maxRatio: number | null }[] = await ds.query(
-    `SELECT r.id, r.modelId, r.status, r.version, r.maxRatio FROM runs r
-     WHERE r.id IN (SELECT MAX(id) FROM runs WHERE modelId IN (${modelIds.map(() => '?').join(',')}) GROUP BY modelId)`,
-    modelIds,
-  );
+  // the newest run of each model (query builder: the same SQL on SQLite and PostgreSQL)
+  const newest = ds
+    .getRepository(RunEntity)
+    .createQueryBuilder('n')
+    .select('MAX(n.id)')
+    .where('n.modelId IN (:...modelIds)')
+    .groupBy('n.modelId');
+  const rows = await ds
+    .getRepository(RunEntity)
+    .createQueryBuilder('r')
+    .where(`r.id IN (${newest.getQuery()})`, { modelIds })
+    .getMany();
   for (const r of rows) out.set(r.modelId, { id: r.id, status: r.status, version: r.version, maxRatio: r.maxRatio });
   return out;
 }
@@ -93,7 +101,7 @@ export async function getModelDetail(ds: DataSource, id: number): Promise<ModelD
   const groups = [...new Set(model.members.map((m) => m.group).filter((g): g is string => !!g))].sort();
   const loadings: ModelDetail['loadings'] = [
     ...model.cases.map((c) => ({ id: c.id, kind: 'case' as const, limitState: null })),
-    ...model.combinations.map((c) => ({ id: c.id, kind: 'combination' as const, limitState: c.limitState })),
+    ...model.combinations.map((c) => ({ id: c.id, kind: 'combination' as const, limitState: c.limitState, terms: c.terms.map((t) => ({ case: t.case, factor: t.factor })) })),
   ];
   return {
     ...(await summarise(ds, record)),
@@ -116,12 +124,17 @@ export async function renameModel(ds: DataSource, id: number, input: RenameModel
 
 export async function listVersions(ds: DataSource, id: number): Promise<ModelVersionSummary[]> {
   await findModel(ds, id);
-  const rows: (Omit<ModelVersionSummary, 'createdAt'> & { createdAt: string })[] = await ds.query(
-    `SELECT v.version, v.message, v.contentHash, v.origin, v.createdBy, u.name AS createdByName, v.createdAt
-     FROM model_versions v LEFT JOIN users u ON u.id = v.createdBy WHERE v.modelId = ? ORDER BY v.version DESC`,
-    [id],
-  );
-  return rows.map((r) => ({ ...r, createdAt: new Date(r.createdAt.replace(' ', 'T') + (r.createdAt.endsWith('Z') ? '' : 'Z')).toISOString() }));
+  const rows = await ds
+    .getRepository(ModelVersionEntity)
+    .createQueryBuilder('v')
+    .leftJoin(UserEntity, 'u', 'u.id = v.createdBy')
+    .select(['v.version AS version', 'v.message AS message', 'v.contentHash AS "contentHash"', 'v.origin AS origin', 'v.createdBy AS "createdBy"', 'u.name AS "createdByName"', 'v.createdAt AS "createdAt"'])
+    .where('v.modelId = :id', { id })
+    .orderBy('v.version', 'DESC')
+    .getRawMany<Omit<ModelVersionSummary, 'createdAt'> & { createdAt: string | Date }>();
+  // SQLite hands back its UTC text ("2026-01-02 03:04:05"), PostgreSQL a Date
+  const when = (t: string | Date) => (t instanceof Date ? t : new Date(t.replace(' ', 'T') + (t.endsWith('Z') ? '' : 'Z')));
+  return rows.map((r) => ({ ...r, createdAt: when(r.createdAt).toISOString() }));
 }
 
 export async function getEditableMembers(ds: DataSource, id: number, version?: number): Promise<EditableMembers> {
