@@ -1,4 +1,5 @@
 import type { Problem, ProblemCount } from '../model/types.js';
+import { canonicalName } from './names.js';
 
 /** Problems kept in the list; beyond it they are only counted (a hostile file can hold millions). */
 export const MAX_LISTED_PROBLEMS = 10_000;
@@ -9,10 +10,18 @@ export class Problems {
   private readonly byColumn = new Map<string, ProblemCount>();
   private errors = 0;
   private total = 0;
+  /** columns whose header could not be used, by table (canonical names) */
+  private readonly unusable = new Map<string, Set<string>>();
+  /** problems not reported because they follow from an unusable header */
+  suppressed = 0;
 
   constructor(readonly maxListed = MAX_LISTED_PROBLEMS) {}
 
   private add(p: Problem): void {
+    if (p.column !== undefined && this.unusable.get(p.table)?.has(canonicalName(p.column))) {
+      this.suppressed++;
+      return;
+    }
     this.total++;
     if (p.severity === 'error') this.errors++;
     const key = `${p.table}\u0000${p.column ?? ''}`;
@@ -29,6 +38,21 @@ export class Problems {
 
   warning(table: string, row: number | undefined, column: string | undefined, message: string): void {
     this.add({ severity: 'warning', table, row, column, message });
+  }
+
+  /**
+   * The header of `column` in `table` was reported once and cannot be used (a unit of the
+   * wrong kind, an unknown unit, a unit in round brackets): every later problem naming that
+   * column follows from it (e.g. "material S1 has no fy" on every row) and is not reported.
+   */
+  markUnusable(table: string, column: string): void {
+    let s = this.unusable.get(table);
+    if (!s) this.unusable.set(table, (s = new Set()));
+    s.add(canonicalName(column));
+  }
+
+  isUnusable(table: string, column: string): boolean {
+    return this.unusable.get(table)?.has(canonicalName(column)) ?? false;
   }
 
   get hasErrors(): boolean {

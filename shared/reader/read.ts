@@ -90,8 +90,12 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
     if (!raw.has(need)) problems.error(need, undefined, undefined, `the model needs a ${need} table`);
   }
   const lab = (table: string, col: string) => parsed[table]?.label[col] ?? col;
+  /** a length (SI) as the model's unit system writes it, for messages: `19.685 ft` */
+  const len = (x: number) => `${formatNumber(fromSI(x, 'length', system))} ${unitOf('length', system)}`;
 
-  // 3. nodes
+  // 3. nodes (a coordinate column whose header was unusable leaves the geometry unknown:
+  // coincident nodes and zero-length members would only be follow-ons of that header)
+  const geometryKnown = !['x', 'y', 'z'].some((c) => parsed.nodes?.unusable.has(c));
   const nodes = new Map<string, Node>();
   const coincident = new Map<string, Node>();
   const invalidNodes = new Set<string>();
@@ -104,7 +108,7 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
     }
     const n: Node = { id, x: (r.v.x as number) ?? 0, y: (r.v.y as number) ?? 0, z: (r.v.z as number | undefined) ?? 0, row: r.row };
     nodes.set(id, n);
-    if (r.invalid) {
+    if (r.invalid || !geometryKnown) {
       invalidNodes.add(id);
       continue;
     }
@@ -364,11 +368,11 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
     const tol = 1e-9 * Math.max(1, L);
     let bad = false;
     if (L > 0 && a > L + tol) {
-      problems.error('member_loads', r.row, lab('member_loads', 'a'), `a is beyond the end of member ${m.id}, whose length is ${L.toPrecision(6)} m`);
+      problems.error('member_loads', r.row, lab('member_loads', 'a'), `a = ${len(a)} is beyond the end of member ${m.id}, whose length is ${len(L)}`);
       bad = true;
     }
-    if (L > 0 && b > L + tol) {
-      problems.error('member_loads', r.row, lab('member_loads', 'b'), `b is beyond the end of member ${m.id}, whose length is ${L.toPrecision(6)} m`);
+    if (L > 0 && b > L + tol && kind !== 'point' && kind !== 'moment') { // a point load's b is its a, reported above
+      problems.error('member_loads', r.row, lab('member_loads', 'b'), `b = ${len(b)} is beyond the end of member ${m.id}, whose length is ${len(L)}`);
       bad = true;
     }
     if (!bad && memberLength.has(m.id) && (kind === 'uniform' || kind === 'linear') && !(b > a)) {
@@ -505,7 +509,7 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
     const L = memberLength.get(mid);
     if (L === undefined) continue; // the member's own row already has an error
     if (x > L * (1 + 1e-9)) {
-      problems.error('result_points', r.row, lab('result_points', 'x'), `x is beyond the end of member ${mid}, whose length is ${formatNumber(fromSI(L, 'length', system))} ${unitOf('length', system)}`);
+      problems.error('result_points', r.row, lab('result_points', 'x'), `x = ${len(x)} is beyond the end of member ${mid}, whose length is ${len(L)}`);
       continue;
     }
     resultPoints.push({ member: mid, x: Math.min(x, L), row: r.row });

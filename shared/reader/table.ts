@@ -77,6 +77,8 @@ export interface ParsedTable {
   /** header texts of extra columns (keepExtra only), in order */
   extraHeaders: string[];
   headerRow: number;
+  /** canonical names of columns whose header was reported as unusable (their values are not read) */
+  unusable: Set<string>;
 }
 
 function isBlank(c: Cell): boolean {
@@ -159,13 +161,25 @@ function cellSchema(spec: ColumnSpec, factor: number, decimalComma: boolean, lab
   });
 }
 
+/** Said of every header the reader cannot use: its follow-on problems are left out (Problems.markUnusable). */
+export const UNUSABLE_NOTE = 'the column is not read, so problems that follow from it are not listed';
+
+/**
+ * A header such as `fy (MPa)` that names a known column with its unit in round (or curly)
+ * brackets: the name and the unit, else null.
+ */
+export function roundBracketHeader(text: string): { name: string; unit: string } | null {
+  const m = /^(.*?)\s*[({]([^)}]*)[)}]\s*$/.exec(text.trim());
+  return m && m[1].trim() ? { name: m[1].trim(), unit: m[2].trim() } : null;
+}
+
 /** Factor from the header's unit (or the system default) to SI; null after reporting an error. */
 function columnFactor(spec: ColumnSpec, unit: string | null, system: UnitSystem, table: string, headerRow: number, label: string, problems: Problems): number | null {
   if (spec.kind !== 'number' || spec.noUnit) {
     if (unit !== null && unit !== '' && unit !== '-') {
       problems.error(table, headerRow, label, spec.noUnit
-        ? `${label} takes no unit in brackets: its unit follows the unit system and the load kind`
-        : `${label} is not a quantity and takes no unit (got [${unit}])`);
+        ? `${label} takes no unit in brackets: its unit follows the unit system and the load kind (write the header as ${label}); ${UNUSABLE_NOTE}`
+        : `${label} is not a quantity and takes no unit (got [${unit}]; write the header as ${label}); ${UNUSABLE_NOTE}`);
       return null;
     }
     return 1;
@@ -179,9 +193,10 @@ function columnFactor(spec: ColumnSpec, unit: string | null, system: UnitSystem,
   if (f !== null) return f;
   const known = findUnit(unit);
   const dim = QUANTITY_DIMENSION[quantity].replace(/_/g, ' ');
-  problems.error(table, headerRow, label, known
-    ? `unit [${unit}] is not a unit of ${dim === 'dimensionless' ? 'a plain number' : dim} (${label} expects e.g. ${spec.defaultUnit ?? unitOf(quantity, system) ?? '-'})`
-    : `unknown unit [${unit}]`);
+  const example = spec.defaultUnit ?? unitOf(quantity, system) ?? '-';
+  problems.error(table, headerRow, label, `${known
+    ? `unit [${unit}] is not a unit of ${dim === 'dimensionless' ? 'a plain number' : dim}`
+    : `unknown unit [${unit}]`}: write the header as ${label} [${example}] (a unit of ${dim === 'dimensionless' ? 'a plain number' : dim} in square brackets) or without a unit for the unit system's; ${UNUSABLE_NOTE}`);
   return null;
 }
 
@@ -195,7 +210,7 @@ export function parseTable(raw: RawTable, spec: TableSpec, system: UnitSystem, p
   const rowNo = (i: number) => raw.rowNumbers?.[i] ?? i + 1;
   let h = 0;
   while (h < raw.rows.length && raw.rows[h].every(isBlank)) h++;
-  const out: ParsedTable = { name: table, rows: [], present: new Set(), label: {}, extraHeaders: [], headerRow: rowNo(h) };
+  const out: ParsedTable = { name: table, rows: [], present: new Set(), label: {}, extraHeaders: [], headerRow: rowNo(h), unusable: new Set() };
   if (h >= raw.rows.length) {
     problems.warning(table, undefined, undefined, 'the table is empty');
     return out;
@@ -213,6 +228,16 @@ export function parseTable(raw: RawTable, spec: TableSpec, system: UnitSystem, p
     const { name, unit } = splitHeader(text);
     const canon = canonicalName(name);
     const spec1 = byName.get(canon);
+    const round = !spec1 && unit === null ? roundBracketHeader(text) : null;
+    const meant = round ? byName.get(canonicalName(round.name)) : undefined;
+    if (round && meant && !out.present.has(meant.name)) {
+      // `fy (MPa)`: reported once with the hint; the column's follow-on problems are left out
+      problems.error(table, headerRow, text, `header "${text}": units go in square brackets, as in ${round.name} [${round.unit || 'unit'}]; ${UNUSABLE_NOTE}`);
+      out.unusable.add(meant.name);
+      problems.markUnusable(table, meant.name);
+      problems.markUnusable(table, text);
+      return;
+    }
     if (!spec1) {
       if (spec.keepExtra) {
         extraIndex.push({ header: text, index });
@@ -227,13 +252,17 @@ export function parseTable(raw: RawTable, spec: TableSpec, system: UnitSystem, p
     out.present.add(canon);
     out.label[canon] = name;
     const factor = columnFactor(spec1, unit, system, table, headerRow, name, problems);
-    if (factor === null) return;
+    if (factor === null) {
+      out.unusable.add(canon);
+      problems.markUnusable(table, canon);
+      return;
+    }
     shape[canon] = cellSchema(spec1, factor, raw.decimalComma === true, name);
     factors[canon] = factor;
     colIndex[canon] = index;
   });
   for (const c of spec.columns) {
-    if (c.required && !out.present.has(c.name)) problems.error(table, headerRow, c.name, `required column ${c.name} is missing`);
+    if (c.required && !out.present.has(c.name) && !out.unusable.has(c.name)) problems.error(table, headerRow, c.name, `required column ${c.name} is missing`);
   }
   const schema = z.object(shape);
   for (let i = h + 1; i < raw.rows.length; i++) {

@@ -141,7 +141,7 @@ describe('result_points', () => {
       ['result_points', 2, 'member'], ['result_points', 3, 'x'], ['result_points', 4, 'x'], ['result_points', 5, 'x'],
     ]);
     expect(list[0].message).toBe('unknown member M9');
-    expect(list[1].message).toBe('x is beyond the end of member M2, whose length is 6 m');
+    expect(list[1].message).toBe('x = 6.5 m is beyond the end of member M2, whose length is 6 m');
   });
 
   it('warns about an unknown column', () => {
