@@ -8,6 +8,7 @@ import { ProjectEntity } from '../projects/project.entity.js';
 import { ModelEntity, ModelVersionEntity } from '../models/model.entity.js';
 import { PendingImportEntity } from '../imports/pending-import.entity.js';
 import { RunEntity, RunResultEntity } from '../runs/run.entity.js';
+import { RunLoadingResultEntity, RunMemberResultEntity } from '../runs/result-parts.entity.js';
 import { UserEntity } from '../users/user.entity.js';
 import { ProjectMemberEntity } from '../membership/member.entity.js';
 import { RunReviewEntity } from '../reviews/review.entity.js';
@@ -26,6 +27,8 @@ export const entities: (EntitySchema<any> | Function)[] = [
   PendingImportEntity,
   RunEntity,
   RunResultEntity,
+  RunMemberResultEntity,
+  RunLoadingResultEntity,
   ProjectMemberEntity,
   RunReviewEntity,
   CommentEntity,

@@ -26,7 +26,10 @@ export interface ExportTask {
   /** run_results blobs as stored (gzip) */
   membersData?: Uint8Array;
   recordsData?: Uint8Array;
+  /** runs before per-loading rows: gzip(Float64 displacements then reactions, loading-major) */
   nodeData?: Uint8Array;
+  /** gzip(Float64 displacements then reactions) of each loading, in loading order */
+  nodeBlocks?: Uint8Array[];
   loadings: LoadingInfo[];
   /** loading indices to export (every loading when absent) */
   only?: number[];
@@ -52,6 +55,21 @@ export function exportModel(task: ExportTask): { model: Model; json: string } {
 }
 
 function nodeArrays(task: ExportTask): { displacements: Float64Array; reactions: Float64Array } {
+  if (task.nodeBlocks) {
+    // one block per loading (displacements then reactions): back to loading-major arrays
+    const parts = task.nodeBlocks.map((b) => {
+      const bytes = gunzipSync(b);
+      return new Float64Array(bytes.buffer, bytes.byteOffset, bytes.byteLength / 8);
+    });
+    const n = parts.length > 0 ? parts[0].length / 2 : 0;
+    const displacements = new Float64Array(n * parts.length);
+    const reactions = new Float64Array(n * parts.length);
+    parts.forEach((p, l) => {
+      displacements.set(p.subarray(0, n), l * n);
+      reactions.set(p.subarray(n), l * n);
+    });
+    return { displacements, reactions };
+  }
   const bytes = gunzipSync(task.nodeData!);
   const all = new Float64Array(bytes.buffer, bytes.byteOffset, bytes.byteLength / 8);
   const half = all.length / 2;

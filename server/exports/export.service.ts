@@ -13,6 +13,7 @@ import { AppError, badRequest } from '../errors/app-error.js';
 import { findModel, findVersion } from '../models/model.service.js';
 import { findProject } from '../projects/project.service.js';
 import { doneRun, loadingsOf, runMethod } from '../runs/run.service.js';
+import { storedLoadingBlocks } from '../runs/result-parts.js';
 import type { RunRecord } from '../runs/run.entity.js';
 import { exportPool, runPool } from '../runs/worker-pool.js';
 import type { ExportTask, ExportTaskResult } from './export-task.js';
@@ -94,7 +95,11 @@ export async function planRunExport(ds: DataSource, runId: number, kind: ExportK
   };
   if (kind === 'utilisation') task.membersData = result.membersData;
   if (kind === 'checks') task.recordsData = result.recordsData;
-  if (kind === 'displacements' || kind === 'reactions') task.nodeData = result.nodeData;
+  if (kind === 'displacements' || kind === 'reactions') {
+    const blocks = await storedLoadingBlocks(ds, run.id);
+    if (blocks) task.nodeBlocks = blocks;
+    else task.nodeData = result.nodeData;
+  }
   return { fileName: frame.fileName, contentType: frame.contentType, task };
 }
 

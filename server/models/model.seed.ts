@@ -8,6 +8,7 @@ import type { SeedContext } from '../db/seed.js';
 import { readWorkbook } from '../../shared/reader/index.js';
 import { listSamples } from '../samples/sample.router.js';
 import { RunEntity, RunResultEntity } from '../runs/run.entity.js';
+import { saveParts } from '../runs/result-parts.js';
 import { encodeJson } from './model-codec.js';
 import { createModelWithVersion } from './model.service.js';
 
@@ -38,7 +39,8 @@ export async function seedSampleModels(seed: SeedContext): Promise<void> {
       // in this thread: the seed runs once, before the server listens
       const { computeRun, packRun } = await import('../runs/run-compute.js');
       const started = new Date();
-      const packed = packRun(computeRun(JSON.stringify(model), model.settings.designCode).output);
+      const computed = computeRun(JSON.stringify(model), model.settings.designCode);
+      const packed = packRun(computed.output, computed.analysed.model);
       const run = await seed.manager.getRepository(RunEntity).save({
         modelId: record.id, version: 1, designCode: model.settings.designCode, settingsJson: JSON.stringify(model.settings),
         status: 'done', phase: 'saving', progress: 1, message: '', reviewStatus: 'draft', maxRatio: packed.maxRatio,
@@ -57,6 +59,7 @@ export async function seedSampleModels(seed: SeedContext): Promise<void> {
         shapesData: blob(packed.shapesData),
         analysedModelData: blob(packed.analysedModelData),
       });
+      await saveParts(seed.manager, run.id, packed.parts);
     } catch {
       // no run for this sample: the model is still there to run by hand
     }

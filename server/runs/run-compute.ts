@@ -16,6 +16,7 @@ import { factorise as factoriseSystem } from '../../shared/engine/solverBridge.j
 import { checkMember, checkModel, type DesignOptions } from '../../shared/design/index.js';
 import { analyseModel, type StabilitySummary } from '../../shared/stability/index.js';
 import { packShapes, stabilityToJson } from './stability-codec.js';
+import { packParts, type PackedParts } from './result-parts.js';
 
 export interface RunOutput {
   members: MemberUtilisation[];
@@ -187,8 +188,10 @@ export interface PackedRun {
   membersData: Uint8Array;
   /** gzip(JSON CheckRecord[]), or gzip('null') when there were more than MAX_STORED_RECORDS */
   recordsData: Uint8Array;
-  /** gzip(Float64 displacements then reactions) */
+  /** empty: node results are kept per loading in `parts` (runs before them kept gzip(Float64 displacements then reactions) here) */
   nodeData: Uint8Array;
+  /** one row per member and per loading (server/runs/result-parts.ts) */
+  parts: PackedParts;
   loadings: LoadingInfo[];
   nodeCount: number;
   timings: Record<string, number>;
@@ -208,7 +211,7 @@ export interface PackedRun {
  */
 export const MAX_STORED_RECORDS = Number(process.env.RUN_MAX_STORED_RECORDS) || 20_000;
 
-export function packRun(out: RunOutput): PackedRun {
+export function packRun(out: RunOutput, model: Pick<Model, 'members'>): PackedRun {
   const t0 = performance.now();
   const gz = (b: Buffer) => new Uint8Array(gzipSync(b, { level: 1 }));
   const d = out.displacements;
@@ -218,7 +221,8 @@ export function packRun(out: RunOutput): PackedRun {
     maxRatio: maxRatio(out.members),
     membersData: gz(Buffer.from(JSON.stringify(out.members), 'utf8')),
     recordsData: gz(Buffer.from(out.records.length <= MAX_STORED_RECORDS ? JSON.stringify(out.records) : 'null', 'utf8')),
-    nodeData: gz(Buffer.concat([Buffer.from(d.buffer, d.byteOffset, d.byteLength), Buffer.from(r.buffer, r.byteOffset, r.byteLength)])),
+    nodeData: new Uint8Array(0),
+    parts: packParts(model, out.members, d, r, out.nodeCount, out.loadings.length),
     loadings: out.loadings,
     nodeCount: out.nodeCount,
     timings: { ...out.timings },

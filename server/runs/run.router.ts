@@ -1,5 +1,5 @@
 /** /api/runs — status, results for the grid, member detail, picture, comparison, exports. */
-import { Router } from 'express';
+import { Router, type Response } from 'express';
 import {
   EXPORT_FORMATS, EXPORT_KINDS, MEMBERS_LAYOUTS, STABILITY_EXPORT_KINDS, type ExportFormat, type ExportKind, type MembersLayout, type StabilityExportKind,
 } from '../../shared/schemas/runs.js';
@@ -35,7 +35,7 @@ export function runsRouter({ dataSource, logger }: AppContext): Router {
     const a = text(req.query.a);
     const b = text(req.query.b);
     if (!a || !b) throw badRequest('Give two run ids: /api/runs/compare?a=<run>&b=<run>');
-    res.json(await compareRuns(dataSource, parseId(a, 'Run'), parseId(b, 'Run')));
+    sendJsonBytes(res, await compareRuns(dataSource, parseId(a, 'Run'), parseId(b, 'Run')));
   });
   router.get('/:id', requireRole(...RUN_READERS), guard.run('id'), async (req, res) => {
     res.json(await getRun(dataSource, parseId(req.params.id, 'Run')));
@@ -54,7 +54,7 @@ export function runsRouter({ dataSource, logger }: AppContext): Router {
     res.json(await getMemberDetail(dataSource, parseId(req.params.id, 'Run'), String(req.params.member), text(req.query.loading)));
   });
   router.get('/:id/model', requireRole(...RUN_READERS), guard.run('id'), async (req, res) => {
-    res.json(await getRunGeometry(dataSource, parseId(req.params.id, 'Run'), text(req.query.loading)));
+    sendJsonBytes(res, await getRunGeometry(dataSource, parseId(req.params.id, 'Run'), text(req.query.loading)));
   });
   router.get('/:id/shapes', requireRole(...RUN_READERS), guard.run('id'), async (req, res) => {
     res.json(await getRunShape(dataSource, parseId(req.params.id, 'Run'), text(req.query.kind), text(req.query.index), text(req.query.loading)));
@@ -92,4 +92,10 @@ export function runsRouter({ dataSource, logger }: AppContext): Router {
     }
   });
   return router;
+}
+
+/** JSON already serialised by a worker, sent as it is. */
+function sendJsonBytes(res: Response, body: Uint8Array): void {
+  res.set('Content-Type', 'application/json; charset=utf-8');
+  res.end(body);
 }

@@ -5,22 +5,18 @@
  * recomputed in a worker on demand (the worker that ran the model usually still holds its
  * analysis, so this costs no re-solve).
  */
-import { gunzip, gunzipSync } from 'node:zlib';
+import { gunzip } from 'node:zlib';
 import { promisify } from 'node:util';
 import { performance } from 'node:perf_hooks';
 import type { DataSource } from 'typeorm';
 import type { CheckRecord, MemberUtilisation } from '../../shared/design/types.js';
 import type { DesignCode, Model } from '../../shared/model/types.js';
-import { compareMembers } from '../../shared/results/compare.js';
-import { runGeometry } from '../../shared/results/geometry.js';
 import { memberRows } from '../../shared/results/member-rows.js';
 import {
   startRunSchema,
   type LoadingInfo,
   type MemberDetail,
   type Run,
-  type RunComparison,
-  type RunGeometry,
   type MembersLayout,
   type RunPhase,
   type RunShape,
@@ -37,6 +33,8 @@ import type { PackedRun } from './run-compute.js';
 import { RunEntity, RunResultEntity, type RunRecord, type RunResultRecord } from './run.entity.js';
 import { resultsPool, runPool } from './worker-pool.js';
 import { shapeFromBlock } from './stability-codec.js';
+import { RunLoadingResultEntity } from './result-parts.entity.js';
+import { saveParts, storedMember, type StoredMemberResult } from './result-parts.js';
 
 const gunzipAsync = promisify(gunzip);
 
@@ -250,6 +248,7 @@ async function saveResults(ds: DataSource, runId: number, out: PackedRun): Promi
   const counts = out.counts;
   await ds.transaction(async (m) => {
     await m.getRepository(RunResultEntity).insert(result);
+    await saveParts(m, runId, out.parts);
     const timings = { ...out.timings, saving: performance.now() - t0 };
     await m.getRepository(RunEntity).update(
       { id: runId },
@@ -300,14 +299,6 @@ export function recordsOf(result: RunResultRecord): CheckRecord[] | null {
 
 export function loadingsOf(result: RunResultRecord): LoadingInfo[] {
   return JSON.parse(result.loadingsJson) as LoadingInfo[];
-}
-
-/** Node displacements and reactions, loading-major, nNodes*6 per loading. */
-export function nodeResultsOf(result: RunResultRecord): { displacements: Float64Array; reactions: Float64Array } {
-  const bytes = gunzipSync(result.nodeData);
-  const all = new Float64Array(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength));
-  const half = all.length / 2;
-  return { displacements: all.subarray(0, half), reactions: all.subarray(half) };
 }
 
 export async function runModel(ds: DataSource, run: RunRecord): Promise<{ model: Model; json: string }> {
@@ -362,38 +353,61 @@ function loadingIndex(loadings: LoadingInfo[], wanted: string | undefined, fallb
   return i;
 }
 
+/**
+ * One member's result: its stored row (one row read), or for runs saved before rows were kept,
+ * from the whole-run blob and the model.
+ */
+async function memberResultOf(ds: DataSource, run: RunRecord, result: RunResultRecord, memberId: string): Promise<StoredMemberResult | undefined> {
+  const stored = await storedMember(ds, run.id, memberId);
+  if (stored !== null) return stored;
+  const { model } = await runModel(ds, run);
+  const index = model.members.findIndex((m) => m.id === memberId);
+  const util = membersOf(result).find((m) => m.member === memberId);
+  if (index < 0 || !util) return undefined;
+  const m = model.members[index];
+  return { index, start: m.start, end: m.end, type: m.type, util };
+}
+
+/** The previous done run's row of one member (for the change columns). */
+async function previousMember(ds: DataSource, run: RunRecord, memberId: string): Promise<MemberUtilisation | undefined> {
+  const prev = await previousDone(ds, run);
+  if (!prev) return undefined;
+  const stored = await storedMember(ds, prev.run.id, memberId);
+  if (stored !== null) return stored?.util;
+  return membersOf(prev.result).find((m) => m.member === memberId);
+}
+
 export async function getMemberDetail(ds: DataSource, id: number, memberId: string, loading?: string): Promise<MemberDetail> {
   const { run, result } = await doneRun(ds, id);
-  const members = membersOf(result);
-  const { model, json } = await runModel(ds, run);
-  const index = model.members.findIndex((m) => m.id === memberId);
-  const util = members.find((m) => m.member === memberId);
-  if (index < 0 || !util) throw notFound(`Member ${memberId} not found in run ${id}`);
+  const stored = await memberResultOf(ds, run, result, memberId);
+  if (!stored) throw notFound(`Member ${memberId} not found in run ${id}`);
+  const { util, index } = stored;
   const loadings = loadingsOf(result);
   // a moving-load combination appears twice (max and min envelope): take the one that governed
   const governing = loadings.findIndex((l) => l.id === util.combination && l.kind === 'combination' && (!util.envelope || !l.envelope || l.envelope === util.envelope));
   const firstCombo = loadings.findIndex((l) => l.kind === 'combination');
   const chosen = loadingIndex(loadings, loading, governing >= 0 ? governing : Math.max(0, firstCombo));
+  const version = await findVersion(ds, run.modelId, run.version);
+  // the worker that ran the model usually still holds its analysis: the model blob is unzipped there only when it does not
   const detail = await runPool().run({
     kind: 'member',
     runId: run.id,
-    modelJson: json,
+    modelData: version.modelData,
     designCode: run.designCode,
     member: index,
     loading: chosen,
     governing,
   });
-  const prev = await previousDone(ds, run);
-  const before = prev ? membersOf(prev.result).find((m) => m.member === memberId) : undefined;
+  const before = await previousMember(ds, run, memberId);
   const [row] = memberRows([util], before ? new Map([[memberId, { ratio: before.ratio, section: before.section }]]) : undefined);
-  const m = model.members[index];
+  const settings = JSON.parse(run.settingsJson) as { units?: 'metric' | 'us' };
   return {
     runId: run.id,
-    units: model.settings.units,
+    units: settings.units ?? 'metric',
     row,
-    start: m.start,
-    end: m.end,
-    type: m.type,
+    start: stored.start,
+    end: stored.end,
+    type: stored.type,
     loadings,
     loading: loadings[chosen] ? loadingKey(loadings[chosen]) : '',
     governing: governing >= 0 ? loadingKey(loadings[governing]) : '',
@@ -440,35 +454,41 @@ export async function getRunShape(ds: DataSource, id: number, kind: string | und
   }
 }
 
-/**
- * The model whose combinations match the run's loadings: the one the analysis ran on when the
- * code rules added cases and combination variants, else the stored version.
- */
-export async function analysedModelOf(ds: DataSource, run: RunRecord, result: RunResultRecord): Promise<Model> {
-  if (result.analysedModelData && result.analysedModelData.byteLength > 0) return decodeJson<Model>(result.analysedModelData);
-  return (await runModel(ds, run)).model;
-}
-
-export async function getRunGeometry(ds: DataSource, id: number, loading?: string): Promise<RunGeometry> {
+/** The picture of one loading, built in a results worker from the stored blobs and that loading's row. */
+export async function getRunGeometry(ds: DataSource, id: number, loading?: string): Promise<Uint8Array> {
   const { run, result } = await doneRun(ds, id);
-  const model = await analysedModelOf(ds, run, result);
   const loadings = loadingsOf(result);
   const firstCombo = loadings.findIndex((l) => l.kind === 'combination');
   const chosen = loadingIndex(loadings, loading, Math.max(0, firstCombo));
-  const n = result.nodeCount * 6;
-  const { displacements } = nodeResultsOf(result);
-  const ratios = new Map(membersOf(result).map((m) => [m.member, { ratio: m.ratio, status: m.status }]));
-  return runGeometry({ runId: run.id, model, loadings, loadingIndex: chosen, displacements: displacements.subarray(chosen * n, (chosen + 1) * n), ratios });
+  const part = await ds.getRepository(RunLoadingResultEntity).findOneBy({ runId: run.id, loadingIndex: chosen });
+  const modelData = result.analysedModelData && result.analysedModelData.byteLength > 0
+    ? result.analysedModelData
+    : (await findVersion(ds, run.modelId, run.version)).modelData;
+  return resultsPool().run({
+    kind: 'geometry',
+    runId: run.id,
+    modelData,
+    loadings,
+    loadingIndex: chosen,
+    nodeBlock: part ? part.nodeData : result.nodeData,
+    offset: part ? 0 : chosen * result.nodeCount * 6,
+    nodeCount: result.nodeCount,
+    membersData: result.membersData,
+  });
 }
 
-export async function compareRuns(ds: DataSource, a: number, b: number): Promise<RunComparison> {
+/** Two runs of one model side by side, compared in a results worker. */
+export async function compareRuns(ds: DataSource, a: number, b: number): Promise<Uint8Array> {
   const A = await doneRun(ds, a);
   const B = await doneRun(ds, b);
   if (A.run.modelId !== B.run.modelId) throw badRequest(`Runs ${a} and ${b} belong to different models`);
   const names = await userNames(ds, [A.run.createdBy, B.run.createdBy]);
-  return {
+  return resultsPool().run({
+    kind: 'compare',
+    runId: A.run.id,
     a: toRunSummary(A.run, names),
     b: toRunSummary(B.run, names),
-    rows: compareMembers(membersOf(A.result), membersOf(B.result)),
-  };
+    aData: A.result.membersData,
+    bData: B.result.membersData,
+  });
 }

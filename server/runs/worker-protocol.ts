@@ -12,11 +12,16 @@ export type { ExportTask } from '../exports/export-task.js';
 import type { MembersTask } from './members-table.js';
 
 export type { MembersTask } from './members-table.js';
+import type { CompareTask, GeometryTask } from './read-tasks.js';
+
+export type { CompareTask, GeometryTask } from './read-tasks.js';
 
 interface TaskBase {
   /** the run whose analysis the task needs (workers keep the last few analyses) */
   runId: number;
-  modelJson: string;
+  /** the model as JSON text, or `modelData`: its stored gzip blob (unzipped in the worker only when it must analyse) */
+  modelJson?: string;
+  modelData?: Uint8Array;
   designCode: DesignCode;
 }
 
@@ -54,7 +59,7 @@ export interface ReadTask {
   limits?: Partial<XlsxLimits>;
 }
 
-export type WorkerTask = RunTask | MemberTask | ForcesTask | ChecksTask | ReadTask | ExportTask | MembersTask;
+export type WorkerTask = RunTask | MemberTask | ForcesTask | ChecksTask | ReadTask | ExportTask | MembersTask | GeometryTask | CompareTask;
 
 export interface MemberTaskResult {
   stations: Stations;
@@ -75,7 +80,7 @@ export type TaskResult<T extends WorkerTask> = T extends RunTask
       ? ReadResult
       : T extends ExportTask
         ? ExportTaskResult
-        : T extends MembersTask
+        : T extends MembersTask | GeometryTask | CompareTask
           ? Uint8Array
           : ResultTable;
 

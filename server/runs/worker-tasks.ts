@@ -1,4 +1,5 @@
 /** What a worker does for each task; kept apart from the thread plumbing so tests can call it. */
+import { gunzipSync } from 'node:zlib';
 import { memberMovingDetail } from '../../shared/moving/detail.js';
 import type { AnalysisResult, StationForces } from '../../shared/engine/types.js';
 import { checksTable, memberForceTable } from '../../shared/exports/results.js';
@@ -8,6 +9,7 @@ import { analyseOnly, checkMemberWithStability, checkWithStability, computeRun, 
 import type { ChecksTask, ForcesTask, ForcesTaskResult, MemberTask, MemberTaskResult, ReadTask, WorkerTask } from './worker-protocol.js';
 import type { ReadResult } from '../../shared/model/types.js';
 import { membersPayload } from './members-table.js';
+import { comparePayload, geometryPayload } from './read-tasks.js';
 import { exportModel, storedTable, streamTable, type ExportTask, type ExportTaskResult } from '../exports/export-task.js';
 import { readCsvBytes, readWorkbook } from '../../shared/reader/index.js';
 
@@ -21,13 +23,20 @@ function remember(runId: number, analysed: Analysed): void {
   while (cache.size > CACHE_SIZE) cache.delete(cache.keys().next().value as number);
 }
 
-function analysedFor(task: Pick<MemberTask, 'runId' | 'modelJson' | 'designCode'>): Analysed {
+/** The model JSON of a task: given as text, or as the stored gzip blob (unzipped only when needed). */
+function taskModelJson(task: Pick<MemberTask, 'modelJson' | 'modelData'>): string {
+  if (task.modelJson !== undefined) return task.modelJson;
+  if (task.modelData) return gunzipSync(task.modelData).toString('utf8');
+  throw new Error('task without a model');
+}
+
+function analysedFor(task: Pick<MemberTask, 'runId' | 'modelJson' | 'modelData' | 'designCode'>): Analysed {
   const kept = cache.get(task.runId);
   if (kept) {
     remember(task.runId, kept);
     return kept;
   }
-  const analysed = analyseOnly(task.modelJson, task.designCode);
+  const analysed = analyseOnly(taskModelJson(task), task.designCode);
   remember(task.runId, analysed);
   return analysed;
 }
@@ -58,11 +67,13 @@ export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => vo
   if (task.kind === 'read') return readFiles(task);
   if (task.kind === 'export') return exportFile(task, onChunk);
   if (task.kind === 'members') return membersPayload(task);
+  if (task.kind === 'geometry') return geometryPayload(task);
+  if (task.kind === 'compare') return comparePayload(task);
   switch (task.kind) {
     case 'run': {
-      const { output, analysed } = computeRun(task.modelJson, task.designCode, onPhase);
+      const { output, analysed } = computeRun(taskModelJson(task), task.designCode, onPhase);
       remember(task.runId, analysed);
-      return packRun(output);
+      return packRun(output, analysed.model);
     }
     case 'member': {
       const { model, analysis, stability } = analysedFor(task);
@@ -113,6 +124,10 @@ export function transferList(result: unknown): ArrayBuffer[] {
   const out: ArrayBuffer[] = [];
   if (result instanceof Uint8Array && result.byteOffset === 0 && result.byteLength === result.buffer.byteLength) return [result.buffer as ArrayBuffer];
   if (result && typeof result === 'object') {
+    const parts = (result as { parts?: { loadingRows?: unknown } }).parts;
+    if (parts && Array.isArray(parts.loadingRows)) {
+      for (const b of parts.loadingRows as Uint8Array[]) if (b.byteOffset === 0 && b.byteLength === b.buffer.byteLength) out.push(b.buffer as ArrayBuffer);
+    }
     for (const v of Object.values(result)) {
       if ((v instanceof Float64Array || v instanceof Int32Array || v instanceof Uint8Array) && v.byteOffset === 0 && v.byteLength === v.buffer.byteLength) {
         out.push(v.buffer as ArrayBuffer);

@@ -10,5 +10,6 @@ import { Foundation1764633600000 } from './1764633600000-foundation.js';
 import { ModelsRuns1764640000000 } from './1764640000000-models-runs.js';
 import { ReviewAudit1764700000000 } from './1764700000000-review-audit.js';
 import { RunStability1764961000000 } from './1764961000000-run-stability.js';
+import { ResultParts1765100000000 } from './1765100000000-result-parts.js';
 
-export const migrations: (new () => MigrationInterface)[] = [Foundation1764633600000, ModelsRuns1764640000000, ReviewAudit1764700000000, RunStability1764961000000];
+export const migrations: (new () => MigrationInterface)[] = [Foundation1764633600000, ModelsRuns1764640000000, ReviewAudit1764700000000, RunStability1764961000000, ResultParts1765100000000];

@@ -22,11 +22,11 @@ describe('a second-order run in the worker', () => {
   it('reports each phase once in order and keeps the order, method and iterations', async () => {
     const json = await portalJson('analysis,second_order\n');
     const phases: RunPhase[] = [];
-    const { output } = computeRun(json, 'en1993-1-1', (p) => phases.push(p));
+    const { output, analysed } = computeRun(json, 'en1993-1-1', (p) => phases.push(p));
     expect(new Set(phases).size).toBe(phases.length);
     expect(phases[0]).toBe('reading');
     expect(phases.at(-1)).toBe('checking');
-    const packed = packRun(output);
+    const packed = packRun(output, analysed.model);
     const s = JSON.parse(packed.stabilityJson) as RunStability;
     expect(s.analysis).toBe('second_order');
     expect(s.secondOrder.every((l) => l.converged && l.iterations > 0)).toBe(true);
