@@ -72,7 +72,13 @@ export const modelDetailSchema = modelSummarySchema.extend({
   sections: z.array(z.string()),
   materials: z.array(z.string()),
   groups: z.array(z.string()),
-  loadings: z.array(z.object({ id: z.string(), kind: z.enum(['case', 'combination']), limitState: z.string().nullable() })),
+  loadings: z.array(z.object({
+    id: z.string(),
+    kind: z.enum(['case', 'combination']),
+    limitState: z.string().nullable(),
+    /** combinations: their cases and factors (the results grid shows them on hover) */
+    terms: z.array(z.object({ case: z.string(), factor: z.number() })).optional(),
+  })),
 });
 export type ModelDetail = z.infer<typeof modelDetailSchema>;
 

@@ -26,8 +26,30 @@ export const trestleLight: ThemeDefinition = {
   },
 };
 
+/** Trestle dark: the same hues lifted for a dark ground (primary lighter so text and borders read). */
+export const trestleDark: ThemeDefinition = {
+  dark: true,
+  colors: {
+    primary: '#7FB8C6',
+    'on-primary': '#0F2328',
+    secondary: '#D9A15A',
+    accent: '#E3B766',
+    background: '#161B1D',
+    surface: '#1F2628',
+    'surface-variant': '#CFD8D6',
+    'on-surface-variant': '#1F2628',
+    error: '#F08A80',
+    warning: '#E0A458',
+    info: '#7DB7D1',
+    success: '#83C195',
+  },
+};
+
+/** Theme names (stored per user by src/composables/themeChoice.ts). */
+export const THEME_NAMES = { light: 'trestleLight', dark: 'trestleDark' } as const;
+
 export const vuetify = createVuetify({
-  theme: { defaultTheme: 'trestleLight', themes: { trestleLight } },
+  theme: { defaultTheme: THEME_NAMES.light, themes: { trestleLight, trestleDark } },
   icons: { defaultSet: 'mdi', aliases, sets: { mdi } },
   defaults: {
     VTextField: { variant: 'outlined', density: 'comfortable' },

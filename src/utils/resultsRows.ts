@@ -112,6 +112,22 @@ export function rowPasses(row: GridRow, f: ResultsFilter): boolean {
   return true;
 }
 
+/** Why a member was not checked (the design's `not checked: …` warning), '' when it was checked. */
+export function notCheckedReason(row: Pick<GridRow, 'status' | 'warnings'>): string {
+  if (row.status === 'not run') return 'no result for this member in the run shown';
+  if (row.status !== 'not checked') return '';
+  const reasons = row.warnings.filter((w) => w.startsWith('not checked: ')).map((w) => w.slice('not checked: '.length));
+  return reasons.length ? reasons.join('; ') : 'no ratio was found; the member page lists its records';
+}
+
+/** The status cell's hover text: the reason when not checked, then any other warning. */
+export function statusHover(row: Pick<GridRow, 'status' | 'warnings'>): string | undefined {
+  const reason = notCheckedReason(row);
+  const others = row.warnings.filter((w) => !w.startsWith('not checked: '));
+  const lines = [reason ? `${row.status}: ${reason}` : '', ...others].filter(Boolean);
+  return lines.length ? lines.join('\n') : undefined;
+}
+
 /** Counts of pass / fail / not checked (and not run) over some rows. */
 export function countStatuses(rows: Iterable<GridRow>): { pass: number; fail: number; notChecked: number; notRun: number } {
   const c = { pass: 0, fail: 0, notChecked: 0, notRun: 0 };
