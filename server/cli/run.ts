@@ -3,6 +3,7 @@
  *   trestle analyse <input> --out <dir>   displacements.csv, reactions.csv, member_forces.csv
  *                                         (and moving_extremes.csv with moving loads)
  *   trestle check <input> --out <dir>     the same plus utilisation.csv and checks.csv
+ *   trestle suggest <input> --out <dir>   suggestions.csv: lightest passing sections (suggest.ts)
  * Both add stability.csv (elastic critical load factors) when `buckling_modes` > 0 or αcr were
  * computed for the first-order stability warning, and modes.csv when `modes` > 0. The
  * analysis is the one the settings ask for (`analysis` = first_order | second_order).
@@ -25,6 +26,7 @@ import type { StabilitySummary } from '../../shared/stability/types.js';
 import { stabilityToJson } from '../runs/stability-codec.js';
 import { stabilityTables } from '../runs/stability-tables.js';
 import { readModelInput } from './input.js';
+import { runSuggestCli, SUGGEST_USAGE } from './suggest.js';
 
 export interface CliIO {
   out(line: string): void;
@@ -36,6 +38,7 @@ export const EXIT = { ok: 0, invalid: 1, unstable: 2, failed: 3 } as const;
 const USAGE = [
   'usage: trestle analyse <input> --out <dir>',
   '       trestle check <input> --out <dir>',
+  SUGGEST_USAGE,
   '<input> is an .xlsx workbook or a folder of <table>.csv files',
 ];
 
@@ -87,6 +90,7 @@ function stabilityLine(s: ReturnType<typeof stabilityToJson>): string {
 
 export async function runCli(args: string[], io: CliIO): Promise<number> {
   try {
+    if (args[0] === 'suggest') return await runSuggestCli(args.slice(1), io);
     const parsed = parseArgs(args);
     if (typeof parsed === 'string') {
       io.err(`trestle: ${parsed}`);

@@ -7,3 +7,4 @@ export * from './types.js';
 export { suggestSections, normaliseLimits, SUGGEST_NOTES } from './suggest.js';
 export { iterateSuggestions, applySections, changesOf, MAX_ITERATIONS, type IterateOptions } from './iterate.js';
 export { familySections, familyOf, seriesOf, withinLimits, widthOf, depthOf } from './candidates.js';
+export { suggestionsTable, SUGGESTIONS_HEADER } from './table.js';
