@@ -102,7 +102,7 @@ describe('POST /api/projects/:id/imports', () => {
 });
 
 describe('templates', () => {
-  it('gives a workbook with an instructions sheet and headers carrying default units', async () => {
+  it('gives a workbook with the instructions as a note (no sheet that is not a table) and headers carrying default units', async () => {
     const res = await t.as('viewer').get('/api/templates/model.xlsx?units=us').buffer(true).parse((r, cb) => {
       const chunks: Buffer[] = [];
       r.on('data', (c: Buffer) => chunks.push(c));
@@ -111,7 +111,8 @@ describe('templates', () => {
     expect(res.status).toBe(200);
     const wb = new ExcelJS.Workbook();
     await wb.xlsx.load(res.body as unknown as ArrayBuffer);
-    expect(wb.getWorksheet('instructions')).toBeDefined();
+    expect(wb.getWorksheet('instructions')).toBeUndefined();
+    expect(String(wb.getWorksheet('settings')!.getCell('A1').note)).toContain('How to fill in this workbook');
     const nodes = wb.getWorksheet('nodes')!;
     expect(nodes.getRow(1).values).toEqual([undefined, 'node', 'x [ft]', 'y [ft]', 'z [ft]']);
     const members = wb.getWorksheet('members')!;
