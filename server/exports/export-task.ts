@@ -10,6 +10,7 @@ import { csvChunks, type ResultTable } from '../../shared/exports/index.js';
 import type { DesignCode, Model } from '../../shared/model/types.js';
 import type { ExportFormat, LoadingInfo } from '../../shared/schemas/runs.js';
 import { checksExport, displacementsExport, reactionsExport, storedNodeResults, storedNoiseFloor, utilisationExport } from './tables.js';
+import { cleanTableNoise } from './noise.js';
 import { writeXlsx, type HeaderBlock } from './xlsx.js';
 
 /** Which table an export writes. */
@@ -135,8 +136,9 @@ export class ChunkSink extends Writable {
   }
 }
 
-/** Writes the table as the task's format into chunks; resolves when the last one was emitted. */
+/** Writes the table as the task's format into chunks (noise written as 0, ./noise.ts); resolves when the last one was emitted. */
 export async function streamTable(table: ResultTable, task: ExportTask, model: Model, emit: (chunk: Uint8Array) => void): Promise<ExportTaskResult> {
+  cleanTableNoise(table);
   const sink = new ChunkSink(emit);
   const finished = new Promise<void>((resolve, reject) => {
     sink.on('finish', resolve);
