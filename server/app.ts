@@ -22,6 +22,7 @@ import { usersRouter } from './users/user.router.js';
 import { modelsRouter, projectModelsRouter } from './models/model.router.js';
 import { importsRouter } from './imports/import.router.js';
 import { runsRouter } from './runs/run.router.js';
+import { suggestionsRouter } from './suggestions/suggestion.router.js';
 import { reportsRouter } from './reports/report.router.js';
 import { closeRunPool } from './runs/worker-pool.js';
 import { samplesRouter, templatesRouter } from './samples/sample.router.js';
@@ -61,6 +62,7 @@ export const apiRouters: [string, (ctx: AppContext) => Router][] = [
   ['/api/runs/:runId/review', reviewsRouter],
   ['/api/runs/:runId/comments', commentsRouter],
   ['/api/runs/:runId/reports', reportsRouter],
+  ['/api/runs/:runId/suggestions', suggestionsRouter],
   ['/api/audit', auditRouter],
   ['/api/outbox', outboxRouter],
   ['/api/account', accountRouter],

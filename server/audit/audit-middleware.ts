@@ -70,6 +70,17 @@ const RULES: Rule[] = [
       return { version: num(b?.currentVersion) ?? undefined, detail: `${edits} table edit(s) on version ${num(reqBody(r).baseVersion) ?? '?'}` };
     },
   },
+  {
+    method: 'POST',
+    path: /^\/api\/runs\/(\d+)\/suggestions\/apply$/,
+    action: 'edit',
+    describe: (r, b, m) => {
+      const changes = Array.isArray(reqBody(r).changes) ? (reqBody(r).changes as unknown[]).length : 0;
+      const model = (b?.model ?? {}) as Record<string, unknown>;
+      const run = (b?.run ?? {}) as Record<string, unknown>;
+      return { version: num(model.currentVersion) ?? undefined, detail: `${changes} section suggestion(s) of run ${m[1]} applied as version ${num(model.currentVersion) ?? '?'}; run ${num(run.id) ?? '?'} started` };
+    },
+  },
   { method: 'POST', path: /^\/api\/models\/(\d+)\/runs$/, action: 'run', describe: (_r, b) => ({ runId: num(b?.id), version: num(b?.version) ?? undefined, detail: `run ${num(b?.id)} of version ${num(b?.version)}` }) },
   { method: 'POST', path: /^\/api\/runs\/(\d+)\/review\/submit$/, action: 'submit', describe: (r) => ({ detail: str(reqBody(r).message) }) },
   { method: 'POST', path: /^\/api\/runs\/(\d+)\/review\/return$/, action: 'return', describe: (r) => ({ detail: str(reqBody(r).message) }) },

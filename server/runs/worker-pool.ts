@@ -15,7 +15,7 @@ import type { TaskResult, WorkerReply, WorkerTask } from './worker-protocol.js';
 /** How long a task waits for the busy worker that holds its run's analysis before another re-analyses. */
 const HOLDER_WAIT_MS = 3000;
 /** Tasks that work on a run's analysis (an export needs it for member forces and recomputed checks). */
-const USES_ANALYSIS = new Set<WorkerTask['kind']>(['member', 'forces', 'checks', 'export']);
+const USES_ANALYSIS = new Set<WorkerTask['kind']>(['member', 'forces', 'checks', 'export', 'suggest']);
 
 interface Pending {
   id: number;

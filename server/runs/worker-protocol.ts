@@ -12,6 +12,7 @@ export type { ExportTask } from '../exports/export-task.js';
 import type { MembersTask } from './members-table.js';
 
 export type { MembersTask } from './members-table.js';
+import type { SuggestTask, SuggestTaskResult } from '../suggestions/suggest-task.js';
 import type { CompareTask, GeometryTask } from './read-tasks.js';
 
 export type { CompareTask, GeometryTask } from './read-tasks.js';
@@ -59,7 +60,7 @@ export interface ReadTask {
   limits?: Partial<XlsxLimits>;
 }
 
-export type WorkerTask = RunTask | MemberTask | ForcesTask | ChecksTask | ReadTask | ExportTask | MembersTask | GeometryTask | CompareTask;
+export type WorkerTask = RunTask | MemberTask | ForcesTask | ChecksTask | ReadTask | ExportTask | MembersTask | GeometryTask | CompareTask | SuggestTask;
 
 export interface MemberTaskResult {
   stations: Stations;
@@ -82,7 +83,9 @@ export type TaskResult<T extends WorkerTask> = T extends RunTask
         ? ExportTaskResult
         : T extends MembersTask | GeometryTask | CompareTask
           ? Uint8Array
-          : ResultTable;
+          : T extends SuggestTask
+            ? SuggestTaskResult
+            : ResultTable;
 
 export type WorkerRequest = { id: number; task: WorkerTask };
 

@@ -12,6 +12,7 @@ import { membersPayload } from './members-table.js';
 import { comparePayload, geometryPayload } from './read-tasks.js';
 import { exportModel, storedTable, streamTable, type ExportTask, type ExportTaskResult } from '../exports/export-task.js';
 import { readCsvBytes, readWorkbook } from '../../shared/reader/index.js';
+import { runSuggestTask } from '../suggestions/suggest-task.js';
 
 /** Analyses kept per worker, newest last. */
 const CACHE_SIZE = 2;
@@ -67,6 +68,7 @@ export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => vo
   if (task.kind === 'read') return readFiles(task);
   if (task.kind === 'export') return exportFile(task, onChunk);
   if (task.kind === 'members') return membersPayload(task);
+  if (task.kind === 'suggest') return runSuggestTask(task, analysedFor);
   if (task.kind === 'geometry') return geometryPayload(task);
   if (task.kind === 'compare') return comparePayload(task);
   switch (task.kind) {

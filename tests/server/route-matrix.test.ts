@@ -83,6 +83,8 @@ export const ROUTES: RouteRule[] = [
   { method: 'POST', path: '/api/runs/:runId/reports', allowed: READ },
   { method: 'GET', path: '/api/runs/:runId/reports/:reportId', allowed: READ },
   { method: 'GET', path: '/api/runs/:runId/reports/:reportId/file', allowed: READ },
+  { method: 'POST', path: '/api/runs/:runId/suggestions', allowed: EDIT },
+  { method: 'POST', path: '/api/runs/:runId/suggestions/apply', allowed: EDIT },
   { method: 'GET', path: '/api/audit', allowed: LEAD },
   { method: 'GET', path: '/api/audit/export.csv', allowed: LEAD },
   { method: 'GET', path: '/api/outbox', allowed: 'signed-in' },

@@ -74,6 +74,8 @@ const ROUTES: ScopedRoute[] = [
   { method: 'POST', path: '/api/runs/:runId/reports', min: 'viewer', url: () => `/api/runs/${runId}/reports` },
   { method: 'GET', path: '/api/runs/:runId/reports/:reportId', min: 'viewer', url: () => `/api/runs/${runId}/reports/${reportId}` },
   { method: 'GET', path: '/api/runs/:runId/reports/:reportId/file', min: 'viewer', url: () => `/api/runs/${runId}/reports/${reportId}/file` },
+  { method: 'POST', path: '/api/runs/:runId/suggestions', min: 'engineer', url: () => `/api/runs/${runId}/suggestions` },
+  { method: 'POST', path: '/api/runs/:runId/suggestions/apply', min: 'engineer', url: () => `/api/runs/${runId}/suggestions/apply` },
 ];
 
 /** Routes that name no project (accounts, users, audit with its own scoping, samples, outbox). */
