@@ -58,10 +58,14 @@ export function segmentColors(members: RunGeometry['members']): Float32Array {
   return out;
 }
 
-/** A deflection scale that makes the largest displacement a tenth of the model's size. */
+/**
+ * A deflection scale that makes the largest displacement about 5 % of the model's size
+ * (rounded down to 1, 2 or 5 × a power of ten, so the drawn size is between 2 % and 5 %).
+ */
+export const DEFLECTION_SHARE = 0.05;
 export function defaultDeflectionScale(maxDisplacement: number, size: number): number {
-  if (!(maxDisplacement > 0)) return 1;
-  const raw = (0.1 * size) / maxDisplacement;
+  if (!(maxDisplacement > 0) || !(size > 0)) return 1;
+  const raw = (DEFLECTION_SHARE * size) / maxDisplacement;
   const p = Math.pow(10, Math.floor(Math.log10(raw)));
   const m = raw / p;
   return (m >= 5 ? 5 : m >= 2 ? 2 : 1) * p;
@@ -69,14 +73,22 @@ export function defaultDeflectionScale(maxDisplacement: number, size: number): n
 
 /**
  * Direction from the model's centre to the camera and the up vector. A plane frame is seen
- * face-on along its normal; a 3D model from a corner, with the vertical axis up.
+ * face-on along its normal, from the side that puts the plane's first horizontal axis (+X,
+ * or +Y for a YZ frame, +Z for a YZ frame with Y up) to the right: the camera's right is
+ * up × dir (three.js lookAt), so an XZ frame with Z up is seen from −Y, not from +Y (which
+ * drew it mirrored, +x running left). A 3D model is seen from a corner, vertical axis up.
  */
 export function viewDirection(verticalAxis: 'Y' | 'Z', planeNormal: 'X' | 'Y' | 'Z' | null): { dir: [number, number, number]; up: [number, number, number] } {
   const up: [number, number, number] = verticalAxis === 'Y' ? [0, 1, 0] : [0, 0, 1];
   if (planeNormal) {
-    const dir: [number, number, number] = planeNormal === 'X' ? [1, 0, 0] : planeNormal === 'Y' ? [0, 1, 0] : [0, 0, 1];
+    const k = planeNormal === 'X' ? 0 : planeNormal === 'Y' ? 1 : 2;
     // looking along the vertical axis (a floor plan): keep a horizontal axis up instead
     const upFace: [number, number, number] = planeNormal === verticalAxis ? (verticalAxis === 'Y' ? [0, 0, -1] : [0, 1, 0]) : up;
+    const dir: [number, number, number] = [0, 0, 0];
+    dir[k] = 1;
+    // right = up × dir; its in-plane horizontal component must be positive
+    const right = [upFace[1] * dir[2] - upFace[2] * dir[1], upFace[2] * dir[0] - upFace[0] * dir[2], upFace[0] * dir[1] - upFace[1] * dir[0]];
+    if (right[0] + right[1] + right[2] < 0) dir[k] = -1;
     return { dir, up: upFace };
   }
   return verticalAxis === 'Y' ? { dir: [1, 0.7, 1.3], up } : { dir: [1, -1.3, 0.7], up };

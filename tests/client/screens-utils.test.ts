@@ -167,13 +167,13 @@ describe('picture numbers', () => {
     expect(c[6]).not.toBe(c[0]);
     expect(modelExtent(g.nodes)).toEqual({ center: [6, 0, 0], size: 12 });
   });
-  it('picks a round deflection scale that makes the largest displacement a tenth of the model', () => {
-    expect(defaultDeflectionScale(0.01, 12)).toBe(100); // 0.1 × 12 / 0.01 = 120 → rounded down to 100
+  it('picks a round deflection scale that makes the largest displacement about 5 % of the model', () => {
+    expect(defaultDeflectionScale(0.01, 12)).toBe(50); // 0.05 × 12 / 0.01 = 60 → rounded down to 50 (picture-view.test.ts has more)
     expect(defaultDeflectionScale(0, 12)).toBe(1);
   });
   it('looks at a plane frame along its normal with the vertical axis up', () => {
     expect(viewDirection('Y', 'Z')).toEqual({ dir: [0, 0, 1], up: [0, 1, 0] });
-    expect(viewDirection('Z', 'Y')).toEqual({ dir: [0, 1, 0], up: [0, 0, 1] });
+    expect(viewDirection('Z', 'Y')).toEqual({ dir: [0, -1, 0], up: [0, 0, 1] }); // from −Y so +X runs right (picture-view.test.ts)
     expect(viewDirection('Z', null).up).toEqual([0, 0, 1]);
   });
 });
