@@ -9,6 +9,7 @@ import { notFound } from '../errors/app-error.js';
 import { decodeModel } from '../models/model-codec.js';
 import { ModelVersionEntity } from '../models/model.entity.js';
 import { RunEntity } from '../runs/run.entity.js';
+import { storedMember } from '../runs/result-parts.js';
 
 /** Member ids of the last few model versions commented on (a version never changes). */
 const memberIds = new Map<string, Set<string>>();
@@ -17,6 +18,10 @@ const memberIds = new Map<string, Set<string>>();
 async function assertMemberOfRun(ds: DataSource, runId: number, member: string): Promise<void> {
   const run = await ds.getRepository(RunEntity).findOneBy({ id: runId });
   if (!run) throw notFound(`Run ${runId} not found`);
+  // a finished run keeps one row per member: one row read answers it
+  const stored = await storedMember(ds, runId, member);
+  if (stored) return;
+  if (stored === undefined) throw notFound(`Member ${member} not found in run ${runId}`);
   const key = `${run.modelId}/${run.version}`;
   let ids = memberIds.get(key);
   if (!ids) {
