@@ -11,9 +11,9 @@ export function memberLinkCell(href: (member: string) => string | null, counts: 
     const wrap = document.createElement('span');
     const link = document.createElement(target ? 'a' : 'span');
     link.textContent = id;
-    link.className = 'member-link';
-    link.dataset.test = 'member-link';
     if (target && link instanceof HTMLAnchorElement) {
+      link.className = 'member-link';
+      link.dataset.test = 'member-link';
       link.href = target;
       // the grid keeps keyboard focus on cells (Enter opens the member); the link is for the pointer
       link.tabIndex = -1;
