@@ -12,6 +12,7 @@ import { membersPayload } from './members-table.js';
 import { comparePayload, geometryPayload } from './read-tasks.js';
 import { exportModel, storedTable, streamTable, type ExportTask, type ExportTaskResult } from '../exports/export-task.js';
 import { readCsvBytes, readWorkbook } from '../../shared/reader/index.js';
+import { clean, denoise, NOISE_RELATIVE, noiseFloor } from '../../shared/design/noise.js';
 import { runSuggestTask } from '../suggestions/suggest-task.js';
 
 /** Analyses kept per worker, newest last. */
@@ -56,6 +57,22 @@ export function stationsJson(s: StationForces): Stations {
   };
 }
 
+/**
+ * One member's diagrams with numerical noise as zero (shared/design/noise.ts): forces and
+ * moments against the floor the exports use (every loading of the run); deflections against
+ * NOISE_RELATIVE of the loading's largest node translation.
+ */
+export function memberStations(model: Model, analysis: AnalysisResult, member: number, loading: number): Stations {
+  const out = stationsJson(denoise(analysis.memberForces(member, loading), noiseFloor(model, analysis)));
+  const u = analysis.displacements(loading);
+  let largest = 0;
+  for (let i = 0; i < u.length; i += 6) largest = Math.max(largest, Math.hypot(u[i], u[i + 1], u[i + 2]) || 0);
+  const floor = NOISE_RELATIVE * largest;
+  out.d_major = out.d_major.map((v) => clean(v, floor));
+  out.d_minor = out.d_minor.map((v) => clean(v, floor));
+  return out;
+}
+
 /** The member-forces table for some loadings, through a view of the analysis limited to them. */
 function memberForces(model: Model, analysis: AnalysisResult, loadings: number[]): ForcesTaskResult {
   const view = Object.create(analysis) as AnalysisResult;
@@ -80,7 +97,7 @@ export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => vo
     case 'member': {
       const { model, analysis, stability } = analysedFor(task);
       const result: MemberTaskResult = {
-        stations: stationsJson(analysis.memberForces(task.member, task.loading)),
+        stations: memberStations(model, analysis, task.member, task.loading),
         governingRecords: task.governing >= 0 ? checkMemberWithStability(model, analysis, task.member, task.governing, stability) : [],
         loadingRecords:
           analysis.loadings[task.loading]?.kind === 'combination' ? checkMemberWithStability(model, analysis, task.member, task.loading, stability) : [],
