@@ -10,6 +10,7 @@ import { csvChunks, type ResultTable } from '../../shared/exports/index.js';
 import type { DesignCode, Model } from '../../shared/model/types.js';
 import type { ExportFormat, LoadingInfo } from '../../shared/schemas/runs.js';
 import { checksExport, displacementsExport, reactionsExport, storedNodeResults, storedNoiseFloor, utilisationExport } from './tables.js';
+import { settingLines } from '../../shared/reader/settings-summary.js';
 import { cleanTableNoise } from './noise.js';
 import { writeXlsx, type HeaderBlock } from './xlsx.js';
 
@@ -136,6 +137,15 @@ export class ChunkSink extends Writable {
   }
 }
 
+/**
+ * The settings lines of the header block: those that apply to the run's code, less the ones
+ * the block names on its own rows (title, design code, units, analysis).
+ */
+export function exportSettingLines(model: Model): [string, string][] {
+  const own = new Set(['title', 'design_code', 'units', 'analysis']);
+  return settingLines(model.settings).filter((l) => !own.has(l.key)).map((l) => [l.label, l.value]);
+}
+
 /** Writes the table as the task's format into chunks (noise written as 0, ./noise.ts); resolves when the last one was emitted. */
 export async function streamTable(table: ResultTable, task: ExportTask, model: Model, emit: (chunk: Uint8Array) => void): Promise<ExportTaskResult> {
   cleanTableNoise(table);
@@ -148,7 +158,7 @@ export async function streamTable(table: ResultTable, task: ExportTask, model: M
     for (const piece of csvChunks(table)) sink.write(piece);
     sink.end();
   } else {
-    await writeXlsx(table, { ...task.header, units: model.settings.units }, sink);
+    await writeXlsx(table, { ...task.header, units: model.settings.units, settings: exportSettingLines(model) }, sink);
   }
   await finished;
   return { rows: table.rows.length, bytes: sink.bytes };

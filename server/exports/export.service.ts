@@ -7,11 +7,14 @@
  * results use the export pool; member forces and checks that were not kept need the analysis,
  * so they go to the run pool, whose workers hold it.
  */
+import { readFileSync } from 'node:fs';
 import type { DataSource } from 'typeorm';
 import type { ExportFormat, ExportKind, LoadingInfo } from '../../shared/schemas/runs.js';
 import { AppError, badRequest } from '../errors/app-error.js';
 import { findModel, findVersion } from '../models/model.service.js';
 import { findProject } from '../projects/project.service.js';
+import { RunReviewEntity } from '../reviews/review.entity.js';
+import { UserEntity } from '../users/user.entity.js';
 import { doneRun, loadingsOf, runMethod } from '../runs/run.service.js';
 import { storedLoadingBlocks } from '../runs/result-parts.js';
 import type { RunRecord } from '../runs/run.entity.js';
@@ -43,6 +46,7 @@ export async function exportFrame(ds: DataSource, run: RunRecord, suffix: string
   const model = await findModel(ds, run.modelId);
   const project = await findProject(ds, model.projectId);
   const version = await findVersion(ds, run.modelId, run.version);
+  const people = await runPeople(ds, run);
   const header: Omit<HeaderBlock, 'units'> = {
     project: project.name,
     model: model.name,
@@ -53,6 +57,8 @@ export async function exportFrame(ds: DataSource, run: RunRecord, suffix: string
     counts: { pass: run.passCount ?? 0, fail: run.failCount ?? 0, notChecked: run.notCheckedCount ?? 0 },
     reviewStatus: run.reviewStatus,
     method,
+    ...people,
+    software: softwareVersion(),
   };
   return {
     fileName: `${safeName(model.name)}-v${run.version}-run${run.id}-${suffix}.${format}`,
@@ -60,6 +66,27 @@ export async function exportFrame(ds: DataSource, run: RunRecord, suffix: string
     header,
     modelData: version.modelData,
   };
+}
+
+const stamp = (d: Date) => `${d.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
+
+/** Who ran the run and who approved it when (the last approval), in words for the header block. */
+export async function runPeople(ds: DataSource, run: RunRecord): Promise<{ ranBy: string; approved: string }> {
+  const approval = await ds.getRepository(RunReviewEntity).findOne({ where: { runId: run.id, action: 'approve' }, order: { id: 'DESC' } });
+  const ids = [run.createdBy, approval?.userId ?? null].filter((id): id is number => id !== null);
+  const users = ids.length ? await ds.getRepository(UserEntity).findBy(ids.map((id) => ({ id }))) : [];
+  const name = (id: number | null) => (id === null ? 'unknown' : (users.find((u) => u.id === id)?.name ?? `user ${id}`));
+  return {
+    ranBy: `${name(run.createdBy)}, ${stamp(run.createdAt)}`,
+    approved: approval && run.reviewStatus === 'approved' ? `${name(approval.userId)}, ${stamp(approval.createdAt)}` : `not approved (review status: ${run.reviewStatus})`,
+  };
+}
+
+let software: string | null = null;
+/** `Trestle <version>` from package.json, read once. */
+export function softwareVersion(): string {
+  software ??= `Trestle ${(JSON.parse(readFileSync(new URL('../../package.json', import.meta.url), 'utf8')) as { version: string }).version}`;
+  return software;
 }
 
 function chosenLoading(loadings: LoadingInfo[], loading: string | undefined): number[] | undefined {

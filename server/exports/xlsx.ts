@@ -1,6 +1,7 @@
 /**
  * An export table as a formatted workbook: a header block (project, model, version, run,
- * date, code, units, status counts, the caution), then the table with a frozen header row,
+ * date, code, analysis method, units, the settings that apply to the code, who ran and who
+ * approved the run and when, the software version, status counts, the caution), then the table with a frozen header row,
  * an autofilter, number formats and fills for ratio bands.
  */
 import { PassThrough, type Writable } from 'node:stream';
@@ -8,6 +9,8 @@ import ExcelJS from 'exceljs';
 import { ratioBand, type RatioBand } from '../../shared/results/member-rows.js';
 import { CHECK_FAMILIES, type CheckStatus } from '../../shared/design/types.js';
 import { neutraliseText, type ResultTable } from '../../shared/exports/index.js';
+import type { DesignCode, UnitSystem } from '../../shared/model/types.js';
+import { DESIGN_CODE_NAMES, UNIT_SYSTEM_NAMES } from '../../shared/reader/settings-summary.js';
 
 export const CAUTION =
   'Results are for checking by a competent engineer. The design checks implement the cited clauses with the ' +
@@ -34,6 +37,14 @@ export interface HeaderBlock {
   reviewStatus: string;
   /** the analysis method in words (first or second order, the code's method) */
   method?: string;
+  /** settings that apply to the code, as [label, value] (shared/reader/settings-summary.ts) */
+  settings?: [string, string][];
+  /** who started the run and when */
+  ranBy?: string;
+  /** "name, date" of the approval, or why there is none */
+  approved?: string;
+  /** `Trestle <package.json version>` */
+  software?: string;
 }
 
 const TITLES: Record<string, string> = {
@@ -65,9 +76,13 @@ export async function writeXlsx(table: ResultTable, header: HeaderBlock, stream:
     ['Model version', header.version],
     ['Run', header.run],
     ['Date', header.date],
-    ['Design code', header.code],
+    ['Design code', DESIGN_CODE_NAMES[header.code as DesignCode] ?? header.code],
     ...(header.method ? [['Analysis', header.method] as [string, string]] : []),
-    ['Units', header.units],
+    ['Units', UNIT_SYSTEM_NAMES[header.units as UnitSystem] ?? header.units],
+    ...(header.settings ?? []).map(([k, v]) => [k, neutralise(v)] as [string, string]),
+    ...(header.ranBy ? [['Run by', neutralise(header.ranBy)] as [string, string]] : []),
+    ...(header.approved ? [['Approved by / on', neutralise(header.approved)] as [string, string]] : []),
+    ...(header.software ? [['Software', header.software] as [string, string]] : []),
     ['Members passing', header.counts.pass],
     ['Members failing', header.counts.fail],
     ['Members not checked', header.counts.notChecked],

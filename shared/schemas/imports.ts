@@ -48,6 +48,10 @@ export const importPreviewSchema = z.object({
       designCode: z.string(),
       combinationRule: z.string(),
       deflectionLimit: z.number(),
+      /** partial factors (tables.md; shown only under en1993-1-1, shared/reader/settings-summary.ts) */
+      gammaM0: z.number().optional(),
+      gammaM1: z.number().optional(),
+      gammaM2: z.number().optional(),
       /** result stations per member (settings `stations`) */
       stations: z.number().int().optional(),
       analysis: z.enum(['first_order', 'second_order']).optional(),

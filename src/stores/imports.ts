@@ -1,9 +1,10 @@
 /** Imports: the upload being previewed, its commit, and the sample list. */
 import { defineStore } from 'pinia';
-import { ref } from 'vue';
+import { computed, ref } from 'vue';
 import * as importsApi from '../api/imports.js';
 import type { CommitResult, ImportPreview, SampleInfo } from '../../shared/schemas/imports.js';
 import { errorMessage } from '../utils/format.js';
+import { cappedNote, errorsFirst, problemsByTable } from '../utils/importProblems.js';
 
 export const useImportsStore = defineStore('imports', () => {
   const preview = ref<ImportPreview | null>(null);
@@ -11,6 +12,12 @@ export const useImportsStore = defineStore('imports', () => {
   const uploading = ref(false);
   const committing = ref(false);
   const error = ref<string | null>(null);
+  /** problems as listed (the first 1,000 at most), errors first */
+  const problems = computed(() => errorsFirst(preview.value?.problems ?? []));
+  /** counts by table over every problem, tables with errors first */
+  const problemTables = computed(() => (preview.value ? problemsByTable(preview.value) : []));
+  /** "Showing 1,000 of N problems …" when the server capped the list */
+  const capped = computed(() => (preview.value ? cappedNote(preview.value) : null));
 
   async function upload(projectId: number, files: readonly File[], fields: importsApi.UploadFields = {}): Promise<ImportPreview | null> {
     uploading.value = true;
@@ -56,5 +63,5 @@ export const useImportsStore = defineStore('imports', () => {
     error.value = null;
   }
 
-  return { preview, samples, uploading, committing, error, upload, commit, loadSamples, reset };
+  return { preview, samples, uploading, committing, error, problems, problemTables, capped, upload, commit, loadSamples, reset };
 });

@@ -1,4 +1,5 @@
 /** Exports: formula neutralisation, the XLSX header block and rows read back with exceljs. */
+import { readFileSync } from 'node:fs';
 import ExcelJS from 'exceljs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { MemberUtilisation } from '../../../shared/design/types.js';
@@ -66,7 +67,8 @@ describe('export tables', () => {
     expect(labels.get('Model')).toBe("'@model");
     expect(labels.get('Model version')).toBe(3);
     expect(labels.get('Run')).toBe(7);
-    expect(labels.get('Design code')).toBe('en1993-1-1');
+    expect(labels.get('Design code')).toBe('EN 1993-1-1'); // the code's name, not its settings key
+    expect(labels.get('Units')).toBe('Metric (kN, m, MPa)');
     expect(labels.get('Members failing')).toBe(1);
     expect(ws.getCell(13, 1).value).toBe(CAUTION);
     const headerRow = 15;
@@ -111,6 +113,19 @@ describe('GET /api/runs/:id/exports', () => {
     expect(ws.getCell(h + 1, 1).value).toBe('M1');
     expect(ws.getCell(h + 1, 2).value).toBe("'=cmd|calc");
     expect(ws.getCell(h + 2, 1).value).toBe('M2');
+    // the header block: the settings that apply to EN 1993-1-1 with readable labels, who ran and approved it, the software
+    const block = new Map<string, unknown>();
+    for (let r = 2; r < h; r++) block.set(String(ws.getCell(r, 1).value), ws.getCell(r, 2).value);
+    expect(block.get('Design code')).toBe('EN 1993-1-1');
+    expect(block.get('Analysis')).toBeTruthy();
+    // tables.md defaults: γM0 = 1.0, γM1 = 1.0, γM2 = 1.25 (EN 1993-1-1 6.1 recommended values)
+    expect([block.get('Partial factor γM0'), block.get('Partial factor γM1'), block.get('Partial factor γM2')]).toEqual(['1.00', '1.00', '1.25']);
+    expect(block.get('Deflection limit')).toBe('span / 360');
+    expect(String(block.get('Run by'))).toMatch(/ UTC$/);
+    expect(block.get('Approved by / on')).toBe('not approved (review status: draft)');
+    const pkg = JSON.parse(readFileSync(new URL('../../../package.json', import.meta.url), 'utf8')) as { version: string };
+    expect(block.get('Software')).toBe(`Trestle ${pkg.version}`);
+    expect([...block.keys()].some((k) => /gamma|design_code|_/.test(k))).toBe(false);
   });
 
   it('exports checks, displacements, reactions and member forces as CSV with bracketed units', async () => {
