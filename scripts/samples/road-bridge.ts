@@ -3,9 +3,17 @@
  * lane road bridge, drawn as a plane frame in X–Z. 8 panels of 6 m, 6.5 m deep; the bottom
  * chord is continuous (frame members) and carries its share of the deck directly, so the
  * vehicle runs along it (the lane). A four-axle design vehicle of our own invention (TRX-4).
- * Metric, EN 1993-1-1. Every number is invented demo data.
+ * Metric; member checks of EN 1993-1-1 with the partial factors EN 1993-2 recommends for
+ * bridges (see BRIDGE_PARTIAL_FACTORS). Every other number is invented demo data.
  */
 import type { SampleModel, Table, Value } from './models.js';
+
+/**
+ * Partial factors for a steel bridge: EN 1993-2 6.1 (1), Note 2B, recommended values
+ * γM0 = 1.00, γM1 = 1.10, γM2 = 1.25 (from memory; a national annex may set others). The
+ * settings `gamma_m0`, `gamma_m1`, `gamma_m2` apply them to the EN 1993-1-1 member checks.
+ */
+export const BRIDGE_PARTIAL_FACTORS = { gamma_m0: 1.0, gamma_m1: 1.1, gamma_m2: 1.25 } as const;
 
 export function roadBridgeTruss(): SampleModel {
   const panels = 8, p = 6.0, h = 6.5;
@@ -38,6 +46,10 @@ export function roadBridgeTruss(): SampleModel {
         ['design_code', 'en1993-1-1'],
         ['combination_rule', 'table'],
         ['deflection_limit', 600],
+        // bridge partial factors, EN 1993-2 6.1 (1) (from memory): see BRIDGE_PARTIAL_FACTORS
+        ['gamma_m0', BRIDGE_PARTIAL_FACTORS.gamma_m0],
+        ['gamma_m1', BRIDGE_PARTIAL_FACTORS.gamma_m1],
+        ['gamma_m2', BRIDGE_PARTIAL_FACTORS.gamma_m2],
       ],
       materials: [
         ['material', 'E [GPa]', 'nu', 'fy [MPa]', 'fu [MPa]', 'density', 'alpha'],

@@ -51,6 +51,23 @@ export async function seedDemoAccounts(manager: EntityManager, demoPasswordHash?
   return users;
 }
 
+/**
+ * What the demo projects hold: the models seeded from samples/ (server/models/model.seed.ts puts
+ * the metric samples in the first project and the US ones in the second). Kept in step with
+ * scripts/samples/ by tests/samples/descriptions.test.ts.
+ */
+export const DEMO_PROJECT_DESCRIPTIONS = {
+  metric:
+    'Demo project (invented data), metric, EN 1993-1-1. A 30 m steel footbridge of two Pratt trusses (10 panels of 3 m, ' +
+    '3.2 m deep); beside it a process plant platform (3D, braced), the main truss of a 48 m road bridge with a design ' +
+    'vehicle crossing it (bridge partial factors of EN 1993-2: γM1 = 1.10), and a three-storey workshop moment frame ' +
+    'analysed to second order.',
+  us:
+    'Demo project (invented data), US units, AISC 360-22 (LRFD). One frame of a two-bay storage shed: a pitched portal ' +
+    'frame of W-shape columns and rafters on pinned bases, frames at 25 ft centres, with roof, snow (drift in bay 2), ' +
+    'wind and hoist loads.',
+} as const;
+
 export async function seedDemoData(dataSource: DataSource): Promise<void> {
   await dataSource.transaction(async (manager) => {
     const users = await seedDemoAccounts(manager);
@@ -60,7 +77,7 @@ export async function seedDemoData(dataSource: DataSource): Promise<void> {
         name: 'Kestrel Creek footbridge',
         jobNumber: 'DEMO-101',
         client: 'Demo: Riverside Parks Trust',
-        description: 'Demo project. A 24 m steel Warren truss footbridge over a creek, checked to EN 1993-1-1.',
+        description: DEMO_PROJECT_DESCRIPTIONS.metric,
         designCode: 'en1993-1-1',
         units: 'metric',
         createdBy: users.engineer.id,
@@ -69,7 +86,7 @@ export async function seedDemoData(dataSource: DataSource): Promise<void> {
         name: 'Granary Row store roof',
         jobNumber: 'DEMO-102',
         client: 'Demo: Granary Row Holdings',
-        description: 'Demo project. Pitched steel roof trusses over a single-storey store, checked to AISC 360-22 (LRFD).',
+        description: DEMO_PROJECT_DESCRIPTIONS.us,
         designCode: 'aisc360-lrfd',
         units: 'us',
         createdBy: users.lead.id,
