@@ -7,7 +7,7 @@ export default defineConfig({
         test: {
           name: 'unit',
           include: ['tests/**/*.test.ts'],
-          exclude: ['tests/e2e/**'],
+          exclude: ['tests/e2e/**', 'tests/scaled/**'],
           environment: 'node',
           testTimeout: 30000,
         },
@@ -19,6 +19,17 @@ export default defineConfig({
           environment: 'node',
           testTimeout: 120000,
           hookTimeout: 180000,
+          fileParallelism: false,
+        },
+      },
+      {
+        // the scaled mode against real PostgreSQL and Redis (tests/scaled/); skips, naming what is missing
+        test: {
+          name: 'scaled',
+          include: ['tests/scaled/**/*.test.ts'],
+          environment: 'node',
+          testTimeout: 180000,
+          hookTimeout: 240000,
           fileParallelism: false,
         },
       },

@@ -12,6 +12,8 @@ import { resolveJwtSecret } from './config/secret.js';
 import { DATABASE_FILE, openDatabase } from './db/data-source.js';
 import { seedDemoData, seedFirstAdmin } from './db/seed.js';
 import { redactUrl } from './queue/connection.js';
+import { closeRateStore } from './queue/rate-store.js';
+import { closeRunsQueue } from './queue/task-queue.js';
 
 async function main(): Promise<void> {
   let env;
@@ -42,6 +44,11 @@ async function main(): Promise<void> {
     logger.warn('new database without demo data and no ADMIN_EMAIL/ADMIN_PASSWORD: nobody can sign in yet');
   }
 
+  if (env.QUEUE_URL) {
+    // scaled mode: runs, uploads and exports go to `npm run worker` processes; rate limits live in Redis
+    logger.info(`queue ${redactUrl(env.QUEUE_URL)}: runs, uploads and exports are worked on by \`npm run worker\` processes`);
+    shutdownHooks.push(closeRunsQueue, closeRateStore);
+  }
   const app = createApp({ config, dataSource, logger });
   const server: Server = await new Promise((resolve, reject) => {
     const s = env.HOST ? app.listen(env.PORT, env.HOST) : app.listen(env.PORT);

@@ -9,6 +9,7 @@ import { AppError } from '../errors/app-error.js';
 import { currentUser, requireAuth } from '../middleware/auth.js';
 import { toUser } from '../users/user.service.js';
 import { revokeSession } from '../security/session-revocation.js';
+import { sharedRateStore } from '../queue/rate-store.js';
 import { changePassword, login } from './auth.service.js';
 import { SESSION_COOKIE, sessionCookieOptions, signSession } from './session-token.js';
 
@@ -22,6 +23,7 @@ export function authRouter(ctx: AppContext): Router {
     windowMs: config.loginRateWindowMs,
     limit: config.loginRateLimit,
     skipSuccessfulRequests: true,
+    store: sharedRateStore('login'),
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     handler: (_req, _res, next) =>

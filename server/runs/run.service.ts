@@ -8,7 +8,7 @@
 import { gunzip } from 'node:zlib';
 import { promisify } from 'node:util';
 import { performance } from 'node:perf_hooks';
-import type { DataSource } from 'typeorm';
+import { In, type DataSource } from 'typeorm';
 import type { CheckRecord, MemberUtilisation } from '../../shared/design/types.js';
 import type { DesignCode, Model } from '../../shared/model/types.js';
 import { memberRows } from '../../shared/results/member-rows.js';
@@ -33,12 +33,15 @@ import type { PackedRun } from './run-compute.js';
 import { RunEntity, RunResultEntity, type RunRecord, type RunResultRecord } from './run.entity.js';
 import { resultsPool, runPool } from './worker-pool.js';
 import { shapeFromBlock } from './stability-codec.js';
+import { UserEntity } from '../users/user.entity.js';
+import { queueUrl } from '../queue/connection.js';
+import { enqueueRun } from '../queue/task-queue.js';
 import { RunLoadingResultEntity } from './result-parts.entity.js';
 import { saveParts, storedMember, type StoredMemberResult } from './result-parts.js';
 
 const gunzipAsync = promisify(gunzip);
 
-const PHASE_PROGRESS: Record<RunPhase, number> = {
+export const PHASE_PROGRESS: Record<RunPhase, number> = {
   reading: 0.05, assembling: 0.15, factorising: 0.3, solving: 0.45, recovering: 0.55, checking: 0.65, saving: 0.9,
 };
 
@@ -49,7 +52,7 @@ const iso = (d: Date | null) => (d ? d.toISOString() : null);
 async function userNames(ds: DataSource, ids: (number | null)[]): Promise<Map<number, string>> {
   const wanted = [...new Set(ids.filter((i): i is number => i !== null))];
   if (wanted.length === 0) return new Map();
-  const rows: { id: number; name: string }[] = await ds.query(`SELECT id, name FROM users WHERE id IN (${wanted.map(() => '?').join(',')})`, wanted);
+  const rows = await ds.getRepository(UserEntity).find({ select: { id: true, name: true }, where: { id: In(wanted) } });
   return new Map(rows.map((r) => [r.id, r.name]));
 }
 
@@ -121,7 +124,7 @@ export async function markInterruptedRuns(ds: DataSource): Promise<number> {
   const result = await ds
     .createQueryBuilder()
     .update(RunEntity)
-    .set({ status: 'failed', message: INTERRUPTED_MESSAGE, finishedAt: () => "datetime('now')" })
+    .set({ status: 'failed', message: INTERRUPTED_MESSAGE, finishedAt: new Date() })
     .where('status IN (:...s)', { s: ['queued', 'running'] })
     .execute();
   return result.affected ?? 0;
@@ -138,7 +141,8 @@ export function recoverInterruptedRuns(ds: DataSource, logger?: Logger): Promise
   if (logger) loggers.set(ds, logger);
   let p = recovered.get(ds);
   if (!p) {
-    p = markInterruptedRuns(ds).then(
+    // scaled mode (QUEUE_URL): other servers' runs are in the queue; only the queue fails them
+    p = (queueUrl() ? Promise.resolve(0) : markInterruptedRuns(ds)).then(
       (n) => {
         if (n > 0) logger?.warn(`${n} run${n === 1 ? '' : 's'} interrupted by a restart marked failed`);
       },
@@ -200,6 +204,18 @@ export function runFailureText(err: unknown): { text: string; internal: boolean 
 
 function dispatch(ds: DataSource, runId: number, modelJson: string, designCode: DesignCode): void {
   const logger = loggers.get(ds);
+  const url = queueUrl();
+  if (url) {
+    // scaled mode: a worker process analyses it and writes its row (server/queue/run-job.ts)
+    enqueueRun(url, runId).catch(async (err: unknown) => {
+      logger?.error(`run ${runId} could not be queued`, err);
+      await ds
+        .getRepository(RunEntity)
+        .update({ id: runId, status: 'queued' }, { status: 'failed', message: 'The run failed: the job queue could not be reached; start the run again', finishedAt: new Date() })
+        .catch(() => undefined);
+    });
+    return;
+  }
   // writes about one run happen in order, one after the other
   let chain: Promise<unknown> = Promise.resolve();
   const write = (patch: Partial<RunRecord>) => {
@@ -233,7 +249,7 @@ function dispatch(ds: DataSource, runId: number, modelJson: string, designCode: 
 
 const blobOrNull = (b: Uint8Array) => (b.byteLength > 0 ? Buffer.from(b.buffer, b.byteOffset, b.byteLength) : null);
 
-async function saveResults(ds: DataSource, runId: number, out: PackedRun): Promise<void> {
+export async function saveResults(ds: DataSource, runId: number, out: PackedRun): Promise<void> {
   const t0 = performance.now();
   const result: RunResultRecord = {
     runId,

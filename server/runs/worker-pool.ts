@@ -10,6 +10,7 @@
 import os from 'node:os';
 import { Worker } from 'node:worker_threads';
 import type { RunPhase } from '../../shared/schemas/runs.js';
+import { QueueTaskRunner } from '../queue/task-queue.js';
 import type { TaskResult, WorkerReply, WorkerTask } from './worker-protocol.js';
 
 /** How long a task waits for the busy worker that holds its run's analysis before another re-analyses. */
@@ -46,7 +47,21 @@ export interface TaskHooks {
   onChunk?: (data: Uint8Array) => void;
 }
 
-export class WorkerPool {
+/**
+ * What runs a task: the thread pool below (default), or the BullMQ queue of the scaled mode
+ * (server/queue/task-queue.ts, when QUEUE_URL is set), whose worker processes run the same
+ * task code in their own thread pools.
+ */
+export interface TaskRunner {
+  run<T extends WorkerTask>(task: T, hooks?: TaskHooks): Promise<TaskResult<T>>;
+  /** start what can be started before the first task */
+  warm(): Promise<void>;
+  /** tasks waiting */
+  readonly waiting: number;
+  close(): Promise<void>;
+}
+
+export class WorkerPool implements TaskRunner {
   private readonly slots: Slot[] = [];
   private readonly queue: Pending[] = [];
   private nextId = 1;
@@ -164,10 +179,24 @@ export class WorkerPool {
   }
 }
 
-let shared: WorkerPool | null = null;
+let shared: TaskRunner | null = null;
+let queued: TaskRunner | null = null;
 
-/** The process-wide pool (created on first use; size from RUN_WORKERS or min(2, cpus)). */
-export function runPool(): WorkerPool {
+/** Scaled mode: the queue to the worker processes (one per process), else null. */
+function queueRunner(): TaskRunner | null {
+  const url = process.env.QUEUE_URL?.trim();
+  if (!url) return null;
+  queued ??= new QueueTaskRunner(url);
+  return queued;
+}
+
+/**
+ * The process-wide pool (created on first use; size from RUN_WORKERS or min(2, cpus)); with
+ * QUEUE_URL, the queue to the worker processes.
+ */
+export function runPool(): TaskRunner {
+  const q = queueRunner();
+  if (q) return q;
   if (!shared) {
     const configured = Number(process.env.RUN_WORKERS);
     shared = Number.isInteger(configured) && configured > 0 ? new WorkerPool(configured) : new WorkerPool();
@@ -175,10 +204,15 @@ export function runPool(): WorkerPool {
   return shared;
 }
 
-let exports_: WorkerPool | null = null;
+let exports_: TaskRunner | null = null;
 
-/** Exports of stored results build in their own threads (EXPORT_WORKERS, default 1), so a run never waits behind one. */
-export function exportPool(): WorkerPool {
+/**
+ * Exports of stored results build in their own threads (EXPORT_WORKERS, default 1), so a run
+ * never waits behind one; with QUEUE_URL, in the worker processes.
+ */
+export function exportPool(): TaskRunner {
+  const q = queueRunner();
+  if (q) return q;
   if (!exports_) {
     const configured = Number(process.env.EXPORT_WORKERS);
     exports_ = new WorkerPool(Number.isInteger(configured) && configured > 0 ? configured : 1);
@@ -186,10 +220,10 @@ export function exportPool(): WorkerPool {
   return exports_;
 }
 
-let results_: WorkerPool | null = null;
+let results_: TaskRunner | null = null;
 
 /** The grid's payloads build in their own thread (RESULTS_WORKERS, default 1): never behind a run or an export. */
-export function resultsPool(): WorkerPool {
+export function resultsPool(): TaskRunner {
   if (!results_) {
     const configured = Number(process.env.RESULTS_WORKERS);
     results_ = new WorkerPool(Number.isInteger(configured) && configured > 0 ? configured : 1);
@@ -198,7 +232,8 @@ export function resultsPool(): WorkerPool {
 }
 
 export async function closeRunPool(): Promise<void> {
-  const pools = [shared, exports_, results_];
+  const pools = [shared, exports_, results_, queued];
+  queued = null;
   shared = null;
   exports_ = null;
   results_ = null;

@@ -11,6 +11,7 @@ import { rateLimit } from 'express-rate-limit';
 import { z } from 'zod';
 import { cleanEnv, fairnessEnvShape } from '../config/env.js';
 import { AppError } from '../errors/app-error.js';
+import { sharedRateStore } from '../queue/rate-store.js';
 
 export interface FairRoute {
   name: 'runs' | 'imports' | 'exports' | 'compare';
@@ -71,6 +72,8 @@ export function fairness(limits: FairnessLimits = fairnessLimitsFromEnv()): Requ
         standardHeaders: 'draft-8',
         legacyHeaders: false,
         keyGenerator: (req: Request) => `user:${req.user!.id}`,
+        // with QUEUE_URL the counts live in Redis, shared by every web server
+        store: sharedRateStore(`fair:${route.name}`),
         handler: (req, _res, next) => {
           const reset = (req as Request & { rateLimit?: { resetTime?: Date } }).rateLimit?.resetTime;
           const seconds = reset ? Math.max(1, Math.ceil((reset.getTime() - Date.now()) / 1000)) : Math.ceil(limits.windowMs / 1000);

@@ -3,6 +3,7 @@ import type { RequestHandler } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import { z } from 'zod';
 import { AppError } from '../errors/app-error.js';
+import { sharedRateStore } from '../queue/rate-store.js';
 
 export interface AccountRateLimits {
   /** requests per window per client address */
@@ -15,10 +16,13 @@ export function accountRateLimitsFromEnv(env: Record<string, string | undefined>
   return { limit: v.success ? v.data : 5, windowMs: 15 * 60_000 };
 }
 
+let accountLimiters = 0;
+
 export function accountLimiter(limits: AccountRateLimits): RequestHandler {
   return rateLimit({
     windowMs: limits.windowMs,
     limit: limits.limit,
+    store: sharedRateStore(`account:${++accountLimiters}`),
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'Too many requests; wait a few minutes and try again')),
