@@ -1,8 +1,8 @@
 /**
  * `npm run verify`: runs the verification tests (./vitest.config.ts) and writes the report
- * generated from them to docs/verification/ — report.html (served by the app at
- * /verification/report.html, linked from About) and report.json. No PDF: no PDF library is
- * installed (the HTML prints to PDF from a browser; sections start on new pages).
+ * generated from them to docs/verification/ — report.html and report.pdf (the same records,
+ * laid out by ./report-pdf.ts; both served by the app under /verification/ and linked from
+ * About) and report.json.
  * Extra arguments are passed to vitest (e.g. a path filter); `--report-only` rebuilds the
  * report from the last run's results. Exits 1 when a test failed.
  */
@@ -11,6 +11,7 @@ import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { buildReport, renderHtml, type VitestJson } from './report.js';
+import { renderPdf } from './report-pdf.js';
 
 const root = fileURLToPath(new URL('../../', import.meta.url));
 const outDir = path.join(root, 'docs/verification');
@@ -54,6 +55,7 @@ const report = buildReport(json, {
 });
 writeFileSync(path.join(outDir, 'report.json'), JSON.stringify(report, null, 1));
 writeFileSync(path.join(outDir, 'report.html'), renderHtml(report));
+writeFileSync(path.join(outDir, 'report.pdf'), await renderPdf(report));
 const k = report.counts;
-console.log(`verify: ${k.tests} problems (${k.passed} passed, ${k.failed} failed, ${k.skipped} skipped), ${k.records} comparisons → docs/verification/report.html`);
+console.log(`verify: ${k.tests} problems (${k.passed} passed, ${k.failed} failed, ${k.skipped} skipped), ${k.records} comparisons → docs/verification/report.html and report.pdf`);
 process.exit(k.failed > 0 ? 1 : 0);

@@ -1,5 +1,5 @@
 /**
- * GET /verification/report.html (and .json): the verification report, linked from About.
+ * GET /verification/report.html (and .pdf, .json): the verification report, linked from About.
  * Public, like the About page: it describes the software, not anyone's data. Served outside
  * /api as a document of its own (no client, no inline scripts: it passes the app's CSP).
  */
@@ -10,7 +10,7 @@ const NOT_GENERATED = 'The verification report has not been generated on this se
 
 export function verificationRouter(dir: string = DEFAULT_VERIFICATION_DIR): Router {
   const router = Router();
-  for (const kind of ['html', 'json'] as const) {
+  for (const kind of ['html', 'pdf', 'json'] as const) {
     router.get(`/report.${kind}`, (_req, res) => {
       const file = verificationReportFile(dir, kind);
       if (!file) {

@@ -7,7 +7,7 @@ import path from 'node:path';
 
 export const DEFAULT_VERIFICATION_DIR = path.resolve('docs/verification');
 
-export const REPORT_FILES = { html: 'report.html', json: 'report.json' } as const;
+export const REPORT_FILES = { html: 'report.html', json: 'report.json', pdf: 'report.pdf' } as const;
 
 /** Absolute path of the generated report file, or undefined when `npm run verify` has not run. */
 export function verificationReportFile(dir: string, kind: keyof typeof REPORT_FILES): string | undefined {
