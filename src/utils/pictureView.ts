@@ -45,8 +45,8 @@ export function fitDistance(points: Vec3[], center: Vec3, dir: Vec3, up: Vec3, f
   return Math.max(d, span * 1.05, 1e-6);
 }
 
-/** The corners of the box around the nodes (what the fit has to show). */
-export function boxCorners(nodes: RunGeometry['nodes']): Vec3[] {
+/** The corners of the box around the nodes grown by `pad` on every side (what the fit has to show). */
+export function boxCorners(nodes: RunGeometry['nodes'], pad = 0): Vec3[] {
   if (!nodes.length) return [[0, 0, 0]];
   const lo: Vec3 = [Infinity, Infinity, Infinity];
   const hi: Vec3 = [-Infinity, -Infinity, -Infinity];
@@ -58,7 +58,7 @@ export function boxCorners(nodes: RunGeometry['nodes']): Vec3[] {
     }
   }
   const out: Vec3[] = [];
-  for (const x of [lo[0], hi[0]]) for (const y of [lo[1], hi[1]]) for (const z of [lo[2], hi[2]]) out.push([x, y, z]);
+  for (const x of [lo[0] - pad, hi[0] + pad]) for (const y of [lo[1] - pad, hi[1] + pad]) for (const z of [lo[2] - pad, hi[2] + pad]) out.push([x, y, z]);
   return out;
 }
 
