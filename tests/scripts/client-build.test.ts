@@ -6,8 +6,8 @@
  * The build tests run in a throwaway project whose `vite` is a stand-in script (it writes
  * index.html into --outDir and counts its runs), so they take milliseconds, not a real build.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdirSync, mkdtempSync, readFileSync, rmSync, utimesSync, writeFileSync } from 'node:fs';
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, utimesSync, writeFileSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -144,4 +144,36 @@ describe('npm start (scripts/start.mjs)', () => {
     expect(body, output).toContain('current build marker');
     expect(output).not.toMatch(/Building the client/);
   }, 90_000);
+});
+
+describe('npm start in a project whose client is stale', () => {
+  /** The throwaway project with the real start script and a stand-in server (tsx) that only says it started. */
+  function startProject(): string {
+    const root = project();
+    mkdirSync(path.join(root, 'scripts'));
+    for (const f of ['start.mjs', 'client-build.mjs']) copyFileSync(path.join(ROOT, 'scripts', f), path.join(root, 'scripts', f));
+    mkdirSync(path.join(root, 'node_modules', 'tsx', 'dist'), { recursive: true });
+    writeFileSync(path.join(root, 'node_modules', 'tsx', 'package.json'), '{"name":"tsx","version":"0.0.0"}');
+    writeFileSync(path.join(root, 'node_modules', 'tsx', 'dist', 'cli.mjs'), "console.log('server started with', process.argv.slice(2).join(' '));\n");
+    return root;
+  }
+  const start = (root: string, dist: string) =>
+    spawnSync(process.execPath, [path.join(root, 'scripts', 'start.mjs')], { cwd: root, env: { ...process.env, CLIENT_DIST: dist }, encoding: 'utf8' });
+
+  it('builds into CLIENT_DIST when the sources are newer than the build, then starts the server; not again when current', () => {
+    const root = startProject();
+    const dist = path.join(root, 'out', 'client');
+    const first = start(root, dist);
+    expect(first.status, first.stderr).toBe(0);
+    expect(first.stdout).toMatch(/Building the client with Vite \(.*index\.html is missing\)/);
+    expect(first.stdout).toContain('server started with server/index.ts');
+    expect(existsSync(path.join(dist, 'index.html'))).toBe(true);
+    expect(existsSync(path.join(root, 'dist'))).toBe(false); // CLIENT_DIST, not ./dist
+    const again = start(root, dist);
+    expect(again.stdout).not.toMatch(/Building the client/);
+    writeFileSync(path.join(root, 'src', 'main.ts'), 'console.log(3);\n');
+    const edited = start(root, dist);
+    expect(edited.stdout).toMatch(/Building the client with Vite \(the client sources changed since the last build\)/);
+    expect(builds(root)).toBe(2);
+  });
 });
