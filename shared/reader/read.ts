@@ -36,6 +36,16 @@ const KIND_QUANTITY: Record<MemberLoadKind, Quantity> = {
   point: 'force', moment: 'moment', uniform: 'line_load', linear: 'line_load', temperature: 'temperature', temperature_gradient: 'temperature',
 };
 
+/** The id column of each table that others refer to, and the columns that refer to it. */
+const ID_COLUMN: Record<string, string> = { nodes: 'node', members: 'member', sections: 'section', materials: 'material', cases: 'case' };
+const REFERENCES: Record<string, [string, string][]> = {
+  nodes: [['supports', 'node'], ['members', 'start'], ['members', 'end'], ['node_loads', 'node'], ['settlements', 'node']],
+  members: [['member_loads', 'member'], ['lanes', 'member'], ['result_points', 'member']],
+  sections: [['members', 'section'], ['members', 'section_end']],
+  materials: [['members', 'material']],
+  cases: [['node_loads', 'case'], ['member_loads', 'case'], ['settlements', 'case'], ['combinations', 'case'], ['moving_loads', 'case']],
+};
+
 function fixity(v: unknown): boolean | undefined {
   if (v === undefined) return undefined;
   return v === '1' || v === 'fixed' || v === 'yes' || v === 'true';
@@ -90,6 +100,12 @@ function readInner(tables: RawTable[], options: ReadOptions, problems: Problems,
     if (!raw.has(need)) problems.error(need, undefined, undefined, `the model needs a ${need} table`);
   }
   const lab = (table: string, col: string) => parsed[table]?.label[col] ?? col;
+  // a table whose id column header was unusable has no ids: "unknown node N1" on every row that
+  // names one would only follow from that header, so the naming columns are left out too
+  for (const [table, refs] of Object.entries(REFERENCES)) {
+    if (!parsed[table]?.unusable.has(ID_COLUMN[table])) continue;
+    for (const [t, c] of refs) problems.markUnusable(t, c);
+  }
   /** a length (SI) as the model's unit system writes it, for messages: `19.685 ft` */
   const len = (x: number) => `${formatNumber(fromSI(x, 'length', system))} ${unitOf('length', system)}`;
 

@@ -55,6 +55,17 @@ describe('unusable headers', () => {
     ]);
   });
 
+  it('leaves out "unknown node" on every row that names a node when the node column itself was unusable', () => {
+    const list = errors({ nodes: 'node [m],x,y\nN1,0,0\nN2,0,4\nN3,6,4\nN4,6,0\n' });
+    expect(list.map((p) => [p.table, p.row, p.column])).toEqual([['nodes', 1, 'node']]);
+    expect(list[0].message).toContain('is not a quantity and takes no unit');
+  });
+
+  it('leaves out "unknown case" when the case column was unusable', () => {
+    const list = errors({ cases: 'case (id),category,title,self_weight\nD,dead,Dead load,1\nW,wind,Wind,\n' });
+    expect(list.map((p) => [p.table, p.column])).toEqual([['cases', 'case (id)']]);
+  });
+
   it('reads a unit in square brackets as before', () => {
     expect(errors({ materials: 'material,E [GPa],nu,fy [MPa],density\nSTEEL,210,0.3,355,7850\n' })).toEqual([]);
   });
