@@ -6,6 +6,18 @@
 import { onBeforeUnmount, onMounted } from 'vue';
 import { onBeforeRouteLeave, onBeforeRouteUpdate, type RouteLocationNormalized } from 'vue-router';
 
+/** The few browser calls used here, typed locally (tests type-check this file without the DOM library). */
+interface UnloadEvent {
+  preventDefault(): void;
+  returnValue: unknown;
+}
+interface BrowserWindow {
+  confirm(message: string): boolean;
+  addEventListener(type: 'beforeunload', listener: (e: UnloadEvent) => void): void;
+  removeEventListener(type: 'beforeunload', listener: (e: UnloadEvent) => void): void;
+}
+const browserWindow = (): BrowserWindow => globalThis as unknown as BrowserWindow;
+
 export interface UnsavedGuardOptions {
   /** how many unsaved edits there are (0: nothing to lose) */
   count: () => number;
@@ -25,20 +37,20 @@ export function leaveQuestion(count: number): string {
 export function mayLeave(o: UnsavedGuardOptions, to: RouteLocationNormalized, from: RouteLocationNormalized): boolean {
   const n = o.count();
   if (n === 0 || o.keeps?.(to, from)) return true;
-  const ask = o.confirm ?? ((m: string) => window.confirm(m));
+  const ask = o.confirm ?? ((m: string) => browserWindow().confirm(m));
   if (!ask(leaveQuestion(n))) return false;
   o.discard?.();
   return true;
 }
 
 export function useUnsavedGuard(o: UnsavedGuardOptions): void {
-  const onBeforeUnload = (e: BeforeUnloadEvent): void => {
+  const onBeforeUnload = (e: UnloadEvent): void => {
     if (o.count() === 0) return;
     e.preventDefault();
     e.returnValue = ''; // older browsers need a value to show their prompt
   };
-  onMounted(() => window.addEventListener('beforeunload', onBeforeUnload));
-  onBeforeUnmount(() => window.removeEventListener('beforeunload', onBeforeUnload));
+  onMounted(() => browserWindow().addEventListener('beforeunload', onBeforeUnload));
+  onBeforeUnmount(() => browserWindow().removeEventListener('beforeunload', onBeforeUnload));
   onBeforeRouteLeave((to, from) => mayLeave(o, to, from));
   // the same page for another model (params change) loses the edits too; a query change (tab) does not
   onBeforeRouteUpdate((to, from) => (to.path === from.path ? true : mayLeave(o, to, from)));
