@@ -12,6 +12,7 @@ import {
   boxCorners, cameraAxes, fitDistance, governingLoading, placeLabel, supportKind, triadDirections, type Vec3,
 } from '../../src/utils/pictureView.js';
 import type { RunGeometry } from '../../shared/schemas/runs.js';
+import { project } from '../../src/components/model/sketch.js';
 
 /** A camera set up as ModelPicture.vue does it: at centre + dir × distance, looking at the centre. */
 function cameraFor(verticalAxis: 'Y' | 'Z', normal: 'X' | 'Y' | 'Z' | null, nodes: RunGeometry['nodes'], aspect = 2): THREE.PerspectiveCamera {
@@ -79,7 +80,22 @@ describe('the view of a plane frame is not mirrored', () => {
   });
 });
 
+describe('the pre-run sketch is not mirrored either', () => {
+  it('projects +x to the right (screen x grows) and up to the top (screen y runs down) in every plane', () => {
+    expect(project([10, 0, 0], 'XZ', 'Z')[0]).toBeGreaterThan(project([0, 0, 0], 'XZ', 'Z')[0]);
+    expect(project([0, 0, 5], 'XZ', 'Z')[1]).toBeLessThan(project([0, 0, 0], 'XZ', 'Z')[1]);
+    expect(project([10, 0, 0], 'XY', 'Y')[0]).toBeGreaterThan(0);
+    expect(project([0, 10, 0], 'YZ', 'Z')[0]).toBeGreaterThan(0);
+    expect(project([10, 0, 0], null, 'Z')[0]).toBeGreaterThan(0);
+  });
+});
+
 describe('fit to view', () => {
+  it('grows the box by a pad on every side (room for load arrows and support symbols)', () => {
+    const c = boxCorners([['A', 0, 0, 0], ['B', 10, 0, 4]], 1);
+    expect(Math.min(...c.map((p) => p[0]))).toBe(-1);
+    expect(Math.max(...c.map((p) => p[2]))).toBe(5);
+  });
   it('puts every corner of the model inside the view, and fills most of it', () => {
     const nodes: RunGeometry['nodes'] = [['A', 0, 0, 0], ['B', 48, 0, 0], ['C', 6, 0, 8], ['D', 42, 0, 8]];
     for (const aspect of [0.6, 1, 2.1]) {
