@@ -222,6 +222,10 @@ export interface EngineBenchRow {
   core: PhaseTime;
   recoveryCalls: number;
   checkEvaluations: number;
+  /** the checks of every code asked for (the model's own first) */
+  codeChecks: CodeChecks[];
+  /** the whole run after the section edit, per phase (CPU and wall ms), when asked */
+  rerunPhases: Record<string, PhaseTime> | null;
   nnzK: number;
   nnzFactor: number;
   peakRssMb: number;
@@ -229,7 +233,10 @@ export interface EngineBenchRow {
 }
 
 type ReadTables = (tables: RawTable[]) => { ok: boolean };
-type CheckModel = (model: Model, analysis: AnalysisResult) => { diagnostics: { evaluations: number } };
+type CheckModel = (model: Model, analysis: AnalysisResult, options?: { maxRecords?: number }) => { diagnostics: { evaluations: number } };
+
+/** records kept by a run's checks (server/runs/run-compute.ts MAX_STORED_RECORDS): the bench checks as a run does */
+const RUN_MAX_RECORDS = 20_000;
 
 export interface EngineBenchOptions {
   /** the reader, to time read/validate on the model written back as tables */
@@ -238,6 +245,22 @@ export interface EngineBenchOptions {
   recover?: boolean;
   /** the design checks (checkModel), when the model has a design code */
   check?: CheckModel | null;
+  /** further design codes to check the same analysis with (checks per CPU second of each) */
+  moreCodes?: DesignCode[];
+  /**
+   * the rerun after a section edit: one member's section changed (same connectivity), the
+   * model analysed and checked again as the server's rerun does (the kept pattern analysis of
+   * shared/engine/solverBridge.ts reused)
+   */
+  rerun?: { member: string; section: string };
+}
+
+/** Checks of one code on the analysis: member-loading checks and CPU ms. */
+export interface CodeChecks {
+  code: DesignCode;
+  evaluations: number;
+  cpu: number;
+  wall: number;
 }
 
 /** Analyse one synthetic model and time every phase, CPU (user + system, all threads) and wall. */
@@ -279,25 +302,53 @@ export function benchEngine(name: string, build: () => Model, opts: EngineBenchO
   };
   let recoveryCalls = 0;
   if (opts.recover !== false) {
+    // as the design checks read them: into one reused buffer (memberForcesInto)
     c0 = cpuNow(); w0 = performance.now();
     let sink = 0;
+    const buf = { x: new Float64Array(0), N: new Float64Array(0), V_major: new Float64Array(0), V_minor: new Float64Array(0), T: new Float64Array(0), M_major: new Float64Array(0), M_minor: new Float64Array(0), d_major: new Float64Array(0), d_minor: new Float64Array(0) };
     for (let mi = 0; mi < r.memberIds.length; mi++) {
-      for (let l = 0; l < r.loadings.length; l++) sink += r.memberForces(mi, l).M_major[0];
+      for (let l = 0; l < r.loadings.length; l++) sink += (r.memberForcesInto ? r.memberForcesInto(mi, l, buf) : r.memberForces(mi, l)).M_major[0];
     }
     recoveryCalls = r.memberIds.length * r.loadings.length;
     lap('recovery (every member × every loading)');
     if (!Number.isFinite(sink)) throw new Error('non-finite member forces');
   }
   let checkEvaluations = 0;
+  const codeChecks: CodeChecks[] = [];
   if (opts.check && model.settings.designCode !== 'none') {
-    c0 = cpuNow(); w0 = performance.now();
-    checkEvaluations = opts.check(model, r).diagnostics.evaluations;
-    lap(`checks (${model.settings.designCode})`);
+    for (const code of [model.settings.designCode, ...(opts.moreCodes ?? []).filter((c) => c !== model.settings.designCode)]) {
+      const m = code === model.settings.designCode ? model : { ...model, settings: { ...model.settings, designCode: code } };
+      c0 = cpuNow(); w0 = performance.now();
+      const ev = opts.check(m, r, { maxRecords: RUN_MAX_RECORDS }).diagnostics.evaluations;
+      const label = `checks (${code})`;
+      lap(label);
+      codeChecks.push({ code, evaluations: ev, ...phases[label] });
+      if (code === model.settings.designCode) checkEvaluations = ev;
+    }
+  }
+  let rerunPhases: Record<string, PhaseTime> | null = null;
+  if (opts.rerun) {
+    // the grid edit: a new model version with one member's section changed
+    const edited: Model = { ...model, members: model.members.map((x) => (x.id === opts.rerun!.member ? { ...x, section: opts.rerun!.section } : x)) };
+    rerunPhases = {};
+    const fineR: Record<string, number> = {};
+    let a = cpuNow(), b = performance.now();
+    const r2 = analyse(edited, { clock: { now: cpuNow, timings: fineR } });
+    const an = { cpu: cpuNow() - a, wall: performance.now() - b };
+    const sumFine = (...k: string[]) => k.reduce((x, key) => x + (fineR[key] ?? 0), 0);
+    rerunPhases['analyse'] = an;
+    rerunPhases['ordering + factorisation'] = { cpu: sumFine('ordering+factorisation'), wall: (r2.diagnostics.timings.ordering ?? 0) + (r2.diagnostics.timings.factorisation ?? 0) };
+    rerunPhases['ordering (reused when 0)'] = { cpu: NaN, wall: r2.diagnostics.timings.ordering ?? 0 };
+    if (opts.check && edited.settings.designCode !== 'none') {
+      a = cpuNow(); b = performance.now();
+      opts.check(edited, r2, { maxRecords: RUN_MAX_RECORDS });
+      rerunPhases['checks'] = { cpu: cpuNow() - a, wall: performance.now() - b };
+    }
   }
   return {
     name, members: model.members.length, freedoms: r.diagnostics.freedoms, cases: r.diagnostics.cases, loadings: r.loadings.length,
     phases, finePhases: fine, orderingWallMs: tm.ordering ?? 0, factorisationWallMs: tm.factorisation ?? 0, core,
-    recoveryCalls, checkEvaluations, nnzK: r.diagnostics.nnzK, nnzFactor: r.diagnostics.nnzFactor,
+    recoveryCalls, checkEvaluations, codeChecks, rerunPhases, nnzK: r.diagnostics.nnzK, nnzFactor: r.diagnostics.nnzFactor,
     peakRssMb: process.resourceUsage().maxRSS / 1024,
     maxResidual: Math.max(...r.diagnostics.equilibrium.map((e) => e.residual)),
   };
@@ -318,5 +369,39 @@ export function printEngineRow(r: EngineBenchRow): void {
     console.log(`  ${k.padEnd(42)}${ms(v.cpu)} ${ms(v.wall)}${note}`);
   }
   console.log(`  ${'core (assembly → solve)'.padEnd(42)}${ms(r.core.cpu)} ${ms(r.core.wall)}`);
+  const w = wholeRun(r);
+  if (w) {
+    console.log(`  whole run (CPU ms): solver ${w.solver.toFixed(0)} (ordering + factorisation + solve); around it ${w.around.toFixed(0)} `
+      + `(read/validate ${w.parts.read.toFixed(0)}, mesh + load sets ${w.parts.mesh.toFixed(0)}, assembly ${w.parts.assembly.toFixed(0)}, loads ${w.parts.loads.toFixed(0)}, `
+      + `displacements/reactions ${w.parts.nodes.toFixed(0)}, checks incl. their recovery ${w.parts.checks.toFixed(0)}) = ${w.ratio.toFixed(2)}× the solver (target ≤ 1.0)`);
+    if (w.rerun) console.log(`  rerun after a section edit (analyse + checks, CPU ms): ${w.rerun.toFixed(0)} vs first ${w.first.toFixed(0)} = ${(w.rerun / w.first).toFixed(2)}× (target ≤ 0.5); ordering on the rerun ${w.rerunOrderingMs.toFixed(0)} ms wall (0 = the kept analysis reused)`);
+  }
+  for (const c of r.codeChecks) {
+    console.log(`  checks ${c.code}: ${c.evaluations} member-loading checks in ${c.cpu.toFixed(0)} ms CPU = ${Math.round(c.evaluations / (c.cpu / 1000)).toLocaleString('en-US')} per CPU second (target ≥ 400,000)`);
+  }
   console.log(`  nnz K ${r.nnzK}, nnz L ${r.nnzFactor}, peak RSS so far ${r.peakRssMb.toFixed(0)} MB, max equilibrium residual ${r.maxResidual.toExponential(1)}`);
+}
+
+/**
+ * The run's phases around the solver (issue 14 item 4): everything but ordering,
+ * factorisation and solve, with the checks of the model's own code (they recover the station
+ * forces of the loadings they check, as a run does; the separate every-member recovery line
+ * is not added). null without read/validate or checks.
+ */
+export function wholeRun(r: EngineBenchRow): {
+  solver: number; around: number; ratio: number; parts: Record<'read' | 'mesh' | 'assembly' | 'loads' | 'nodes' | 'checks', number>;
+  first: number; rerun: number | null; rerunOrderingMs: number;
+} | null {
+  const ph = (p: string) => Object.entries(r.phases).find(([k]) => k.startsWith(p))?.[1].cpu;
+  const read = ph('read/validate'), checks = r.codeChecks[0]?.cpu;
+  if (read === undefined || checks === undefined) return null;
+  const parts = {
+    read, mesh: ph('mesh') ?? 0, assembly: ph('assembly') ?? 0, loads: ph('loads') ?? 0, nodes: ph('displacements') ?? 0, checks,
+  };
+  const solver = (ph('ordering') ?? 0) + (ph('solve') ?? 0);
+  const around = Object.values(parts).reduce((a, b) => a + b, 0);
+  const first = (ph('analyse') ?? 0) + checks;
+  const rr = r.rerunPhases;
+  const rerun = rr ? rr.analyse.cpu + (rr.checks?.cpu ?? 0) : null;
+  return { solver, around, ratio: around / solver, parts, first, rerun, rerunOrderingMs: rr?.['ordering (reused when 0)'].wall ?? NaN };
 }

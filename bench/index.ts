@@ -12,10 +12,11 @@
 import type { RawTable } from '../shared/reader/index.js';
 import type { AnalysisResult } from '../shared/engine/types.js';
 import type { Model } from '../shared/model/types.js';
-import { benchEngine, buildFrameModel, buildTrussModel, type EngineBenchRow, printEngineRow } from './engine.js';
+import { benchEngine, buildFrameModel, buildTrussModel, type EngineBenchOptions, type EngineBenchRow, printEngineRow, wholeRun } from './engine.js';
 
-const ITEMS = ['frame1k', 'frame10k', 'frame50k', 'truss10k', 'moving', 'stability', 'solver', 'api'];
-const SLOW = ['frame50k'];
+const ITEMS = ['frame1k', 'frame10k', 'frame50k', 'truss10k', 'moving', 'stability', 'solver', 'api', 'scale'];
+// scale: starts PostgreSQL, Redis, two servers and up to four workers (bench/scale.ts); only when named
+const SLOW = ['frame50k', 'scale'];
 const args = process.argv.slice(2);
 const unknown = args.filter((a) => a !== '--all' && !ITEMS.includes(a));
 if (unknown.length) {
@@ -35,7 +36,7 @@ async function reader(): Promise<((t: RawTable[]) => { ok: boolean }) | null> {
   }
 }
 
-type CheckModel = (model: Model, analysis: AnalysisResult) => { diagnostics: { evaluations: number } };
+type CheckModel = (model: Model, analysis: AnalysisResult, options?: { maxRecords?: number }) => { diagnostics: { evaluations: number } };
 
 async function checker(): Promise<CheckModel | null> {
   try {
@@ -50,8 +51,8 @@ async function main(): Promise<void> {
   const check = await checker();
   const rows: EngineBenchRow[] = [];
   if (!named.length && !all) console.log('bench: frame50k skipped (several minutes); name it, or pass --all / BENCH_ALL=1');
-  const run = (name: string, build: () => Model) => {
-    const r = benchEngine(name, build, { read, recover: true, check });
+  const run = (name: string, build: () => Model, more: Partial<EngineBenchOptions> = {}) => {
+    const r = benchEngine(name, build, { read, recover: true, check, ...more });
     printEngineRow(r);
     rows.push(r);
   };
@@ -62,7 +63,8 @@ async function main(): Promise<void> {
     benchEngine('warm-up', () => buildTrussModel(60), { read });
   }
   if (pick.includes('frame1k')) run('frame 5×5×12 (~1k)', () => buildFrameModel(5, 5, 12, 'aisc360-lrfd'));
-  if (pick.includes('frame10k')) run('frame 10×10×30 (~10k)', () => buildFrameModel(10, 10, 30, 'aisc360-lrfd'));
+  // issue 14: both codes' checks per CPU second, and the rerun after one beam's section is edited
+  if (pick.includes('frame10k')) run('frame 10×10×30 (~10k)', () => buildFrameModel(10, 10, 30, 'aisc360-lrfd'), { moreCodes: ['en1993-1-1'], rerun: { member: 'BX4_5_15', section: 'COL' } });
   if (pick.includes('truss10k')) run('truss 2500 panels (~10k)', () => buildTrussModel(2500));
   if (pick.includes('frame50k')) run('frame 20×20×40 (~51k)', () => buildFrameModel(20, 20, 40, 'aisc360-lrfd'));
   if (rows.length) {
@@ -72,6 +74,17 @@ async function main(): Promise<void> {
       const ph = (p: string) => Object.entries(r.phases).find(([k]) => k.startsWith(p))?.[1].cpu;
       const f = (v: number | undefined, w: number) => (v === undefined ? '–' : v.toFixed(0)).padStart(w);
       console.log(`  ${r.name.padEnd(26)}${f(r.core.cpu, 10)}${f(r.core.wall, 11)}${f(ph('recovery'), 14)}${f(ph('checks'), 12)}`);
+    }
+    // issue 14 item 4: everything around the solver, checks per CPU second, the rerun
+    const whole = rows.map((r) => ({ r, w: wholeRun(r) })).filter((x) => x.w);
+    if (whole.length) {
+      console.log('\ntargets (issue 14): around the solver ≤ 1.0× the solver; checks ≥ 400,000 per CPU second for each code; rerun after a section edit ≤ 0.5× the first run (CPU ms)');
+      console.log(`  ${'model'.padEnd(26)}${'solver'.padStart(8)}${'around'.padStart(8)}${'ratio'.padStart(7)}${'first'.padStart(8)}${'rerun'.padStart(8)}${'ratio'.padStart(7)}  checks per CPU s`);
+      for (const { r, w } of whole) {
+        const per = r.codeChecks.map((c) => `${c.code} ${Math.round(c.evaluations / (c.cpu / 1000)).toLocaleString('en-US')}`).join(', ');
+        const rr = w!.rerun;
+        console.log(`  ${r.name.padEnd(26)}${w!.solver.toFixed(0).padStart(8)}${w!.around.toFixed(0).padStart(8)}${w!.ratio.toFixed(2).padStart(7)}${w!.first.toFixed(0).padStart(8)}${(rr === null ? '–' : rr.toFixed(0)).padStart(8)}${(rr === null ? '–' : (rr / w!.first).toFixed(2)).padStart(7)}  ${per}`);
+      }
     }
   }
   if (pick.includes('moving')) (await import('./moving.js')).benchMoving();
@@ -98,6 +111,7 @@ async function main(): Promise<void> {
     const { benchResults } = await import('./api.js');
     await benchResults(Number(process.env.BENCH_API_BAYS) || 60, Number(process.env.BENCH_API_STOREYS) || 10);
   }
+  if (pick.includes('scale')) await (await import('./scale.js')).benchScale();
 }
 
 main().catch((e) => {

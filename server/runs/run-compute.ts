@@ -21,6 +21,8 @@ import { packParts, type PackedParts } from './result-parts.js';
 export interface RunOutput {
   members: MemberUtilisation[];
   records: CheckRecord[];
+  /** more records than MAX_STORED_RECORDS: `records` is empty and none are stored */
+  recordsOmitted?: boolean;
   loadings: LoadingInfo[];
   nodeCount: number;
   /** loading-major, nNodes*6 per loading */
@@ -56,8 +58,8 @@ export function checkMemberWithStability(model: Model, analysis: AnalysisResult,
  * The design checks with the stability summary (the method, αcr, warnings) when the checks
  * take it (DesignOptions.stability); older checks ignore the extra option.
  */
-export function checkWithStability(model: Model, analysis: AnalysisResult, stability: StabilitySummary) {
-  const options: DesignOptions & { stability?: StabilitySummary } = { stability };
+export function checkWithStability(model: Model, analysis: AnalysisResult, stability: StabilitySummary, maxRecords?: number) {
+  const options: DesignOptions & { stability?: StabilitySummary } = { stability, ...(maxRecords !== undefined ? { maxRecords } : {}) };
   return checkModel(model, analysis, options);
 }
 
@@ -142,7 +144,8 @@ export function computeRun(
   if (engineSum < analysisMs) timings[rest] = (timings[rest] ?? 0) + (analysisMs - engineSum);
 
   onPhase('checking');
-  const design = checkWithStability(analysed, analysis, stability);
+  // records past MAX_STORED_RECORDS are not stored (packRun): not kept either
+  const design = checkWithStability(analysed, analysis, stability, MAX_STORED_RECORDS);
   lap('checking');
 
   const nNodes = analysis.nodeIds.length;
@@ -161,6 +164,7 @@ export function computeRun(
     output: {
       members: design.members,
       records: design.records,
+      recordsOmitted: design.recordsOmitted === true,
       loadings: loadingInfos(analysis),
       nodeCount: nNodes,
       displacements,
@@ -220,7 +224,7 @@ export function packRun(out: RunOutput, model: Pick<Model, 'members'>): PackedRu
     counts: statusCounts(out.members),
     maxRatio: maxRatio(out.members),
     membersData: gz(Buffer.from(JSON.stringify(out.members), 'utf8')),
-    recordsData: gz(Buffer.from(out.records.length <= MAX_STORED_RECORDS ? JSON.stringify(out.records) : 'null', 'utf8')),
+    recordsData: gz(Buffer.from(!out.recordsOmitted && out.records.length <= MAX_STORED_RECORDS ? JSON.stringify(out.records) : 'null', 'utf8')),
     nodeData: new Uint8Array(0),
     parts: packParts(model, out.members, d, r, out.nodeCount, out.loadings.length),
     loadings: out.loadings,

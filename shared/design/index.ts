@@ -40,6 +40,12 @@ export interface DesignOptions {
    * (N < 0 at any station) in that combination — its schedule row's warnings and its records.
    */
   stability?: StabilitySummary;
+  /**
+   * Keep at most this many records (default all): past it the records are dropped and
+   * `recordsOmitted` is set — a large model's run keeps only its schedule rows, and holding
+   * a hundred thousand records it will not store costs a third of the checks' time.
+   */
+  maxRecords?: number;
 }
 
 /** One line for a member's warnings from the stability warnings of its compressed combinations. */
@@ -238,6 +244,16 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
   const want = new Uint8Array(MAX_SLOTS);
   let evaluations = 0;
   let evaluationMs = 0;
+  const maxRecords = options.maxRecords ?? Infinity;
+  let omitted = false;
+  // station forces of the evaluation loop in one reused buffer when the analysis offers it
+  const scratch: StationForces = {
+    x: new Float64Array(0), N: new Float64Array(0), V_major: new Float64Array(0), V_minor: new Float64Array(0), T: new Float64Array(0),
+    M_major: new Float64Array(0), M_minor: new Float64Array(0), d_major: new Float64Array(0), d_minor: new Float64Array(0),
+  };
+  const forcesOf = analysis.memberForcesInto
+    ? (mi: number, li: number) => analysis.memberForcesInto!(mi, li, scratch)
+    : (mi: number, li: number) => analysis.memberForces(mi, li);
 
   for (let mi = 0; mi < ctx.prepared.length; mi++) {
     const p = ctx.prepared[mi];
@@ -259,7 +275,7 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
       let tensionLoading = -1;
       for (let k = 0; k < strength.length; k++) {
         const li = strength[k];
-        const sf = clean(analysis.memberForces(mi, li));
+        const sf = clean(forcesOf(mi, li));
         plan.evaluate(sf, ratio, xo);
         evaluations++;
         for (let s = 0; s < n; s++) {
@@ -309,7 +325,7 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
             delta = cantileverTip(analysis.displacements(li), p.tip, p.root, p.axis[0], p.axis[1], p.axis[2]);
             x = p.tip === p.root ? 0 : p.setup.length;
           } else {
-            chordDeflection(analysis.memberForces(mi, li), defl);
+            chordDeflection(forcesOf(mi, li), defl);
             delta = defl[0]; x = defl[1];
           }
           if (delta > worst) { worst = delta; worstL = li; worstX = x; }
@@ -331,9 +347,12 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
     const u = utilisation(p, memberRecords, warnings, sectionMaterial);
     members.push(u);
     if (u.status === 'pass') counts.pass++; else if (u.status === 'fail') counts.fail++; else counts.notChecked++;
-    for (const r of memberRecords) records.push(r);
+    if (!omitted) {
+      for (const r of memberRecords) records.push(r);
+      if (records.length > maxRecords) { omitted = true; records.length = 0; }
+    }
   }
-  return { code: ctx.code, members, records, counts, diagnostics: { evaluations, milliseconds: performance.now() - t0, evaluationMilliseconds: evaluationMs } };
+  return { code: ctx.code, members, records, ...(omitted ? { recordsOmitted: true } : {}), counts, diagnostics: { evaluations, milliseconds: performance.now() - t0, evaluationMilliseconds: evaluationMs } };
 }
 
 /** The member's schedule row from its governing records. */

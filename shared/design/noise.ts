@@ -62,6 +62,30 @@ function noisy(v: Float64Array, floor: number): boolean {
   return false;
 }
 
+/** noisy() over N, V (force floor) and T, M (moment floor) in one pass (a loop per call is the cost here). */
+function anyNoisy(sf: StationForces, f: number, m: number): boolean {
+  const N = sf.N, Vy = sf.V_major, Vz = sf.V_minor, T = sf.T, My = sf.M_major, Mz = sf.M_minor;
+  const n = sf.x.length;
+  if (N.length !== n || Vy.length !== n || Vz.length !== n || T.length !== n || My.length !== n || Mz.length !== n) {
+    return noisy(N, f) || noisy(Vy, f) || noisy(Vz, f) || noisy(T, m) || noisy(My, m) || noisy(Mz, m);
+  }
+  for (let i = 0; i < n; i++) {
+    let a = N[i];
+    if (a !== 0 && a < f && a > -f) return true;
+    a = Vy[i];
+    if (a !== 0 && a < f && a > -f) return true;
+    a = Vz[i];
+    if (a !== 0 && a < f && a > -f) return true;
+    a = T[i];
+    if (a !== 0 && a < m && a > -m) return true;
+    a = My[i];
+    if (a !== 0 && a < m && a > -m) return true;
+    a = Mz[i];
+    if (a !== 0 && a < m && a > -m) return true;
+  }
+  return false;
+}
+
 function cleanInto(src: Float64Array, dst: Float64Array, floor: number): void {
   for (let i = 0; i < src.length; i++) { const v = src[i]; dst[i] = v < floor && v > -floor ? 0 : v; }
 }
@@ -74,8 +98,7 @@ function cleanInto(src: Float64Array, dst: Float64Array, floor: number): void {
  */
 export function denoise(sf: StationForces, floor: NoiseFloor, into?: StationForces): StationForces {
   if (!(floor.force > 0)) return sf;
-  if (!noisy(sf.N, floor.force) && !noisy(sf.V_major, floor.force) && !noisy(sf.V_minor, floor.force)
-    && !noisy(sf.T, floor.moment) && !noisy(sf.M_major, floor.moment) && !noisy(sf.M_minor, floor.moment)) return sf;
+  if (!anyNoisy(sf, floor.force, floor.moment)) return sf;
   const n = sf.x.length;
   const o = into && into.x.length === n && into !== sf ? into : emptyForces(n);
   o.x.set(sf.x);

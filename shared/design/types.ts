@@ -99,8 +99,13 @@ export interface DesignResult {
   code: DesignCode;
   /** one per member, in model order */
   members: MemberUtilisation[];
-  /** for each member and check, the record of its governing combination */
+  /** for each member and check, the record of its governing combination (empty when recordsOmitted) */
   records: CheckRecord[];
+  /**
+   * true when there were more records than DesignOptions.maxRecords: none are returned (the
+   * schedule rows are complete; a caller wanting records recomputes them)
+   */
+  recordsOmitted?: boolean;
   /** members by status */
   counts: { pass: number; fail: number; notChecked: number };
   /**

@@ -171,6 +171,10 @@ export function analyse(model: Model, options: AnalyseOptions = {}): AnalysisRes
       if (!(mi >= 0 && mi < mesh.members.length)) throw new Error(`member index ${mi} out of range`);
       return forcesOf(mi, checkLoading(l));
     },
+    memberForcesInto(mi: number, l: number, into: StationForces): StationForces {
+      if (!(mi >= 0 && mi < mesh.members.length)) throw new Error(`member index ${mi} out of range`);
+      return forcesOf.into(mi, checkLoading(l), into);
+    },
     memberLength: (mi: number) => mesh.members[mi].L,
     diagnostics: {
       nodes: nUser,

@@ -60,7 +60,20 @@ export interface MemberResultsInput {
 /** doubles per slab; a call takes (ROWS + 1) × stations of it */
 const SLAB = 8192;
 
-export type MemberForcesFn = (mi: number, ld: Loading) => StationForces;
+export type MemberForcesFn = ((mi: number, ld: Loading) => StationForces) & {
+  /** the same values written into the caller's buffer (AnalysisResult.memberForcesInto) */
+  into: (mi: number, ld: Loading, out: StationForces) => StationForces;
+};
+
+/** Gives `out` arrays of nSt stations where they have another length (views of one fresh block). */
+function fitForces(out: StationForces, nSt: number): void {
+  if (out.x.length === nSt && out.N.length === nSt && out.V_major.length === nSt && out.V_minor.length === nSt && out.T.length === nSt
+    && out.M_major.length === nSt && out.M_minor.length === nSt && out.d_major.length === nSt && out.d_minor.length === nSt) return;
+  const b = new Float64Array((ROWS + 1) * nSt);
+  const v = (r: number) => b.subarray(r * nSt, (r + 1) * nSt);
+  out.x = v(0); out.N = v(1); out.V_major = v(2); out.V_minor = v(3); out.T = v(4);
+  out.M_major = v(5); out.M_minor = v(6); out.d_major = v(7); out.d_minor = v(8);
+}
 
 export function memberResults(input: MemberResultsInput): MemberForcesFn {
   const { mesh, nCases, loadSets, U, fefOf, addMoving, stations } = input;
@@ -102,7 +115,7 @@ export function memberResults(input: MemberResultsInput): MemberForcesFn {
     return o;
   };
 
-  return (mi: number, ld: Loading): StationForces => {
+  const forces = (mi: number, ld: Loading): StationForces => {
     select(mi);
     const len = (ROWS + 1) * nSt;
     if (used + len > slab.length) {
@@ -134,4 +147,50 @@ export function memberResults(input: MemberResultsInput): MemberForcesFn {
       d_minor: new Float64Array(buf, r0 * 8 + 7 * B, nSt),
     };
   };
+
+  // one row of the loading: 0 + Σ factor·case row, term after term in the order of the terms
+  // (the same roundings as above, so the same bits); plain loops, no builtins per call
+  let srcs = new Int32Array(8), facs = new Float64Array(8);
+  let nt = 0;
+  const row = (dst: Float64Array, r: number): void => {
+    const off = r * nSt;
+    for (let i = 0; i < nSt; i++) {
+      let v = 0;
+      for (let t = 0; t < nt; t++) v += facs[t] * data[srcs[t] + off + i];
+      dst[i] = v;
+    }
+  };
+  const into = (mi: number, ld: Loading, out: StationForces): StationForces => {
+    if (addMoving && ld.envelope) {
+      // an envelope adds its moving part to contiguous rows: through the plain path
+      const sf = forces(mi, ld);
+      fitForces(out, sf.x.length);
+      out.x.set(sf.x); out.N.set(sf.N); out.V_major.set(sf.V_major); out.V_minor.set(sf.V_minor); out.T.set(sf.T);
+      out.M_major.set(sf.M_major); out.M_minor.set(sf.M_minor); out.d_major.set(sf.d_major); out.d_minor.set(sf.d_minor);
+      return out;
+    }
+    select(mi);
+    fitForces(out, nSt);
+    const terms = ld.terms;
+    if (srcs.length < terms.length) { srcs = new Int32Array(terms.length); facs = new Float64Array(terms.length); }
+    nt = 0;
+    for (let t = 0; t < terms.length; t++) {
+      const factor = terms[t].factor;
+      if (factor === 0) continue;
+      srcs[nt] = caseRows(terms[t].caseIndex);
+      facs[nt++] = factor;
+    }
+    const x = out.x;
+    for (let i = 0; i < nSt; i++) x[i] = xs[i];
+    row(out.N, 0);
+    row(out.V_major, 1);
+    row(out.V_minor, 2);
+    row(out.T, 3);
+    row(out.M_major, 4);
+    row(out.M_minor, 5);
+    row(out.d_major, 6);
+    row(out.d_minor, 7);
+    return out;
+  };
+  return Object.assign(forces, { into });
 }

@@ -82,6 +82,14 @@ export interface AnalysisResult {
    * compared and superposed station by station.
    */
   memberForces(member: number, loading: number): StationForces;
+  /**
+   * The same values as memberForces, written into the caller's buffer `into` (an array is
+   * replaced by a fresh one when its length is not the member's station count) and `into`
+   * returned: no allocation per call, for loops over many members and loadings (design
+   * checks). Valid until the buffer is used again. Optional: without it callers use
+   * memberForces.
+   */
+  memberForcesInto?(member: number, loading: number, into: StationForces): StationForces;
   /** member length (m) */
   memberLength(member: number): number;
   diagnostics: AnalysisDiagnostics;
