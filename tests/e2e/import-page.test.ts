@@ -131,4 +131,36 @@ describe.skipIf(!enabled)('import page in the browser', () => {
     expect(await page.locator('[data-test=setting-gamma_m1]').count()).toBe(0);
     expect(aisc).not.toContain('γM');
   }, 120_000);
+
+  it('gives lengths in feet in the problems of a US model', async () => {
+    const us: Record<string, string> = {
+      'settings.csv': 'key,value\ntitle,US beam\nunits,us\ndesign_code,aisc360-lrfd\n',
+      'materials.csv': 'material,E,nu,fy,fu,density\nA992,29000,0.3,50,65,490\n',
+      'nodes.csv': 'node,x,y\nN1,0,0\nN2,20,0\nN3,40,0\n',
+      'supports.csv': 'node,ux,uy\nN1,1,1\nN2,0,1\nN3,0,1\n',
+      'members.csv': 'member,start,end,section,material\nM1,N1,N2,W12X26,A992\nM2,N2,N3,W12X26,A992\n',
+      'cases.csv': 'case,category,title\nL,live,Floor\n',
+      'member_loads.csv': 'case,member,kind,direction,w1,a\nL,M1,point,global_y,-10,25\n',
+    };
+    await readAndCheck(us, 'us');
+    await page.locator('[data-test=import-blocked]').waitFor();
+    await page.locator('[data-test=import-problems] .ag-row').first().waitFor();
+    const messages = (await gridRows()).map((r) => r.message);
+    expect(messages).toContain('a = 25 ft is beyond the end of member M1, whose length is 20 ft');
+    expect(messages.some((m) => / m\b/.test(m))).toBe(false);
+    await page.screenshot({ path: '/tmp/import-page-05-us-feet.png' });
+  }, 120_000);
+
+  it('reads the blank workbook from the page without a warning or an error', async () => {
+    await app.goto(page, `/projects/${projectId}/import`);
+    const [download] = await Promise.all([page.waitForEvent('download'), page.locator('[data-test=template-metric]').click()]);
+    const file = path.join(work, 'blank-metric.xlsx');
+    await download.saveAs(file);
+    await page.locator('[data-test=import-files] input[type=file]').setInputFiles([file]);
+    await page.locator('[data-test=import-upload]').click();
+    const ok = page.locator('[data-test=import-ok]');
+    await ok.waitFor();
+    expect((await ok.textContent())!.trim()).toBe('No errors. Ready to save.');
+    expect(await page.locator('[data-test=import-problems]').count()).toBe(0);
+  }, 120_000);
 });
