@@ -105,6 +105,7 @@ describe.skipIf(!enabled)('the model picture in the browser', () => {
     await app.goto(page, `/models/${modelId}?tab=picture`);
     await page.locator('[data-test=picture-canvas]').waitFor();
     await page.locator('[data-test=picture-triad]').waitFor();
+    await page.locator('[data-test=picture-waiting]').waitFor({ state: 'detached', timeout: 60_000 });
     await page.waitForTimeout(800); // the first frames and the fitted height settle
   }
 
