@@ -99,7 +99,8 @@ export async function startCluster(options: ClusterOptions = {}): Promise<Cluste
     }
     const workers: Proc[] = [];
     const startWorker = async (env: Record<string, string> = {}) => {
-      const w = launch('server/worker.ts', { ...common, LOG_LEVEL: 'info', ...options.workerEnv, ...env });
+      // info: the worker says when it is ready and which runs it takes
+      const w = launch('server/worker.ts', { ...common, ...options.workerEnv, ...env, LOG_LEVEL: 'info' });
       procs.push(w);
       await until('worker', w, async () => /Trestle worker:/.test(w.output()));
       workers.push(w);
