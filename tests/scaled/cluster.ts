@@ -145,7 +145,7 @@ export class ApiClient {
   async request(method: string, url: string, body?: unknown | FormData): Promise<{ status: number; body: any; bytes: Uint8Array; headers: Headers }> {
     const headers: Record<string, string> = {};
     if (this.cookie) headers.cookie = this.cookie;
-    let payload: BodyInit | undefined;
+    let payload: FormData | string | undefined;
     if (body instanceof FormData) payload = body;
     else if (body !== undefined) {
       headers['content-type'] = 'application/json';
