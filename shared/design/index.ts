@@ -254,6 +254,11 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
   const forcesOf = analysis.memberForcesInto
     ? (mi: number, li: number) => analysis.memberForcesInto!(mi, li, scratch)
     : (mi: number, li: number) => analysis.memberForces(mi, li);
+  // the governing loadings' records read their forces within one iteration (records keep numbers, not arrays)
+  const forRecords: StationForces = { ...scratch };
+  const recordForcesOf = analysis.memberForcesInto
+    ? (mi: number, li: number) => analysis.memberForcesInto!(mi, li, forRecords)
+    : (mi: number, li: number) => analysis.memberForces(mi, li);
 
   for (let mi = 0; mi < ctx.prepared.length; mi++) {
     const p = ctx.prepared[mi];
@@ -298,7 +303,7 @@ export function checkModel(model: Model, analysis: AnalysisResult, options: Desi
         const li = pick[s];
         if (li < 0) continue;
         for (let t = 0; t < n; t++) want[t] = pick[t] === li ? 1 : 0;
-        const sfl = clean(analysis.memberForces(mi, li));
+        const sfl = clean(recordForcesOf(mi, li));
         const recs = plan.records(sfl, ids[li], want, p.member.id);
         for (let t = 0; t < n; t++) {
           if (pick[t] !== li) continue;

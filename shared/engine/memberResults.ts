@@ -148,17 +148,12 @@ export function memberResults(input: MemberResultsInput): MemberForcesFn {
     };
   };
 
-  // one row of the loading: 0 + Σ factor·case row, term after term in the order of the terms
-  // (the same roundings as above, so the same bits); plain loops, no builtins per call
-  let srcs = new Int32Array(8), facs = new Float64Array(8);
-  let nt = 0;
-  const row = (dst: Float64Array, r: number): void => {
-    const off = r * nSt;
-    for (let i = 0; i < nSt; i++) {
-      let v = 0;
-      for (let t = 0; t < nt; t++) v += facs[t] * data[srcs[t] + off + i];
-      dst[i] = v;
-    }
+  // the loading's rows: 0 + Σ factor·case rows, term after term in the order of the terms (the
+  // same roundings as above, so the same bits), in one flat loop per term over a scratch
+  // block, then copied to the caller's arrays; plain loops, no builtins per call
+  let comb = new Float64Array(0);
+  const copyRow = (dst: Float64Array, c: Float64Array, o: number): void => {
+    for (let i = 0; i < nSt; i++) dst[i] = c[o + i];
   };
   const into = (mi: number, ld: Loading, out: StationForces): StationForces => {
     if (addMoving && ld.envelope) {
@@ -171,25 +166,34 @@ export function memberResults(input: MemberResultsInput): MemberForcesFn {
     }
     select(mi);
     fitForces(out, nSt);
+    const n = ROWS * nSt;
+    if (comb.length < n) comb = new Float64Array(n);
+    const c = comb;
     const terms = ld.terms;
-    if (srcs.length < terms.length) { srcs = new Int32Array(terms.length); facs = new Float64Array(terms.length); }
-    nt = 0;
+    let first = true;
     for (let t = 0; t < terms.length; t++) {
-      const factor = terms[t].factor;
-      if (factor === 0) continue;
-      srcs[nt] = caseRows(terms[t].caseIndex);
-      facs[nt++] = factor;
+      const f = terms[t].factor;
+      if (f === 0) continue;
+      const src = caseRows(terms[t].caseIndex);
+      const d = data;
+      if (first) {
+        for (let i = 0; i < n; i++) c[i] = 0 + f * d[src + i];
+        first = false;
+      } else {
+        for (let i = 0; i < n; i++) c[i] += f * d[src + i];
+      }
     }
+    if (first) for (let i = 0; i < n; i++) c[i] = 0;
     const x = out.x;
     for (let i = 0; i < nSt; i++) x[i] = xs[i];
-    row(out.N, 0);
-    row(out.V_major, 1);
-    row(out.V_minor, 2);
-    row(out.T, 3);
-    row(out.M_major, 4);
-    row(out.M_minor, 5);
-    row(out.d_major, 6);
-    row(out.d_minor, 7);
+    copyRow(out.N, c, 0);
+    copyRow(out.V_major, c, nSt);
+    copyRow(out.V_minor, c, 2 * nSt);
+    copyRow(out.T, c, 3 * nSt);
+    copyRow(out.M_major, c, 4 * nSt);
+    copyRow(out.M_minor, c, 5 * nSt);
+    copyRow(out.d_major, c, 6 * nSt);
+    copyRow(out.d_minor, c, 7 * nSt);
     return out;
   };
   return Object.assign(forces, { into });
