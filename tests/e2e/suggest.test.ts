@@ -51,7 +51,7 @@ describe.skipIf(!enabled)('section suggestions in the browser', () => {
     const summary = page.locator('[data-test=suggest-summary]');
     await summary.waitFor({ timeout: 90_000 });
     expect(await summary.textContent()).toMatch(/3 changes proposed \(7 members\)/);
-    expect(await page.locator('[data-test=suggest-mass-change]').textContent()).toMatch(/^−[\d,]+ kg$/);
+    expect(await page.locator('[data-test=suggest-mass-change]').textContent()).toMatch(/^−[\d,]+ lb$/);
     expect(await page.locator('[data-test=suggest-iterations]').textContent()).toMatch(/stable after \d+ analysis pass/);
     expect(await page.locator('[data-test=suggest-grid] .ag-row').count()).toBe(3);
     expect(await page.locator('[data-test=suggest-chosen]').textContent()).toMatch(/3 rows chosen, 7 members/);
