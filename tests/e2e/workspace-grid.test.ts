@@ -297,4 +297,34 @@ describe.skipIf(!enabled)('workspace grid and main flow in the browser', () => {
     expect(await page.getByText('Press “Run”').count()).toBe(0);
     await screenshot(page, 'workspace-06-viewer');
   }, 60_000);
+
+  it('treats an engineer who is only a viewer on a project as a viewer there', async () => {
+    // effective project role = the lower of the account role and the project role (DEVELOPERS.md, project scope)
+    await signIn(page, app.baseUrl, 'admin@example.com');
+    const projects = (await apiFromPage(page, 'GET', '/api/projects')).body as { id: number }[];
+    let project = 0;
+    let modelId = 0;
+    for (const p of projects) {
+      const models = (await apiFromPage(page, 'GET', `/api/projects/${p.id}/models`)).body as { id: number }[];
+      if (models.length > 0) {
+        project = p.id;
+        modelId = models[0].id;
+        break;
+      }
+    }
+    expect(modelId).toBeGreaterThan(0);
+    const people = (await apiFromPage(page, 'GET', `/api/projects/${project}/members`)).body as { userId: number; email: string }[];
+    const engineer = people.find((p) => p.email === 'engineer@example.com')!;
+    expect((await apiFromPage(page, 'PATCH', `/api/projects/${project}/members/${engineer.userId}`, { role: 'viewer' })).status).toBe(200);
+    try {
+      await signIn(page, app.baseUrl, 'engineer@example.com');
+      await app.goto(page, `/models/${modelId}`);
+      await page.locator('[data-test=no-approved-run]').waitFor();
+      expect(await page.locator('[data-test=run-model]').count()).toBe(0);
+      expect(await page.locator('[data-test=not-run]').count()).toBe(0);
+    } finally {
+      await signIn(page, app.baseUrl, 'admin@example.com');
+      await apiFromPage(page, 'PATCH', `/api/projects/${project}/members/${engineer.userId}`, { role: 'engineer' });
+    }
+  }, 90_000);
 });
