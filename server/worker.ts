@@ -1,19 +1,26 @@
 /**
  * `npm run worker`: a worker process of the scaled mode, on any host with the same
- * configuration (DATABASE_URL, QUEUE_URL). It takes runs from `trestle-runs` and tasks
- * (uploads to read, member detail and forces, exports) from `trestle-tasks`, WORKER_CONCURRENCY
- * of each at once, and works on them in its own threads (the same task code as the server's
- * thread pool), so its event loop stays free to renew the jobs' locks. Runs write to the
- * database; tasks answer through the queue. SIGINT/SIGTERM: finish the jobs in hand, then stop.
+ * configuration (DATABASE_URL, QUEUE_URL). It takes runs from `trestle-runs`, tasks (uploads
+ * to read, member detail and forces, exports) from `trestle-tasks`, and the tasks on the runs
+ * it ran from its own `trestle-tasks-<id>`, WORKER_CONCURRENCY of each at once, and works on
+ * them in one pool of its own threads (the same task code as the server's thread pool; a task
+ * goes to the thread that holds its run's analysis), so its event loop stays free to renew
+ * the jobs' locks. Runs write to the database; tasks answer through the queue. It says it is
+ * alive in Redis every few seconds (servers route to its queue only then).
+ * SIGINT/SIGTERM: stop being routed to, finish the jobs in hand, then stop.
  */
 import { Worker, QueueEvents, type Job } from 'bullmq';
 import { ConfigError, loadEnv } from './config/env.js';
 import { createLogger } from './config/logger.js';
 import { openDatabase } from './db/data-source.js';
-import { redactUrl } from './queue/connection.js';
+import { randomBytes } from 'node:crypto';
+import os from 'node:os';
+import { redactUrl, redisConnection } from './queue/connection.js';
 import { decodeFromQueue, encodeForQueue } from './queue/codec.js';
 import { executeRun, markRunFailed } from './queue/run-job.js';
-import { LOCK_MS, RUNS_QUEUE, STALLED_CHECK_MS, TASKS_QUEUE, stalledText, type TaskProgress } from './queue/task-queue.js';
+import {
+  ALIVE_MS, HEARTBEAT_MS, LOCK_MS, RUNS_QUEUE, RUN_WORKER_TTL_S, STALLED_CHECK_MS, TASKS_QUEUE, aliveKey, runWorkerKey, stalledText, workerIdOf, workerQueueName, type TaskProgress,
+} from './queue/task-queue.js';
 import { WorkerPool } from './runs/worker-pool.js';
 import type { WorkerTask } from './runs/worker-protocol.js';
 import path from 'node:path';
@@ -38,35 +45,48 @@ async function main(): Promise<void> {
   if (!env.DATABASE_URL) logger.warn('DATABASE_URL is unset: this worker uses the SQLite file under DATA_DIR (only right on the server\'s own host)');
   const { dataSource } = await openDatabase(env.DATABASE_URL ? { url: env.DATABASE_URL } : { database: path.join(path.resolve(env.DATA_DIR), DATABASE_FILE) });
   const concurrency = env.WORKER_CONCURRENCY;
-  // threads: one per job in hand of each queue (a run and a task never wait for each other)
-  const runThreads = new WorkerPool(concurrency);
-  const taskThreads = new WorkerPool(concurrency);
-  await Promise.all([runThreads.warm(), taskThreads.warm()]);
+  const workerId = workerIdOf(os.hostname(), process.pid, randomBytes(3).toString('hex'));
+  // one pool: a task on a run this process ran goes to the thread that ran it (it holds the
+  // analysis); two threads per run in hand, so tasks rarely wait behind runs
+  const threads = new WorkerPool(2 * concurrency);
+  await threads.warm();
   const connection = { url: env.QUEUE_URL, maxRetriesPerRequest: null };
   const options = { connection, concurrency, lockDuration: LOCK_MS, stalledInterval: STALLED_CHECK_MS, maxStalledCount: 0 };
+  const redis = redisConnection(env.QUEUE_URL);
+  const beat = () => redis.set(aliveKey(workerId), String(process.pid), 'PX', ALIVE_MS).catch((err: unknown) => logger.error('heartbeat failed', err));
+  await beat();
+  const heartbeat = setInterval(() => void beat(), HEARTBEAT_MS);
 
   const runs = new Worker<{ runId: number }>(RUNS_QUEUE, async (job) => {
-    logger.info(`run ${job.data.runId}: started (pid ${process.pid})`);
-    const outcome = await executeRun(dataSource, job.data.runId, runThreads, logger);
+    logger.info(`run ${job.data.runId}: started (pid ${process.pid}, worker ${workerId})`);
+    const outcome = await executeRun(dataSource, job.data.runId, threads, logger, workerId);
+    // the servers send this run's analysis tasks to this worker's queue from now on
+    if (outcome === 'done') await redis.set(runWorkerKey(job.data.runId), workerId, 'EX', RUN_WORKER_TTL_S).catch(() => undefined);
     logger.info(`run ${job.data.runId}: ${outcome}`);
     return outcome;
   }, options);
 
-  const tasks = new Worker<{ task: string }>(TASKS_QUEUE, async (job: Job<{ task: string }>) => {
+  const work = (queue: string) => async (job: Job<{ task: string }>) => {
     const task = decodeFromQueue<WorkerTask>(job.data.task);
+    if (task.kind !== 'read') {
+      const held = threads.holds(task.runId);
+      logger.info(`task ${task.kind} of run ${task.runId} from ${queue}: worker ${workerId}, ${held ? 'analysis held' : 'no analysis held'}`);
+    }
     // progress events in order: phases, and an export's chunks numbered from 0
     let chain: Promise<unknown> = Promise.resolve();
     let seq = 0;
     const progress = (p: TaskProgress) => {
       chain = chain.then(() => job.updateProgress(p));
     };
-    const result = await taskThreads.run(task, {
+    const result = await threads.run(task, {
       onPhase: (phase) => progress({ phase }),
       onChunk: (data) => progress({ chunk: Buffer.from(data.buffer, data.byteOffset, data.byteLength).toString('base64'), seq: seq++ }),
     });
     await chain;
     return encodeForQueue(result);
-  }, options);
+  };
+  const tasks = new Worker<{ task: string }>(TASKS_QUEUE, work('shared queue'), options);
+  const own = new Worker<{ task: string }>(workerQueueName(workerId), work('own queue'), options);
 
   // a run job failed without its worker writing it (the worker died): fail the run
   const runEvents = new QueueEvents(RUNS_QUEUE, { connection });
@@ -78,17 +98,21 @@ async function main(): Promise<void> {
       (err: unknown) => logger.error(`could not mark run ${runId} failed`, err),
     );
   });
-  for (const w of [runs, tasks]) w.on('error', (err) => logger.error('queue error', err));
+  for (const w of [runs, tasks, own]) w.on('error', (err) => logger.error('queue error', err));
 
-  logger.info(`Trestle worker: ${concurrency} run${concurrency === 1 ? '' : 's'} and ${concurrency} task${concurrency === 1 ? '' : 's'} at once from ${redactUrl(env.QUEUE_URL)}`);
+  logger.info(`Trestle worker ${workerId}: ${concurrency} run${concurrency === 1 ? '' : 's'} and ${concurrency} task${concurrency === 1 ? '' : 's'} at once from ${redactUrl(env.QUEUE_URL)}`);
 
   let closing = false;
   const shutdown = async (signal: string) => {
     if (closing) return;
     closing = true;
     logger.info(`${signal}: finishing the jobs in hand`);
-    await Promise.allSettled([runs.close(), tasks.close(), runEvents.close()]);
-    await Promise.allSettled([runThreads.close(), taskThreads.close()]);
+    // servers stop routing here; tasks still waiting in the own queue go to the shared one (their servers see this worker gone)
+    clearInterval(heartbeat);
+    await redis.del(aliveKey(workerId)).catch(() => undefined);
+    await Promise.allSettled([runs.close(), tasks.close(), own.close(), runEvents.close()]);
+    await threads.close();
+    await redis.quit().catch(() => undefined);
     await dataSource.destroy();
     logger.info('worker stopped');
     process.exit(0);

@@ -1,6 +1,6 @@
 /**
  * A run, analysed by a worker process (scaled mode): claim the queued run (conditional
- * UPDATE, so a run is analysed once), analyse it in this process's threads, write phase and
+ * UPDATE, so a run is analysed once; the claim records `workerId`), analyse it in this process's threads, write phase and
  * progress to its row as they come, then its results and `done` in one transaction
  * (saveResults), or `failed` with the reason. A worker that dies writes nothing more: the
  * stalled-job check fails the job and `markRunFailed` (any worker's listener) fails the run.
@@ -13,13 +13,13 @@ import { RunEntity, type RunRecord } from '../runs/run.entity.js';
 import { PHASE_PROGRESS, runFailureText, saveResults } from '../runs/run.service.js';
 import type { TaskRunner } from '../runs/worker-pool.js';
 
-export async function executeRun(ds: DataSource, runId: number, pool: TaskRunner, logger?: Logger): Promise<'done' | 'failed' | 'skipped'> {
+export async function executeRun(ds: DataSource, runId: number, pool: TaskRunner, logger?: Logger, workerId: string | null = null): Promise<'done' | 'failed' | 'skipped'> {
   const repo = ds.getRepository(RunEntity);
   const run = await repo.findOneBy({ id: runId });
   if (!run) return 'skipped'; // deleted meanwhile
   const claimed = await repo.update(
     { id: runId, status: 'queued' },
-    { status: 'running', startedAt: new Date(), phase: 'reading', progress: PHASE_PROGRESS.reading },
+    { status: 'running', startedAt: new Date(), phase: 'reading', progress: PHASE_PROGRESS.reading, workerId },
   );
   if (!claimed.affected) return 'skipped'; // failed or taken meanwhile
   // writes about one run happen in order, one after the other

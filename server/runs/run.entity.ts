@@ -25,6 +25,8 @@ export interface RunRecord {
   /** RunStability JSON (analysis order, method, αcr, modes, warnings); null before it existed */
   stabilityJson: string | null;
   createdBy: number | null;
+  /** scaled mode: the worker process that ran it (its task queue holds the analysis); null otherwise */
+  workerId: string | null;
   createdAt: Date;
   startedAt: Date | null;
   finishedAt: Date | null;
@@ -52,6 +54,7 @@ export const RunEntity = new EntitySchema<RunRecord>({
     diagnosticsJson: { type: 'text', nullable: true },
     stabilityJson: { type: 'text', nullable: true },
     createdBy: { type: 'integer', nullable: true },
+    workerId: { type: 'varchar', length: 128, nullable: true },
     createdAt: { type: 'datetime', createDate: true },
     startedAt: { type: 'datetime', nullable: true },
     finishedAt: { type: 'datetime', nullable: true },

@@ -105,6 +105,11 @@ export class WorkerPool implements TaskRunner {
     return this.queue.length;
   }
 
+  /** Whether a live thread last handled this run (it holds the analysis unless it crashed since). */
+  holds(runId: number): boolean {
+    return this.slots.some((s) => s.worker && s.runs.includes(runId));
+  }
+
   private pump(): void {
     for (let i = 0; i < this.queue.length; ) {
       const idle = this.slots.filter((s) => !s.busy);
@@ -180,10 +185,10 @@ export class WorkerPool implements TaskRunner {
 }
 
 let shared: TaskRunner | null = null;
-let queued: TaskRunner | null = null;
+let queued: QueueTaskRunner | null = null;
 
 /** Scaled mode: the queue to the worker processes (one per process), else null. */
-function queueRunner(): TaskRunner | null {
+function queueRunner(): QueueTaskRunner | null {
   const url = process.env.QUEUE_URL?.trim();
   if (!url) return null;
   queued ??= new QueueTaskRunner(url);
@@ -192,11 +197,12 @@ function queueRunner(): TaskRunner | null {
 
 /**
  * The process-wide pool (created on first use; size from RUN_WORKERS or min(2, cpus)); with
- * QUEUE_URL, the queue to the worker processes.
+ * QUEUE_URL, the queue to the worker processes (a run's analysis tasks to the worker that ran it).
  */
 export function runPool(): TaskRunner {
   const q = queueRunner();
-  if (q) return q;
+  // analysis tasks go to the queue of the worker process that ran their run, while it lives
+  if (q) return q.affine;
   if (!shared) {
     const configured = Number(process.env.RUN_WORKERS);
     shared = Number.isInteger(configured) && configured > 0 ? new WorkerPool(configured) : new WorkerPool();

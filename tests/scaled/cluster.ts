@@ -15,6 +15,8 @@ const ROOT = path.resolve(path.dirname(new URL(import.meta.url).pathname), '../.
 export interface Proc {
   child: ChildProcess;
   output(): string;
+  /** a worker process's id (its own task queue, `runs.workerId`) */
+  workerId?: string;
 }
 
 export interface ClusterServer extends Proc {
@@ -102,7 +104,8 @@ export async function startCluster(options: ClusterOptions = {}): Promise<Cluste
       // info: the worker says when it is ready and which runs it takes
       const w = launch('server/worker.ts', { ...common, ...options.workerEnv, ...env, LOG_LEVEL: 'info' });
       procs.push(w);
-      await until('worker', w, async () => /Trestle worker:/.test(w.output()));
+      await until('worker', w, async () => /Trestle worker \S+:/.test(w.output()));
+      w.workerId = /Trestle worker (\S+):/.exec(w.output())![1];
       workers.push(w);
       return w;
     };

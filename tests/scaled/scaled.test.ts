@@ -46,6 +46,7 @@ describe.skipIf(!!missing)('scaled mode: PostgreSQL, Redis, two servers, two wor
   let projectId: number;
   let modelId: number;
   let runId: number;
+  let memberName: string;
 
   beforeAll(async () => {
     cluster = await startCluster({ servers: 2, workers: 2, env: { LOGIN_RATE_LIMIT: String(LOGIN_LIMIT) } });
@@ -102,10 +103,37 @@ describe.skipIf(!!missing)('scaled mode: PostgreSQL, Redis, two servers, two wor
     const rows = grid.body.rows ?? grid.body.members ?? grid.body;
     expect(Array.isArray(rows) ? rows.length : 0).toBeGreaterThan(0);
     const first = (Array.isArray(rows) ? rows[0] : null) as { member: string } | null;
+    memberName = first!.member;
     // member detail needs the analysis: a task through the queue
     const detail = await b.get(`/api/runs/${runId}/members/${encodeURIComponent(first!.member)}`);
     expect(detail.status, JSON.stringify(detail.body).slice(0, 300)).toBe(200);
     expect(detail.body.stations).toBeTruthy();
+  });
+
+  it('answers member detail on the worker that ran the run, from the analysis it holds', async () => {
+    const { dataSource } = await openDatabase({ url: cluster.databaseUrl });
+    let workerId: string | null;
+    try {
+      [{ workerId }] = await dataSource.query(`SELECT "workerId" FROM runs WHERE id = $1`, [runId]);
+    } finally {
+      await dataSource.destroy();
+    }
+    const ran = cluster.workers.find((w) => w.workerId === workerId);
+    expect(ran, `run ${runId} recorded worker ${workerId}, not one of ours`).toBeTruthy();
+    const line = `task member of run ${runId} from own queue: worker ${workerId}, analysis held`;
+    const count = (w: { output(): string }) => w.output().split(line).length - 1;
+    const others = cluster.workers.filter((w) => w !== ran);
+    const before = count(ran!);
+    const othersBefore = others.map((w) => w.output().split(`task member of run ${runId} `).length);
+    // three details asked through both servers: every one on the worker that ran the run, none re-analysed
+    for (const api of [a, b, a]) {
+      const detail = await api.get(`/api/runs/${runId}/members/${encodeURIComponent(memberName)}`);
+      expect(detail.status, JSON.stringify(detail.body).slice(0, 300)).toBe(200);
+      expect(detail.body.stations).toBeTruthy();
+    }
+    for (let i = 0; i < 50 && count(ran!) < before + 3; i++) await new Promise((r) => setTimeout(r, 20));
+    expect(count(ran!)).toBe(before + 3);
+    expect(others.map((w) => w.output().split(`task member of run ${runId} `).length)).toEqual(othersBefore);
   });
 
   it('exports through a worker, streamed to the server that asked', async () => {

@@ -11,5 +11,6 @@ import { ModelsRuns1764640000000 } from './1764640000000-models-runs.js';
 import { ReviewAudit1764700000000 } from './1764700000000-review-audit.js';
 import { RunStability1764961000000 } from './1764961000000-run-stability.js';
 import { ResultParts1765100000000 } from './1765100000000-result-parts.js';
+import { RunWorker1765400000000 } from './1765400000000-run-worker.js';
 
-export const migrations: (new () => MigrationInterface)[] = [Foundation1764633600000, ModelsRuns1764640000000, ReviewAudit1764700000000, RunStability1764961000000, ResultParts1765100000000];
+export const migrations: (new () => MigrationInterface)[] = [Foundation1764633600000, ModelsRuns1764640000000, ReviewAudit1764700000000, RunStability1764961000000, ResultParts1765100000000, RunWorker1765400000000];
