@@ -9,12 +9,21 @@ import { queueUrl, redisConnection } from './connection.js';
 
 let client: Redis | null = null;
 
+/**
+ * The server's one Redis client for shared state (rate limits, export counts, calculation
+ * packages), or null without QUEUE_URL; closed by closeRateStore at shutdown.
+ */
+export function sharedRedis(): Redis | null {
+  const url = queueUrl();
+  if (!url) return null;
+  client ??= redisConnection(url);
+  return client;
+}
+
 /** A store for one limiter (`name` keeps limiters apart), or undefined for the in-memory default. */
 export function sharedRateStore(name: string): RedisStore | undefined {
-  const url = queueUrl();
-  if (!url) return undefined;
-  client ??= redisConnection(url);
-  const c = client;
+  const c = sharedRedis();
+  if (!c) return undefined;
   return new RedisStore({
     prefix: `trestle:rl:${name}:`,
     sendCommand: (command: string, ...args: string[]) => c.call(command, ...args) as Promise<RedisReply>,

@@ -21,12 +21,12 @@ export function reportsRouter({ dataSource, logger }: AppContext): Router {
     const input = startReportSchema.parse(req.body);
     res.status(202).json(await startReport(dataSource, logger, currentUser(req).id, runId(req), input));
   });
-  router.get('/:reportId', requireRole(...REPORT_READERS), guard.run('runId'), (req, res) => {
-    res.json(getReport(runId(req), String(req.params.reportId)));
+  router.get('/:reportId', requireRole(...REPORT_READERS), guard.run('runId'), async (req, res) => {
+    res.json(await getReport(runId(req), String(req.params.reportId)));
   });
   router.get('/:reportId/file', requireRole(...REPORT_READERS), guard.run('runId'), async (req, res) => {
     const id = String(req.params.reportId);
-    const name = reportFileName(runId(req), id);
+    const name = await reportFileName(runId(req), id);
     res.set('Content-Type', 'application/pdf');
     res.set('Content-Disposition', `attachment; filename="${name}"`);
     try {

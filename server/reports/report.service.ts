@@ -4,7 +4,9 @@
  * worker pool, as the member page gets them), then a report worker lays out the PDF and posts its
  * chunks, which are kept with the job and streamed to whoever downloads it. Jobs live for
  * REPORT_TTL_MS after they finish; anyone who may read the run may read its jobs (the router's
- * run guard decides; job ids are random UUIDs).
+ * run guard decides; job ids are random UUIDs). Scaled mode (QUEUE_URL): the job is also
+ * copied to Redis as it goes (report-store.ts), and a server that did not start it answers
+ * progress and download from there.
  */
 import { randomUUID } from 'node:crypto';
 import { readFileSync } from 'node:fs';
@@ -24,6 +26,7 @@ import { runPool } from '../runs/worker-pool.js';
 import { UserEntity } from '../users/user.entity.js';
 import type { ReportCover, ReportData, ReportMember } from './report-data.js';
 import type { ReportReply, ReportRequest } from './report-worker-protocol.js';
+import { POLL_MS, ReportMirror, readChunks, readState, sharedReports } from './report-store.js';
 
 /** Most member records one package holds. */
 export const MAX_REPORT_MEMBERS = 2000;
@@ -35,6 +38,8 @@ interface Job extends ReportJob {
   listeners: Set<() => void>;
   worker?: Worker;
   expires?: NodeJS.Timeout;
+  /** scaled mode: its copy in Redis */
+  mirror?: ReportMirror;
 }
 
 const jobs = new Map<string, Job>();
@@ -44,6 +49,7 @@ function publicJob(j: Job): ReportJob {
 }
 
 function notify(j: Job): void {
+  j.mirror?.state(publicJob(j));
   for (const l of [...j.listeners]) l();
 }
 
@@ -146,6 +152,12 @@ export async function startReport(ds: DataSource, logger: Logger, userId: number
     userId, chunks: [], listeners: new Set(),
   };
   jobs.set(job.id, job);
+  if (sharedReports()) {
+    // readable on every server before the answer leaves
+    job.mirror = new ReportMirror(job.id, REPORT_TTL_MS);
+    job.mirror.state(publicJob(job));
+    await job.mirror.flush();
+  }
   void produce(job, run, json, model, result, members, chosen, cover, compress).catch((err: unknown) => {
     const known = err instanceof AppError;
     if (!known) logger.error(`calculation package ${job.id} of run ${runId} failed`, err);
@@ -187,6 +199,7 @@ function write(job: Job, request: ReportRequest): Promise<void> {
     worker.on('message', (reply: ReportReply) => {
       if (reply.type === 'chunk') {
         job.chunks.push(reply.chunk);
+        job.mirror?.chunk(reply.chunk);
         notify(job);
       } else if (reply.type === 'progress') {
         job.done = reply.done;
@@ -219,13 +232,28 @@ function jobOf(runId: number, id: string): Job {
   return job;
 }
 
-export function getReport(runId: number, id: string): ReportJob {
-  return publicJob(jobOf(runId, id));
+/** A job this server started, or (scaled mode) its state as another server left it in Redis. */
+async function findJob(runId: number, id: string): Promise<{ local: Job } | { shared: ReportJob }> {
+  const local = jobs.get(id);
+  if (local || !sharedReports()) return { local: jobOf(runId, id) };
+  const shared = await readState(id);
+  if (!shared || shared.runId !== runId) throw notFound(`No calculation package ${id} for run ${runId}`);
+  return { shared };
+}
+
+export async function getReport(runId: number, id: string): Promise<ReportJob> {
+  const found = await findJob(runId, id);
+  return 'local' in found ? publicJob(found.local) : found.shared;
 }
 
 /** The file's chunks as they come: what is written so far, then each new chunk until the end. */
 export async function* reportChunks(runId: number, id: string): AsyncGenerator<Uint8Array> {
-  const job = jobOf(runId, id);
+  const found = await findJob(runId, id);
+  if ('shared' in found) {
+    yield* sharedChunks(runId, id);
+    return;
+  }
+  const job = found.local;
   if (job.phase === 'failed') throw new AppError(409, 'conflict', job.message);
   let sent = 0;
   for (;;) {
@@ -243,9 +271,27 @@ export async function* reportChunks(runId: number, id: string): AsyncGenerator<U
   }
 }
 
+/** Another server's job, from Redis: its state first, then the chunks (written before any state that follows them). */
+async function* sharedChunks(runId: number, id: string): AsyncGenerator<Uint8Array> {
+  let sent = 0;
+  for (;;) {
+    const state = await readState(id);
+    if (!state || state.runId !== runId) throw new AppError(409, 'conflict', 'The calculation package is no longer available (its server stopped or it expired); start it again');
+    if (state.phase === 'failed') throw new AppError(409, 'conflict', state.message);
+    const chunks = await readChunks(id, sent);
+    for (const c of chunks) {
+      sent++;
+      yield new Uint8Array(c.buffer, c.byteOffset, c.byteLength);
+    }
+    if (state.phase === 'done') return;
+    await new Promise((r) => setTimeout(r, POLL_MS));
+  }
+}
+
 /** The job's file name, once it has not failed (for the download headers). */
-export function reportFileName(runId: number, id: string): string {
-  const job = jobOf(runId, id);
+export async function reportFileName(runId: number, id: string): Promise<string> {
+  const found = await findJob(runId, id);
+  const job = 'local' in found ? publicJob(found.local) : found.shared;
   if (job.phase === 'failed') throw new AppError(409, 'conflict', job.message);
   return job.fileName;
 }

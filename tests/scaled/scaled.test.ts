@@ -146,6 +146,32 @@ describe.skipIf(!!missing)('scaled mode: PostgreSQL, Redis, two servers, two wor
     expect(Buffer.from(xlsx.bytes.subarray(0, 2)).toString('latin1')).toBe('PK');
   });
 
+  it('writes a calculation package started on one server; progress and download from the other', async () => {
+    const start = await a.post(`/api/runs/${runId}/reports`, { members: 'all' });
+    expect(start.status, JSON.stringify(start.body)).toBe(202);
+    const id = start.body.id as string;
+    // asked at once on the other server: it knows the job
+    const first = await b.get(`/api/runs/${runId}/reports/${id}`);
+    expect(first.status, JSON.stringify(first.body)).toBe(200);
+    expect(['gathering', 'writing', 'done']).toContain(first.body.phase);
+    expect(first.body.total).toBe(start.body.total);
+    let job = first.body;
+    for (let i = 0; i < 600 && job.phase !== 'done' && job.phase !== 'failed'; i++) {
+      await new Promise((r) => setTimeout(r, 100));
+      job = (await b.get(`/api/runs/${runId}/reports/${id}`)).body;
+    }
+    expect(job.phase, job.message).toBe('done');
+    expect(job.pages).toBeGreaterThan(0);
+    const fromB = await b.get(`/api/runs/${runId}/reports/${id}/file`);
+    expect(fromB.status).toBe(200);
+    expect(fromB.headers.get('content-disposition')).toContain(job.fileName);
+    expect(Buffer.from(fromB.bytes.subarray(0, 5)).toString('latin1')).toBe('%PDF-');
+    const fromA = await a.get(`/api/runs/${runId}/reports/${id}/file`);
+    expect(Buffer.compare(Buffer.from(fromA.bytes), Buffer.from(fromB.bytes))).toBe(0);
+    // another run's id does not reach it
+    expect((await b.get(`/api/runs/${runId + 1000}/reports/${id}`)).status).toBe(404);
+  });
+
   it('lets exactly one of two concurrent edits of the same version through (optimistic lock)', async () => {
     const members = await a.get(`/api/models/${modelId}/members`);
     const member = members.body.members[0].member ?? members.body.members[0].id;
