@@ -19,7 +19,7 @@ import { analyse, type AnalyseOptions } from '../engine/index.js';
 import type { AnalysisResult } from '../engine/types.js';
 import type { Model } from '../model/types.js';
 import type { CriticalLoadFactors, SecondOrderLoading, StabilitySummary, StabilityWarning } from './types.js';
-import { criticalLoadFactors } from './buckling.js';
+import { criticalLoadFactors, lowestCriticalLoadFactors } from './buckling.js';
 import { naturalModes } from './modes.js';
 import { analyseSecondOrder, MOVING_LOADS_REFUSED, SECOND_ORDER_DEFAULTS, type SecondOrderOptions } from './second-order.js';
 import { AISC_DRIFT_RATIO_LIMIT, aiscDirectAnalysis, enSwayImperfection, isAisc, plainPlan, type SecondOrderPlan, withCaseCombinations } from './code-rules.js';
@@ -87,7 +87,11 @@ export function analyseModel(model: Model, options: AnalyseModelOptions = {}): M
     const staticModel = model.movingLoads.length ? { ...model, movingLoads: [], vehicles: [], lanes: [] } : model;
     if (model.movingLoads.length) notes.push('critical load factors from the static loads only: the moving loads are not included');
     try {
-      critical = criticalLoadFactors(staticModel, Math.max(1, bucklingModes), { ...solverOptions(options), shapes: bucklingModes > 0 });
+      // the warning alone needs only the lowest αcr of each loading against its limit: its cheaper
+      // mesh and tolerance (WARNING_BUCKLING_OPTIONS); modes asked for, and EN's report, get the full ones
+      critical = bucklingModes === 0 && !enReport
+        ? lowestCriticalLoadFactors(staticModel, solverOptions(options)).critical
+        : criticalLoadFactors(staticModel, Math.max(1, bucklingModes), { ...solverOptions(options), shapes: bucklingModes > 0 });
     } catch (err) {
       // asked for by the user: their error; only for the warning: the run goes on, saying it was not checked
       if (bucklingModes > 0 || !warn) throw err;

@@ -3,6 +3,7 @@ import { describe, expect, it, vi } from 'vitest';
 
 vi.mock('../../../shared/stability/buckling.js', () => ({
   criticalLoadFactors: () => { throw new Error('eigen solve did not converge'); },
+  lowestCriticalLoadFactors: () => { throw new Error('eigen solve did not converge'); },
 }));
 
 const { analyseModel } = await import('../../../shared/stability/index.js');
