@@ -2,9 +2,14 @@
  * How many exports may be in flight: per server (EXPORT_WORKERS building, EXPORT_MAX_QUEUED
  * more waiting for a thread) and per user (EXPORT_MAX_PER_USER). Past either bound the
  * request is refused at once with 429, `Retry-After` and the standard error body, before any
- * work is done.
+ * work is done. Scaled mode (QUEUE_URL): the per-user count is kept in Redis
+ * (`trestle:exports:user:<id>`, INCR on entry, DECR when over, expiring USER_COUNT_TTL_MS after
+ * the last entry as a safety net for a server that dies mid-export), so all servers together
+ * keep EXPORT_MAX_PER_USER; the per-server bound stays per server (it protects that server).
  */
+import type { Redis } from 'ioredis';
 import { AppError } from '../errors/app-error.js';
+import { sharedRedis } from '../queue/rate-store.js';
 
 export interface ExportLimits {
   /** threads building exports of stored results (the export pool's size) */
@@ -28,6 +33,9 @@ export function exportLimitsFromEnv(env: Record<string, string | undefined> = pr
   };
 }
 
+const userBusy = (mine: number, limits: ExportLimits) =>
+  new AppError(429, 'rate_limited', `You have ${mine} export${mine === 1 ? '' : 's'} in progress (at most ${limits.perUser} at once, EXPORT_MAX_PER_USER); try again when one has finished`, { retryAfterSeconds: 5, limit: limits.perUser });
+
 export class ExportGate {
   private inFlight = 0;
   private readonly byUser = new Map<number, number>();
@@ -40,9 +48,7 @@ export class ExportGate {
   /** A place for one export of `userId`, or 429; call the returned function once it is over. */
   enter(userId: number): () => void {
     const mine = this.byUser.get(userId) ?? 0;
-    if (mine >= this.limits.perUser) {
-      throw new AppError(429, 'rate_limited', `You have ${mine} export${mine === 1 ? '' : 's'} in progress (at most ${this.limits.perUser} at once, EXPORT_MAX_PER_USER); try again when one has finished`, { retryAfterSeconds: 5, limit: this.limits.perUser });
-    }
+    if (mine >= this.limits.perUser) throw userBusy(mine, this.limits);
     const room = this.limits.workers + this.limits.queued;
     if (this.inFlight >= room) {
       throw new AppError(429, 'rate_limited', `The server is building ${this.inFlight} exports (at most ${room} at once); try again in a few seconds`, { retryAfterSeconds: 10, limit: room });
@@ -61,10 +67,65 @@ export class ExportGate {
   }
 }
 
-let shared: ExportGate | null = null;
+/** A user's in-flight count lives this long after their last export began (a dead server's count runs out). */
+export const USER_COUNT_TTL_MS = 10 * 60_000;
+const userKey = (userId: number) => `trestle:exports:user:${userId}`;
 
-/** The process-wide gate (limits read from the environment on first use). */
-export function exportGate(): ExportGate {
-  shared ??= new ExportGate(exportLimitsFromEnv());
+/** Either gate: the router awaits `enter`. */
+export interface ExportAdmission {
+  enter(userId: number): (() => void) | Promise<() => void>;
+  readonly active: number;
+}
+
+/** Scaled mode: the per-user count shared by every server through Redis; this server's own bound kept here. */
+export class SharedExportGate implements ExportAdmission {
+  private readonly local: ExportGate;
+  constructor(readonly limits: ExportLimits, private readonly redis: Redis) {
+    this.local = new ExportGate({ ...limits, perUser: Number.MAX_SAFE_INTEGER });
+  }
+
+  get active(): number {
+    return this.local.active;
+  }
+
+  async enter(userId: number): Promise<() => void> {
+    const leaveServer = this.local.enter(userId);
+    let mine: number;
+    try {
+      const replies = await this.redis.multi().incr(userKey(userId)).pexpire(userKey(userId), USER_COUNT_TTL_MS).exec();
+      const [err, count] = replies?.[0] ?? [new Error('no reply from Redis'), null];
+      if (err) throw err;
+      mine = Number(count);
+    } catch (err) {
+      leaveServer();
+      throw err;
+    }
+    let left = false;
+    const leave = () => {
+      if (left) return;
+      left = true;
+      leaveServer();
+      // never below zero (the key may have run out meanwhile)
+      void this.redis
+        .decr(userKey(userId))
+        .then((n) => (n <= 0 ? this.redis.del(userKey(userId)) : 0))
+        .catch(() => undefined);
+    };
+    if (mine > this.limits.perUser) {
+      leave();
+      throw userBusy(mine - 1, this.limits);
+    }
+    return leave;
+  }
+}
+
+let shared: ExportAdmission | null = null;
+
+/** The process-wide gate (limits read from the environment on first use); shared per user through Redis with QUEUE_URL. */
+export function exportGate(): ExportAdmission {
+  if (!shared) {
+    const redis = sharedRedis();
+    shared = redis ? new SharedExportGate(exportLimitsFromEnv(), redis) : new ExportGate(exportLimitsFromEnv());
+  }
   return shared;
 }

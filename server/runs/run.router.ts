@@ -69,7 +69,7 @@ export function runsRouter({ dataSource, logger }: AppContext): Router {
     const plan = (STABILITY_EXPORT_KINDS as readonly string[]).includes(m[1])
       ? await planStabilityExport(dataSource, id, m[1] as StabilityExportKind, m[2] as ExportFormat)
       : await planRunExport(dataSource, id, m[1] as ExportKind, m[2] as ExportFormat, text(req.query.loading));
-    const release = exportGate().enter(currentUser(req).id);
+    const release = await exportGate().enter(currentUser(req).id); // scaled mode: counted in Redis
     // headers go with the first piece, so a failure before it is still a clean JSON error
     const start = () => {
       if (res.headersSent) return;

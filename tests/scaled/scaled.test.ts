@@ -8,7 +8,10 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { frameTables } from '../../bench/frame-model.js';
+import { Queue } from 'bullmq';
+import { Redis } from 'ioredis';
 import { openDatabase } from '../../server/db/data-source.js';
+import { TASKS_QUEUE } from '../../server/queue/task-queue.js';
 import { ApiClient, startCluster, type Cluster } from './cluster.js';
 import { missingEngines } from './engines.js';
 
@@ -49,7 +52,7 @@ describe.skipIf(!!missing)('scaled mode: PostgreSQL, Redis, two servers, two wor
   let memberName: string;
 
   beforeAll(async () => {
-    cluster = await startCluster({ servers: 2, workers: 2, env: { LOGIN_RATE_LIMIT: String(LOGIN_LIMIT) } });
+    cluster = await startCluster({ servers: 2, workers: 2, env: { LOGIN_RATE_LIMIT: String(LOGIN_LIMIT), EXPORT_MAX_PER_USER: '1' } });
     a = new ApiClient(cluster.servers[0].url);
     await a.signIn('engineer@example.com');
     b = a.on(cluster.servers[1].url);
@@ -144,6 +147,35 @@ describe.skipIf(!!missing)('scaled mode: PostgreSQL, Redis, two servers, two wor
     const xlsx = await a.get(`/api/runs/${runId}/exports/reactions.xlsx`);
     expect(xlsx.status).toBe(200);
     expect(Buffer.from(xlsx.bytes.subarray(0, 2)).toString('latin1')).toBe('PK');
+  });
+
+  it('keeps EXPORT_MAX_PER_USER (1 here) across both servers', async () => {
+    // the workers take no new task while the queue is paused: the first export stays in flight
+    const tasks = new Queue(TASKS_QUEUE, { connection: { url: cluster.queueUrl } });
+    const redis = new Redis(cluster.queueUrl);
+    try {
+      await tasks.pause();
+      const first = a.get(`/api/runs/${runId}/exports/utilisation.csv`);
+      const me = (await a.get('/api/auth/me')).body.id as number;
+      for (let i = 0; i < 200 && (await redis.get(`trestle:exports:user:${me}`)) !== '1'; i++) await new Promise((r) => setTimeout(r, 20));
+      expect(await redis.get(`trestle:exports:user:${me}`)).toBe('1');
+      const second = await b.get(`/api/runs/${runId}/exports/reactions.csv`);
+      expect(second.status).toBe(429);
+      expect(second.body.error.message).toMatch(/EXPORT_MAX_PER_USER/);
+      // another user is not held up by it
+      const admin = new ApiClient(cluster.servers[1].url);
+      await admin.signIn('admin@example.com');
+      const theirs = admin.get(`/api/runs/${runId}/exports/reactions.csv`);
+      await tasks.resume();
+      expect((await first).status).toBe(200);
+      expect((await theirs).status).toBe(200);
+      for (let i = 0; i < 100 && (await redis.get(`trestle:exports:user:${me}`)) !== null; i++) await new Promise((r) => setTimeout(r, 20));
+      expect((await b.get(`/api/runs/${runId}/exports/reactions.csv`)).status).toBe(200);
+    } finally {
+      await tasks.resume().catch(() => undefined);
+      await tasks.close();
+      redis.disconnect();
+    }
   });
 
   it('writes a calculation package started on one server; progress and download from the other', async () => {
