@@ -3,7 +3,7 @@ import { mkdtempSync, readFileSync, readdirSync, writeFileSync, existsSync } fro
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { runCli } from '../../../server/cli/run.js';
+import { folder, run } from './cli-helpers.js';
 
 /** A fixed-base portal frame of our own (invented numbers: demo data), Y up, 6 m × 4 m. */
 const PORTAL: Record<string, string> = {
@@ -19,18 +19,7 @@ const PORTAL: Record<string, string> = {
   combinations: 'combination,case,factor,limit_state\nULS-1,G,1.35,strength\nULS-1,W,1.5,strength\nULS-2,G,1.35,strength\n',
 };
 
-function folder(tables: Record<string, string>): string {
-  const dir = mkdtempSync(join(tmpdir(), 'trestle-stab-'));
-  for (const [name, text] of Object.entries(tables)) writeFileSync(join(dir, `${name}.csv`), text);
-  return dir;
-}
 
-async function run(args: string[]) {
-  const out: string[] = [];
-  const err: string[] = [];
-  const code = await runCli(args, { out: (l) => out.push(l), err: (l) => err.push(l) });
-  return { code, out, err };
-}
 
 const lines = (file: string) => readFileSync(file, 'utf8').trim().split('\r\n');
 

@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
-import { runCli } from '../../../server/cli/run.js';
+import { folder, run } from './cli-helpers.js';
 
 /** Simply supported IPE beam, L = 6 m, S235, continuously braced, w = 22 kN/m (as tests/shared/design/suggest). */
 const BEAM: Record<string, string> = {
@@ -16,18 +16,7 @@ const BEAM: Record<string, string> = {
   member_loads: 'case,member,kind,direction,w1\nD,M1,uniform,global_y,-22\n',
 };
 
-function folder(tables: Record<string, string>): string {
-  const dir = mkdtempSync(join(tmpdir(), 'trestle-suggest-in-'));
-  for (const [name, text] of Object.entries(tables)) writeFileSync(join(dir, `${name}.csv`), text);
-  return dir;
-}
 
-async function run(args: string[]) {
-  const out: string[] = [];
-  const err: string[] = [];
-  const code = await runCli(args, { out: (l) => out.push(l), err: (l) => err.push(l) });
-  return { code, out, err };
-}
 
 const rows = (file: string) => Papa.parse<string[]>(readFileSync(file, 'utf8').trim()).data;
 

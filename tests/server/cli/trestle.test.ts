@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import ExcelJS from 'exceljs';
 import { describe, expect, it } from 'vitest';
-import { runCli } from '../../../server/cli/run.js';
+import { folder, run } from './cli-helpers.js';
 
 const GOOD: Record<string, string> = {
   settings: 'key,value\ntitle,Cantilever\n',
@@ -18,18 +18,7 @@ const GOOD: Record<string, string> = {
   combinations: 'combination,case,factor\nU,P,1.5\n',
 };
 
-function folder(tables: Record<string, string>): string {
-  const dir = mkdtempSync(join(tmpdir(), 'trestle-in-'));
-  for (const [name, text] of Object.entries(tables)) writeFileSync(join(dir, `${name}.csv`), text);
-  return dir;
-}
 
-async function run(args: string[]) {
-  const out: string[] = [];
-  const err: string[] = [];
-  const code = await runCli(args, { out: (l) => out.push(l), err: (l) => err.push(l) });
-  return { code, out, err };
-}
 
 function parseCsv(text: string): string[][] {
   return text.trim().split('\r\n').map((l) => l.split(','));
