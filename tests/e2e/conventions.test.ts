@@ -10,7 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { readWorkbook } from '../../shared/reader/index.js';
 import { CSV } from '../server/models/fixture.js';
-import { apiFromPage, chromiumAvailable, screenshot, signIn, startApp, stopApp, type TrestleApp } from './harness.js';
+import { apiFromPage, chromiumAvailable, screenshot, signIn, startApp, stopApp, type TrestleApp, createProject } from './harness.js';
 
 const enabled = chromiumAvailable('conventions');
 
@@ -26,9 +26,7 @@ describe.skipIf(!enabled)('conventions page and model workbook in the browser', 
     page = await app.newPage();
     await page.setViewportSize({ width: 1440, height: 900 });
     await signIn(page, app.baseUrl, 'engineer@example.com');
-    const created = await apiFromPage(page, 'POST', '/api/projects', { name: 'Conventions test project' });
-    expect(created.status).toBe(201);
-    projectId = (created.body as { id: number }).id;
+    projectId = await createProject(page, 'Conventions test project');
   }, 240_000);
 
   afterAll(async () => {

@@ -245,6 +245,13 @@ export async function signOut(page: Page): Promise<void> {
   await page.waitForURL((u) => u.pathname.startsWith('/sign-in'));
 }
 
+/** Creates a project as the signed-in user (through the page's session) and returns its id. */
+export async function createProject(page: Page, name: string): Promise<number> {
+  const created = await apiFromPage(page, 'POST', '/api/projects', { name });
+  if (created.status !== 201) throw new Error(`creating project "${name}" answered ${created.status}: ${JSON.stringify(created.body)}`);
+  return (created.body as { id: number }).id;
+}
+
 /** Calls the API from inside the page (with its session cookie); returns status and body. */
 export async function apiFromPage(page: Page, method: string, pathname: string, body?: unknown): Promise<{ status: number; body: unknown }> {
   return page.evaluate(

@@ -11,7 +11,7 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { CSV } from '../server/models/fixture.js';
-import { apiFromPage, chromiumAvailable, screenshot, signIn, startApp, stopApp, writeCsvs, type TrestleApp } from './harness.js';
+import { apiFromPage, chromiumAvailable, screenshot, signIn, startApp, stopApp, writeCsvs, type TrestleApp, createProject } from './harness.js';
 
 const enabled = chromiumAvailable('import page');
 
@@ -35,9 +35,7 @@ describe.skipIf(!enabled)('import page in the browser', () => {
     page = await app.newPage();
     await page.setViewportSize({ width: 1440, height: 900 });
     await signIn(page, app.baseUrl, 'engineer@example.com');
-    const created = await apiFromPage(page, 'POST', '/api/projects', { name: 'Import page test project' });
-    expect(created.status).toBe(201);
-    projectId = (created.body as { id: number }).id;
+    projectId = await createProject(page, 'Import page test project');
   }, 240_000);
 
   afterAll(async () => {

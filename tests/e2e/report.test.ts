@@ -11,7 +11,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { CSV } from '../server/models/fixture.js';
 import { readPdf } from '../server/reports/pdf-text.js';
-import { ARTIFACTS_DIR, apiFromPage, chromiumAvailable, screenshot, signIn, startApp, stopApp, type TrestleApp } from './harness.js';
+import { ARTIFACTS_DIR, apiFromPage, chromiumAvailable, screenshot, signIn, startApp, stopApp, type TrestleApp, createProject } from './harness.js';
 
 const enabled = chromiumAvailable('report');
 
@@ -27,9 +27,7 @@ describe.skipIf(!enabled)('calculation package in the browser', () => {
     work = mkdtempSync(path.join(tmpdir(), 'trestle-e2e-report-'));
     page = await app.newPage();
     await signIn(page, app.baseUrl, 'engineer@example.com');
-    const created = await apiFromPage(page, 'POST', '/api/projects', { name: 'Package test project' });
-    expect(created.status).toBe(201);
-    projectId = (created.body as { id: number }).id;
+    projectId = await createProject(page, 'Package test project');
   }, 300_000);
 
   afterAll(async () => {

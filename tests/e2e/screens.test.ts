@@ -10,7 +10,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { apiFromPage, ARTIFACTS_DIR, chromiumAvailable, screenshot, signIn, startApp, stopApp, type TrestleApp, writeCsvs } from './harness.js';
+import { apiFromPage, ARTIFACTS_DIR, chromiumAvailable, screenshot, signIn, startApp, stopApp, type TrestleApp, writeCsvs, createProject } from './harness.js';
 
 const enabled = chromiumAvailable('screens');
 
@@ -58,9 +58,7 @@ describe.skipIf(!enabled)('working screens in the browser', () => {
     page = await app.newPage();
     page.setDefaultTimeout(30_000);
     await signIn(page, app.baseUrl, 'engineer@example.com');
-    const created = await apiFromPage(page, 'POST', '/api/projects', { name: 'Screens test project' });
-    expect(created.status).toBe(201);
-    projectId = (created.body as { id: number }).id;
+    projectId = await createProject(page, 'Screens test project');
   }, 180_000);
 
   afterAll(async () => {

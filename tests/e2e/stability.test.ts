@@ -10,7 +10,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { apiFromPage, chromiumAvailable, screenshot, signIn, startApp, stopApp, type TrestleApp, writeCsvs } from './harness.js';
+import { apiFromPage, chromiumAvailable, screenshot, signIn, startApp, stopApp, type TrestleApp, writeCsvs, createProject } from './harness.js';
 
 const enabled = chromiumAvailable('stability');
 
@@ -42,9 +42,7 @@ describe.skipIf(!enabled)('stability results in the browser', () => {
     work = mkdtempSync(path.join(tmpdir(), 'trestle-e2e-stability-'));
     page = await app.newPage();
     await signIn(page, app.baseUrl, 'engineer@example.com');
-    const created = await apiFromPage(page, 'POST', '/api/projects', { name: 'Stability test project' });
-    expect(created.status).toBe(201);
-    projectId = (created.body as { id: number }).id;
+    projectId = await createProject(page, 'Stability test project');
   }, 300_000);
 
   afterAll(async () => {

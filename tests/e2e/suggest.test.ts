@@ -7,7 +7,7 @@ import { readdirSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { ROOT, apiFromPage, chromiumAvailable, screenshot, signIn, startApp, stopApp, type TrestleApp } from './harness.js';
+import { ROOT, apiFromPage, chromiumAvailable, screenshot, signIn, startApp, stopApp, type TrestleApp, createProject } from './harness.js';
 
 const enabled = chromiumAvailable('suggest');
 const SAMPLE = path.join(ROOT, 'samples/portal-frame-building/csv');
@@ -21,9 +21,7 @@ describe.skipIf(!enabled)('section suggestions in the browser', () => {
     app = await startApp();
     page = await app.newPage();
     await signIn(page, app.baseUrl, 'engineer@example.com');
-    const created = await apiFromPage(page, 'POST', '/api/projects', { name: 'Suggest test project' });
-    expect(created.status).toBe(201);
-    projectId = (created.body as { id: number }).id;
+    projectId = await createProject(page, 'Suggest test project');
   }, 300_000);
 
   afterAll(async () => {

@@ -11,7 +11,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
-import { apiFromPage, chromiumAvailable, screenshot, signIn, startApp, stopApp, writeCsvs, type TrestleApp } from './harness.js';
+import { apiFromPage, chromiumAvailable, screenshot, signIn, startApp, stopApp, writeCsvs, type TrestleApp, createProject } from './harness.js';
 
 const enabled = chromiumAvailable('workspace-grid');
 
@@ -87,9 +87,7 @@ describe.skipIf(!enabled)('workspace grid and main flow in the browser', () => {
     page = await app.newPage();
     await page.setViewportSize({ width: 1440, height: 900 });
     await signIn(page, app.baseUrl, 'engineer@example.com');
-    const created = await apiFromPage(page, 'POST', '/api/projects', { name: 'Keyboard project' });
-    expect(created.status).toBe(201);
-    projectId = (created.body as { id: number }).id;
+    projectId = await createProject(page, 'Keyboard project');
   }, 180_000);
 
   afterAll(async () => {
