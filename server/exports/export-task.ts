@@ -8,7 +8,7 @@ import { gunzipSync } from 'node:zlib';
 import type { CheckRecord, MemberUtilisation } from '../../shared/design/types.js';
 import { csvChunks, type ResultTable } from '../../shared/exports/index.js';
 import type { DesignCode, Model } from '../../shared/model/types.js';
-import type { ExportFormat, LoadingInfo } from '../../shared/schemas/runs.js';
+import type { ExportFormat, LoadingInfo, RunStability } from '../../shared/schemas/runs.js';
 import { checksExport, displacementsExport, reactionsExport, storedNodeResults, storedNoiseFloor, utilisationExport } from './tables.js';
 import { settingLines } from '../../shared/reader/settings-summary.js';
 import { cleanTableNoise } from './noise.js';
@@ -28,6 +28,8 @@ export interface ExportTask {
   /** run_results blobs as stored (gzip) */
   membersData?: Uint8Array;
   recordsData?: Uint8Array;
+  /** the run's stability summary (a worker analysing again takes the first-order warning from it) */
+  stability?: RunStability | null;
   /** runs before per-loading rows: gzip(Float64 displacements then reactions, loading-major) */
   nodeData?: Uint8Array;
   /** gzip(Float64 displacements then reactions) of each loading, in loading order */

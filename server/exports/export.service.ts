@@ -15,7 +15,7 @@ import { findModel, findVersion } from '../models/model.service.js';
 import { findProject } from '../projects/project.service.js';
 import { RunReviewEntity } from '../reviews/review.entity.js';
 import { UserEntity } from '../users/user.entity.js';
-import { doneRun, loadingsOf, runMethod } from '../runs/run.service.js';
+import { doneRun, loadingsOf, runMethod, stabilityOf } from '../runs/run.service.js';
 import { storedLoadingBlocks } from '../runs/result-parts.js';
 import type { RunRecord } from '../runs/run.entity.js';
 import { exportPool, runPool } from '../runs/worker-pool.js';
@@ -119,6 +119,7 @@ export async function planRunExport(ds: DataSource, runId: number, kind: ExportK
     loadings,
     ...(only ? { only } : {}),
     header: frame.header,
+    stability: stabilityOf(run),
   };
   if (kind === 'utilisation') task.membersData = result.membersData;
   if (kind === 'checks') task.recordsData = result.recordsData;

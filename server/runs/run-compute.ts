@@ -250,10 +250,21 @@ function packedShapes(stability: StabilitySummary): Uint8Array {
  * same analysis as the run (first or second order, the same code rules and αcr), so the
  * diagrams and records are the run's.
  */
-export function analyseOnly(modelJson: string, designCode: DesignCode): Analysed {
+export function analyseOnly(modelJson: string, designCode: DesignCode, stored?: RunStability | null): Analysed {
   const input = readRunModel(modelJson, designCode);
   // natural modes change neither forces nor checks: skip them here (the run kept them)
   input.settings = { ...input.settings, modes: 0 };
+  // the first-order warning changes no force: with the run's own summary at hand, its αcr
+  // (the costliest part of a big first-order run) is not computed again; the records get the
+  // run's warnings and method from the summary
+  const reuse = !!stored && stored.analysis === 'first_order' && input.settings.analysis === 'first_order' && input.settings.bucklingModes === 0;
+  if (reuse) input.settings = { ...input.settings, stabilityWarning: false };
   const { analysis, stability, model } = analyseModel(input);
+  if (reuse && stored) {
+    stability.method = stored.method;
+    stability.warnings = stored.warnings.map((w) => ({
+      loading: w.loading, alphaCr: w.alphaCr ?? Infinity, amplifier: w.amplifier ?? Infinity, reasons: [...w.reasons], message: w.message,
+    })) as StabilitySummary['warnings'];
+  }
   return { model, analysis, stability };
 }

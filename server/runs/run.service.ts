@@ -8,7 +8,7 @@
 import { gunzip } from 'node:zlib';
 import { promisify } from 'node:util';
 import { performance } from 'node:perf_hooks';
-import { In, type DataSource } from 'typeorm';
+import { In, type DataSource, type FindOptionsSelect } from 'typeorm';
 import type { CheckRecord, MemberUtilisation } from '../../shared/design/types.js';
 import type { DesignCode, Model } from '../../shared/model/types.js';
 import { memberRows } from '../../shared/results/member-rows.js';
@@ -293,13 +293,19 @@ export interface RunData {
   result: RunResultRecord;
 }
 
-export async function doneRun(ds: DataSource, id: number): Promise<RunData> {
+/**
+ * A finished run and its stored results; `columns` limits what is read of run_results (the
+ * member page needs only the loadings, not the whole run's blobs).
+ */
+export async function doneRun(ds: DataSource, id: number, columns?: (keyof RunResultRecord)[]): Promise<RunData> {
   const run = await findRun(ds, id);
   if (run.status !== 'done') {
     const why = run.status === 'failed' ? `it failed: ${run.message}` : `it is ${run.status}`;
     throw new AppError(409, 'conflict', `Run ${id} has no results because ${why}`);
   }
-  const result = await ds.getRepository(RunResultEntity).findOneBy({ runId: id });
+  const result = columns
+    ? await ds.getRepository(RunResultEntity).findOne({ where: { runId: id }, select: selectOf(columns) })
+    : await ds.getRepository(RunResultEntity).findOneBy({ runId: id });
   if (!result) throw new AppError(409, 'conflict', `Run ${id} has no stored results`);
   return { run, result };
 }
@@ -325,7 +331,12 @@ export async function runModel(ds: DataSource, run: RunRecord): Promise<{ model:
   return { model, json };
 }
 
-async function previousDone(ds: DataSource, run: RunRecord): Promise<RunData | null> {
+/** A TypeORM select of run_results: the run id and the columns given. */
+function selectOf(columns: (keyof RunResultRecord)[]): FindOptionsSelect<RunResultRecord> {
+  return Object.fromEntries(['runId', ...columns].map((c) => [c, true])) as FindOptionsSelect<RunResultRecord>;
+}
+
+async function previousDone(ds: DataSource, run: RunRecord, columns?: (keyof RunResultRecord)[]): Promise<RunData | null> {
   const prev = await ds
     .getRepository(RunEntity)
     .createQueryBuilder('r')
@@ -333,7 +344,9 @@ async function previousDone(ds: DataSource, run: RunRecord): Promise<RunData | n
     .orderBy('r.id', 'DESC')
     .getOne();
   if (!prev) return null;
-  const result = await ds.getRepository(RunResultEntity).findOneBy({ runId: prev.id });
+  const result = columns
+    ? await ds.getRepository(RunResultEntity).findOne({ where: { runId: prev.id }, select: selectOf(columns) })
+    : await ds.getRepository(RunResultEntity).findOneBy({ runId: prev.id });
   return result ? { run: prev, result } : null;
 }
 
@@ -378,7 +391,8 @@ async function memberResultOf(ds: DataSource, run: RunRecord, result: RunResultR
   if (stored !== null) return stored;
   const { model } = await runModel(ds, run);
   const index = model.members.findIndex((m) => m.id === memberId);
-  const util = membersOf(result).find((m) => m.member === memberId);
+  const whole = result.membersData ? result : (await doneRun(ds, run.id)).result;
+  const util = membersOf(whole).find((m) => m.member === memberId);
   if (index < 0 || !util) return undefined;
   const m = model.members[index];
   return { index, start: m.start, end: m.end, type: m.type, util };
@@ -386,15 +400,15 @@ async function memberResultOf(ds: DataSource, run: RunRecord, result: RunResultR
 
 /** The previous done run's row of one member (for the change columns). */
 async function previousMember(ds: DataSource, run: RunRecord, memberId: string): Promise<MemberUtilisation | undefined> {
-  const prev = await previousDone(ds, run);
+  const prev = await previousDone(ds, run, []);
   if (!prev) return undefined;
   const stored = await storedMember(ds, prev.run.id, memberId);
   if (stored !== null) return stored?.util;
-  return membersOf(prev.result).find((m) => m.member === memberId);
+  return membersOf((await doneRun(ds, prev.run.id)).result).find((m) => m.member === memberId);
 }
 
 export async function getMemberDetail(ds: DataSource, id: number, memberId: string, loading?: string): Promise<MemberDetail> {
-  const { run, result } = await doneRun(ds, id);
+  const { run, result } = await doneRun(ds, id, ['loadingsJson']);
   const stored = await memberResultOf(ds, run, result, memberId);
   if (!stored) throw notFound(`Member ${memberId} not found in run ${id}`);
   const { util, index } = stored;
@@ -413,6 +427,7 @@ export async function getMemberDetail(ds: DataSource, id: number, memberId: stri
     member: index,
     loading: chosen,
     governing,
+    stability: stabilityOf(run),
   });
   const before = await previousMember(ds, run, memberId);
   const [row] = memberRows([util], before ? new Map([[memberId, { ratio: before.ratio, section: before.section }]]) : undefined);

@@ -3,7 +3,7 @@ import type { MemberMovingDetail } from '../../shared/moving/detail.js';
 import type { DesignCode, ReadResult } from '../../shared/model/types.js';
 import type { XlsxLimits } from '../../shared/reader/xlsx.js';
 import type { CheckRecord } from '../../shared/design/types.js';
-import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
+import type { RunPhase, RunStability, Stations } from '../../shared/schemas/runs.js';
 import type { ResultTable } from '../../shared/exports/results.js';
 import type { PackedRun } from './run-compute.js';
 import type { ExportTask, ExportTaskResult } from '../exports/export-task.js';
@@ -24,6 +24,8 @@ interface TaskBase {
   modelJson?: string;
   modelData?: Uint8Array;
   designCode: DesignCode;
+  /** the run's stability summary: a worker that must analyse again takes the first-order warning from it */
+  stability?: RunStability | null;
 }
 
 export interface RunTask extends TaskBase {

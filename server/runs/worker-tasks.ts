@@ -32,13 +32,13 @@ function taskModelJson(task: Pick<MemberTask, 'modelJson' | 'modelData'>): strin
   throw new Error('task without a model');
 }
 
-function analysedFor(task: Pick<MemberTask, 'runId' | 'modelJson' | 'modelData' | 'designCode'>): Analysed {
+function analysedFor(task: Pick<MemberTask, 'runId' | 'modelJson' | 'modelData' | 'designCode' | 'stability'>): Analysed {
   const kept = cache.get(task.runId);
   if (kept) {
     remember(task.runId, kept);
     return kept;
   }
-  const analysed = analyseOnly(taskModelJson(task), task.designCode);
+  const analysed = analyseOnly(taskModelJson(task), task.designCode, task.stability);
   remember(task.runId, analysed);
   return analysed;
 }
@@ -124,7 +124,7 @@ export async function exportFile(task: ExportTask, onChunk: (chunk: Uint8Array) 
   const { model, json } = exportModel(task);
   let table = storedTable(task, model);
   if (!table) {
-    const { model: analysedModel, analysis, stability } = analysedFor({ runId: task.runId, modelJson: json, designCode: task.designCode });
+    const { model: analysedModel, analysis, stability } = analysedFor({ runId: task.runId, modelJson: json, designCode: task.designCode, stability: task.stability });
     table = task.table === 'forces'
       ? memberForces(analysedModel, analysis, task.only ?? analysis.loadings.map((_, i) => i))
       : checksTable(analysedModel, checkWithStability(analysedModel, analysis, stability));

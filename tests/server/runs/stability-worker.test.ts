@@ -49,4 +49,28 @@ describe('a second-order run in the worker', () => {
     expect(fresh.governingRecords.length).toBeGreaterThan(0);
     expect(fresh.governingRecords[0].combination).toBe(loadings[combo].id);
   });
+
+  it('a first-order re-analysis takes the run\'s own warnings and method instead of computing αcr again', async () => {
+    // no buckling modes asked for (the warning alone), and a gravity load that brings αcr under 10
+    const files = Object.entries({
+      ...PORTAL,
+      'settings.csv': 'key,value\ntitle,Stability portal\nunits,metric\ndesign_code,en1993-1-1\n',
+      'member_loads.csv': 'case,member,kind,direction,w1\nG,B1,uniform,global_y,-400\n',
+    }).map(([name, text]) => ({ name, text }));
+    const read = await readCsvFiles(files);
+    if (!read.ok) throw new Error('fixture does not read');
+    const json = JSON.stringify(read.model);
+    const { output, analysed } = computeRun(json, 'en1993-1-1');
+    const stored = JSON.parse(packRun(output, analysed.model).stabilityJson) as RunStability;
+    expect(stored.analysis).toBe('first_order');
+    expect(stored.warnings.length).toBeGreaterThan(0);
+    const combo = output.loadings.findIndex((l) => l.kind === 'combination' && l.limitState === 'strength');
+    const task = { kind: 'member' as const, modelJson: json, designCode: 'en1993-1-1' as const, member: 0, loading: combo, governing: combo };
+    // runs 987655 and 987656 are in no worker's memory: both re-analyse, one with the run's summary
+    const withSummary = runWorkerTask({ ...task, runId: 987655, stability: stored }, () => {}) as MemberTaskResult;
+    const computed = runWorkerTask({ ...task, runId: 987656 }, () => {}) as MemberTaskResult;
+    expect(withSummary.governingRecords).toEqual(computed.governingRecords);
+    expect(withSummary.stations).toEqual(computed.stations);
+    expect(withSummary.governingRecords.every((r) => r.analysis === stored.method)).toBe(true);
+  });
 });
