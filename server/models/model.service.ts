@@ -127,7 +127,7 @@ export async function listVersions(ds: DataSource, id: number): Promise<ModelVer
   const rows = await ds
     .getRepository(ModelVersionEntity)
     .createQueryBuilder('v')
-    .leftJoin(UserEntity, 'u', 'u.id = v.createdBy')
+    .leftJoin(UserEntity.options.name, 'u', 'u.id = v.createdBy')
     .select(['v.version AS version', 'v.message AS message', 'v.contentHash AS "contentHash"', 'v.origin AS origin', 'v.createdBy AS "createdBy"', 'u.name AS "createdByName"', 'v.createdAt AS "createdAt"'])
     .where('v.modelId = :id', { id })
     .orderBy('v.version', 'DESC')
