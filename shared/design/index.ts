@@ -111,8 +111,18 @@ function resolveMaterial(model: Model, id: string, cache: Map<string, Material |
   return m;
 }
 
-function prepare(model: Model, analysis: AnalysisResult, only?: number): Context {
-  const code = model.settings.designCode;
+/** What prepare() reads of the whole model's connectivity (node numbers, member ends per node, supports). */
+interface Topology {
+  nodeIndex: Map<string, number>;
+  degree: Int32Array;
+  supported: Set<number>;
+  nodes: Map<string, Model['nodes'][number]>;
+}
+
+/** Topologies of one-member preparations (the member page), by analysis then model. */
+const topologies = new WeakMap<object, WeakMap<object, Topology>>();
+
+function topologyOf(model: Model, analysis: AnalysisResult): Topology {
   const nodeIndex = new Map<string, number>();
   analysis.nodeIds.forEach((id, i) => nodeIndex.set(id, i));
   const degree = new Int32Array(analysis.nodeIds.length);
@@ -126,7 +136,21 @@ function prepare(model: Model, analysis: AnalysisResult, only?: number): Context
     const i = nodeIndex.get(s.node);
     if (i !== undefined && (s.restrained.some(Boolean) || s.springs.some((k) => k > 0))) supported.add(i);
   }
-  const nodes = new Map(model.nodes.map((n) => [n.id, n]));
+  return { nodeIndex, degree, supported, nodes: new Map(model.nodes.map((n) => [n.id, n])) };
+}
+
+/** The topology, kept between one-member preparations of the same model and analysis. */
+function keptTopology(model: Model, analysis: AnalysisResult): Topology {
+  let byModel = topologies.get(analysis);
+  if (!byModel) topologies.set(analysis, (byModel = new WeakMap()));
+  let t = byModel.get(model);
+  if (!t) byModel.set(model, (t = topologyOf(model, analysis)));
+  return t;
+}
+
+function prepare(model: Model, analysis: AnalysisResult, only?: number): Context {
+  const code = model.settings.designCode;
+  const { nodeIndex, degree, supported, nodes } = only !== undefined ? keptTopology(model, analysis) : topologyOf(model, analysis);
   const sections = new Map<string, Section | undefined>();
   const materials = new Map<string, Material | undefined>();
   const plans = new Map<string, MemberPlan>();

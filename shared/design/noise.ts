@@ -35,8 +35,29 @@ export function modelExtent(model: Pick<Model, 'nodes'>): number {
   return Number.isFinite(d) && d > 1 ? d : 1;
 }
 
+/**
+ * Floors already worked out, by analysis, then model, then loadings: the member page asks for
+ * one member at a time, and each floor reads every reaction of the loadings (a result never
+ * changes once made, so the objects themselves are the keys).
+ */
+const floors = new WeakMap<object, WeakMap<object, Map<string, NoiseFloor>>>();
+
 /** The noise floor over the given loadings (all loadings when omitted). */
 export function noiseFloor(model: Pick<Model, 'nodes'>, analysis: Pick<AnalysisResult, 'reactions' | 'loadings' | 'supportedNodes'>, loadings?: number[]): NoiseFloor {
+  let byModel = floors.get(analysis);
+  if (!byModel) floors.set(analysis, (byModel = new WeakMap()));
+  let byLoadings = byModel.get(model);
+  if (!byLoadings) byModel.set(model, (byLoadings = new Map()));
+  const key = loadings ? loadings.join(',') : '*';
+  let floor = byLoadings.get(key);
+  if (!floor) {
+    floor = computeNoiseFloor(model, analysis, loadings);
+    if (byLoadings.size < 1000) byLoadings.set(key, floor);
+  }
+  return floor;
+}
+
+function computeNoiseFloor(model: Pick<Model, 'nodes'>, analysis: Pick<AnalysisResult, 'reactions' | 'loadings' | 'supportedNodes'>, loadings?: number[]): NoiseFloor {
   const ls = loadings ?? analysis.loadings.map((_, i) => i);
   let fmax = 0;
   for (const l of ls) {

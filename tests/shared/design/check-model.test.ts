@@ -97,6 +97,21 @@ describe('checkModel', () => {
     expect(close(d.demand!, 0.005, 1e-9)).toBe(true);
     expect(close(d.capacity!, 2 / 360, 1e-12)).toBe(true);
   });
+  it('checkMember keeps the model-wide preparation per model and analysis: another model on the same analysis gets its own', () => {
+    const nodes: [string, number, number][] = [['N1', 0, 0], ['N2', L, 0], ['N3', L + 2, 0]];
+    const members = [member('B1', 'N1', 'N2', 'IPE300'), member('C1', 'N2', 'N3', 'IPE300', { lb: 2 })];
+    const cantilever = model([IPE300()], members, nodes, ['N1', 'N2']);
+    const propped = model([IPE300()], members, nodes, ['N1', 'N2', 'N3']);
+    const u = new Float64Array(18);
+    u[12 + 1] = -0.006;
+    const a = analysis(cantilever, loadings, () => stations(L, {}), () => u);
+    const first = checkMember(cantilever, a, 1, 3);
+    // the same answer again from the kept preparation, and as checkModel gives it
+    expect(checkMember(cantilever, a, 1, 3)).toEqual(first);
+    expect(first[0].clause).toBe('service: cantilever tip');
+    // N3 supported: C1 is no longer a cantilever (its tip is not free), whatever was kept for the first model
+    expect(checkMember(propped, a, 1, 3)[0].clause).not.toBe('service: cantilever tip');
+  });
   it('slenderness warning over 200 for a compression member (AISC E2 user note) and the no-bracing warning', () => {
     const m = model([IPE300()], [member('S1', 'N1', 'N2', 'IPE300', { type: 'truss' })], [['N1', 0, 0], ['N2', 8, 0]], ['N1', 'N2'], { designCode: 'aisc360-lrfd' });
     const a = analysis(m, loadings, () => stations(8, { N: () => -1e3 }));
