@@ -6,7 +6,7 @@ import path from 'node:path';
 import type { Server } from 'node:http';
 import { createApp, shutdownHooks } from './app.js';
 import { appConfigFromEnv } from './config/app-config.js';
-import { ConfigError, loadEnv } from './config/env.js';
+import { loadEnvOrExit } from './config/env.js';
 import { createLogger } from './config/logger.js';
 import { resolveJwtSecret } from './config/secret.js';
 import { DATABASE_FILE, openDatabase } from './db/data-source.js';
@@ -16,16 +16,7 @@ import { closeRateStore } from './queue/rate-store.js';
 import { closeRunsQueue } from './queue/task-queue.js';
 
 async function main(): Promise<void> {
-  let env;
-  try {
-    env = loadEnv();
-  } catch (err) {
-    if (err instanceof ConfigError) {
-      console.error(err.message);
-      process.exit(1);
-    }
-    throw err;
-  }
+  const env = loadEnvOrExit();
   const logger = createLogger(env.LOG_LEVEL);
   const dataDir = path.resolve(env.DATA_DIR);
   const config = appConfigFromEnv(env, resolveJwtSecret(env.JWT_SECRET, dataDir));

@@ -10,7 +10,7 @@
  * SIGINT/SIGTERM: stop being routed to, finish the jobs in hand, then stop.
  */
 import { Worker, QueueEvents, type Job } from 'bullmq';
-import { ConfigError, loadEnv } from './config/env.js';
+import { loadEnvOrExit } from './config/env.js';
 import { createLogger } from './config/logger.js';
 import { openDatabase } from './db/data-source.js';
 import { randomBytes } from 'node:crypto';
@@ -27,16 +27,7 @@ import path from 'node:path';
 import { DATABASE_FILE } from './db/data-source.js';
 
 async function main(): Promise<void> {
-  let env;
-  try {
-    env = loadEnv();
-  } catch (err) {
-    if (err instanceof ConfigError) {
-      console.error(err.message);
-      process.exit(1);
-    }
-    throw err;
-  }
+  const env = loadEnvOrExit();
   const logger = createLogger(env.LOG_LEVEL);
   if (!env.QUEUE_URL) {
     console.error('npm run worker needs QUEUE_URL (redis://…): without it the server runs everything in its own threads');

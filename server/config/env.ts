@@ -95,3 +95,16 @@ export function loadEnv(source: Record<string, string | undefined> = process.env
   }
   return parsed.data;
 }
+
+/** For entry points (server, worker): the environment, or the configuration errors printed and exit 1. */
+export function loadEnvOrExit(): Env {
+  try {
+    return loadEnv();
+  } catch (err) {
+    if (err instanceof ConfigError) {
+      console.error(err.message);
+      process.exit(1);
+    }
+    throw err;
+  }
+}
