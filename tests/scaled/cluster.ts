@@ -41,7 +41,8 @@ export interface ClusterOptions {
   workerEnv?: Record<string, string>;
 }
 
-function launch(entry: string, env: Record<string, string>): Proc {
+/** Starts `server/index.ts` or `server/worker.ts` (tsx's loader in this node) with the environment given. */
+export function launch(entry: string, env: Record<string, string>): Proc {
   let log = '';
   // one process (tsx's loader in node itself, not tsx's CLI that forks a child): a kill reaches the server or worker
   const child = spawn(process.execPath, ['--import', 'tsx', entry], {
@@ -56,7 +57,7 @@ function launch(entry: string, env: Record<string, string>): Proc {
   return { child, output: () => log };
 }
 
-async function until(what: string, p: Proc, ready: () => Promise<boolean>, ms = 90_000): Promise<void> {
+export async function until(what: string, p: Proc, ready: () => Promise<boolean>, ms = 90_000): Promise<void> {
   const deadline = Date.now() + ms;
   for (;;) {
     if (p.child.exitCode !== null) throw new Error(`${what} exited with code ${p.child.exitCode}:\n${p.output()}`);

@@ -1,5 +1,6 @@
 /** Every route registered in an Express 5 app, as `METHOD /full/path` (mount paths joined). */
 import type { Express } from 'express';
+import { appInstances } from './test-app.js';
 
 interface LayerLike {
   rawPath?: unknown;
@@ -29,7 +30,8 @@ function walk(stack: LayerLike[], prefix: string, out: string[]): void {
 }
 
 export function listRoutes(app: Express): string[] {
-  const router = (app as unknown as { router: { stack: LayerLike[] } }).router;
+  // a test app on the engines is a front over two instances: list the first's routes
+  const router = (appInstances(app)[0] as unknown as { router: { stack: LayerLike[] } }).router;
   const out: string[] = [];
   walk(router.stack, '', out);
   return [...new Set(out)].sort();
