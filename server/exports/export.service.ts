@@ -19,6 +19,7 @@ import { doneRun, loadingsOf, runMethod, stabilityOf } from '../runs/run.service
 import { storedLoadingBlocks } from '../runs/result-parts.js';
 import type { RunRecord } from '../runs/run.entity.js';
 import { exportPool, runPool } from '../runs/worker-pool.js';
+import { sharedExports } from './export-sharing.js';
 import type { ExportTask, ExportTaskResult } from './export-task.js';
 import type { HeaderBlock } from './xlsx.js';
 
@@ -141,8 +142,16 @@ function needsAnalysis(task: ExportTask): boolean {
   return task.table === 'forces' || (task.table === 'checks' && (task.recordsData?.byteLength ?? 0) < 64);
 }
 
-/** Builds the export in a worker; `onChunk` gets each piece of the file, in order. */
+/** What makes two exports the same file: the name (model, version, run, table, loading, format) and the header block. */
+export function exportKey(plan: ExportPlan): string {
+  return `${plan.fileName}\n${plan.task.table}\n${plan.task.format}\n${JSON.stringify(plan.task.header ?? null)}`;
+}
+
+/**
+ * Builds the export in a worker, or joins the same export being built for someone else
+ * (export-sharing.ts); `onChunk` gets each piece of the file, in order.
+ */
 export function buildExport(plan: ExportPlan, onChunk: (chunk: Uint8Array) => void): Promise<ExportTaskResult> {
   const pool = needsAnalysis(plan.task) ? runPool() : exportPool();
-  return pool.run(plan.task, { onChunk });
+  return sharedExports().run(exportKey(plan), (each) => pool.run(plan.task, { onChunk: each }), onChunk);
 }

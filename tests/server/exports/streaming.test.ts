@@ -7,6 +7,7 @@ import { PassThrough } from 'node:stream';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { frameMemberCount, frameTables } from '../../../bench/frame-model.js';
 import { ExportGate } from '../../../server/exports/export-gate.js';
+import { SharedExports, sharedExports } from '../../../server/exports/export-sharing.js';
 import { closeRunPool } from '../../../server/runs/worker-pool.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import { newProject, upload } from '../models/fixture.js';
@@ -28,9 +29,10 @@ const binary = (r: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) 
 describe('streamed exports of a large run', () => {
   let t: TestApp;
   let runId: number;
+  let projectId: number;
   beforeAll(async () => {
     t = await createTestApp();
-    const projectId = await newProject(t, 'Large export');
+    projectId = await newProject(t, 'Large export');
     const preview = await upload(t, projectId, frameTables(BAYS, STOREYS));
     expect(preview.body.canCommit).toBe(true);
     const commit = await t.as('engineer').post(`/api/projects/${projectId}/imports/${preview.body.id}/commit`).send({});
@@ -77,6 +79,23 @@ describe('streamed exports of a large run', () => {
     expect(rows).toBe(NODES * LOADINGS);
   }, 120_000);
 
+  it('builds the same file asked for by three people at once once, and gives each the same bytes', async () => {
+    const joined0 = await t.as('admin').post(`/api/projects/${projectId}/members`).send({ userId: t.users.lead!.id, role: 'engineer' });
+    expect([200, 201]).toContain(joined0.status);
+    const before = { ...sharedExports().stats };
+    const [a, b, c] = await Promise.all(['engineer', 'lead', 'admin'].map((role) =>
+      t.as(role as 'engineer').get(`/api/runs/${runId}/exports/utilisation.xlsx`).buffer(true).parse(binary as never)));
+    for (const r of [a, b, c]) expect(r.status).toBe(200);
+    expect(Buffer.compare(a.body as Buffer, b.body as Buffer)).toBe(0);
+    expect(Buffer.compare(a.body as Buffer, c.body as Buffer)).toBe(0);
+    const built = sharedExports().stats.built - before.built;
+    const joined = sharedExports().stats.joined - before.joined;
+    expect(built + joined).toBe(3);
+    expect(built).toBeLessThan(3);
+    // a later request (the build is over) builds afresh: nothing is kept after a build
+    expect(sharedExports().inProgress).toBe(0);
+  }, 180_000);
+
   it('answers /api/health while a big export is being built', async () => {
     let done = false;
     const exporting = t.as('engineer').get(`/api/runs/${runId}/exports/checks.xlsx`).buffer(true).parse(binary as never)
@@ -115,5 +134,68 @@ describe('ExportGate', () => {
     b();
     c();
     expect(gate.active).toBe(0);
+  });
+});
+
+describe('SharedExports', () => {
+  const pieces = (n: number) => Array.from({ length: n }, (_, i) => new Uint8Array([i]));
+  const builder = (chunks: Uint8Array[], gate: Promise<void>) => async (onChunk: (c: Uint8Array) => void) => {
+    onChunk(chunks[0]);
+    await gate;
+    for (const c of chunks.slice(1)) onChunk(c);
+    return chunks.length;
+  };
+
+  it('a request that joins a build in progress gets the pieces already made, then the rest, in order', async () => {
+    const shared = new SharedExports();
+    let open!: () => void;
+    const gate = new Promise<void>((r) => (open = r));
+    const chunks = pieces(4);
+    let builds = 0;
+    const build = (on: (c: Uint8Array) => void) => (builds++, builder(chunks, gate)(on));
+    const first: number[] = [], second: number[] = [];
+    const p1 = shared.run('k', build, (c) => first.push(c[0]));
+    const p2 = shared.run('k', build, (c) => second.push(c[0]));
+    open();
+    expect(await Promise.all([p1, p2])).toEqual([4, 4]);
+    expect(first).toEqual([0, 1, 2, 3]);
+    expect(second).toEqual([0, 1, 2, 3]);
+    expect(builds).toBe(1);
+    expect(shared.stats).toEqual({ built: 1, joined: 1 });
+  });
+
+  it('another key, a finished build, or a build past the memory bound is not shared', async () => {
+    const shared = new SharedExports(1);
+    let open!: () => void;
+    const gate = new Promise<void>((r) => (open = r));
+    const p1 = shared.run('a', builder(pieces(3), gate), () => {});
+    const p2 = shared.run('b', builder(pieces(3), gate), () => {});
+    open();
+    await Promise.all([p1, p2]);
+    await shared.run('a', builder(pieces(3), Promise.resolve()), () => {});
+    expect(shared.stats).toEqual({ built: 3, joined: 0 });
+    // two one-byte pieces pass the bound of one byte: later requests build their own
+    let open2!: () => void;
+    const gate2 = new Promise<void>((r) => (open2 = r));
+    const chunks = pieces(3);
+    const big = async (on: (c: Uint8Array) => void) => { on(chunks[0]); on(chunks[1]); await gate2; on(chunks[2]); return 3; };
+    const q1 = shared.run('c', big, () => {});
+    const q2 = shared.run('c', builder(pieces(3), Promise.resolve()), () => {});
+    open2();
+    await Promise.all([q1, q2]);
+    expect(shared.stats.joined).toBe(0);
+  });
+
+  it('a failed build fails every request that joined it, and the next request builds again', async () => {
+    const shared = new SharedExports();
+    let fail!: (e: Error) => void;
+    const failing = (on: (c: Uint8Array) => void) => { on(new Uint8Array([1])); return new Promise<number>((_, rej) => (fail = rej)); };
+    const p1 = shared.run('k', failing, () => {});
+    const p2 = shared.run('k', failing, () => {});
+    fail(new Error('worker stopped'));
+    await expect(p1).rejects.toThrow('worker stopped');
+    await expect(p2).rejects.toThrow('worker stopped');
+    expect(await shared.run('k', builder(pieces(2), Promise.resolve()), () => {})).toBe(2);
+    expect(shared.stats).toEqual({ built: 2, joined: 1 });
   });
 });
