@@ -31,7 +31,8 @@ import { decodeJson, decodeText } from '../models/model-codec.js';
 import { findModel, findVersion } from '../models/model.service.js';
 import type { PackedRun } from './run-compute.js';
 import { RunEntity, RunResultEntity, type RunRecord, type RunResultRecord } from './run.entity.js';
-import { resultsPool, runPool } from './worker-pool.js';
+import { resultsPool, runPool, WorkerPool } from './worker-pool.js';
+import { MODEL_NEEDED, type MemberTask, type MemberTaskResult } from './worker-protocol.js';
 import { shapeFromBlock } from './stability-codec.js';
 import { UserEntity } from '../users/user.entity.js';
 import { queueUrl } from '../queue/connection.js';
@@ -407,6 +408,25 @@ async function previousMember(ds: DataSource, run: RunRecord, memberId: string):
   return membersOf((await doneRun(ds, prev.run.id)).result).find((m) => m.member === memberId);
 }
 
+/**
+ * A member task on the worker holding the run's analysis. When a thread of this server holds
+ * it the task goes without the model (neither read from the database nor copied to the
+ * thread, 2 MB at 110k members); should another thread take it, it answers MODEL_NEEDED and
+ * the task goes again with the stored blob, which a worker unzips only when it must analyse.
+ */
+async function memberTask(ds: DataSource, run: RunRecord, task: MemberTask): Promise<MemberTaskResult> {
+  const pool = runPool();
+  if (pool instanceof WorkerPool && pool.holds(run.id)) {
+    try {
+      return await pool.run(task);
+    } catch (err) {
+      if (!(err instanceof Error) || err.message !== MODEL_NEEDED) throw err;
+    }
+  }
+  const version = await findVersion(ds, run.modelId, run.version);
+  return pool.run({ ...task, modelData: version.modelData });
+}
+
 export async function getMemberDetail(ds: DataSource, id: number, memberId: string, loading?: string): Promise<MemberDetail> {
   const { run, result } = await doneRun(ds, id, ['loadingsJson']);
   const stored = await memberResultOf(ds, run, result, memberId);
@@ -417,18 +437,8 @@ export async function getMemberDetail(ds: DataSource, id: number, memberId: stri
   const governing = loadings.findIndex((l) => l.id === util.combination && l.kind === 'combination' && (!util.envelope || !l.envelope || l.envelope === util.envelope));
   const firstCombo = loadings.findIndex((l) => l.kind === 'combination');
   const chosen = loadingIndex(loadings, loading, governing >= 0 ? governing : Math.max(0, firstCombo));
-  const version = await findVersion(ds, run.modelId, run.version);
-  // the worker that ran the model usually still holds its analysis: the model blob is unzipped there only when it does not
-  const detail = await runPool().run({
-    kind: 'member',
-    runId: run.id,
-    modelData: version.modelData,
-    designCode: run.designCode,
-    member: index,
-    loading: chosen,
-    governing,
-    stability: stabilityOf(run),
-  });
+  const task: MemberTask = { kind: 'member', runId: run.id, designCode: run.designCode, member: index, loading: chosen, governing, stability: stabilityOf(run) };
+  const detail = await memberTask(ds, run, task);
   const before = await previousMember(ds, run, memberId);
   const [row] = memberRows([util], before ? new Map([[memberId, { ratio: before.ratio, section: before.section }]]) : undefined);
   const settings = JSON.parse(run.settingsJson) as { units?: 'metric' | 'us' };

@@ -98,3 +98,9 @@ export type WorkerReply =
   | { id: number; type: 'chunk'; data: Uint8Array }
   | { id: number; type: 'done'; result: unknown }
   | { id: number; type: 'error'; message: string };
+
+/**
+ * The answer to a task sent without its model (the sender expected this worker to hold the
+ * run's analysis) when it does not: the sender sends it again with the model.
+ */
+export const MODEL_NEEDED = 'the worker does not hold this run\'s analysis: send the model';

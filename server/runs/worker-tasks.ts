@@ -6,7 +6,7 @@ import { checksTable, memberForceTable } from '../../shared/exports/results.js';
 import type { Model } from '../../shared/model/types.js';
 import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
 import { analyseOnly, checkMemberWithStability, checkWithStability, computeRun, packRun, type Analysed } from './run-compute.js';
-import type { ChecksTask, ForcesTask, ForcesTaskResult, MemberTask, MemberTaskResult, ReadTask, WorkerTask } from './worker-protocol.js';
+import { MODEL_NEEDED, type ChecksTask, type ForcesTask, type ForcesTaskResult, type MemberTask, type MemberTaskResult, type ReadTask, type WorkerTask } from './worker-protocol.js';
 import type { ReadResult } from '../../shared/model/types.js';
 import { membersPayload } from './members-table.js';
 import { comparePayload, geometryPayload } from './read-tasks.js';
@@ -29,7 +29,7 @@ function remember(runId: number, analysed: Analysed): void {
 function taskModelJson(task: Pick<MemberTask, 'modelJson' | 'modelData'>): string {
   if (task.modelJson !== undefined) return task.modelJson;
   if (task.modelData) return gunzipSync(task.modelData).toString('utf8');
-  throw new Error('task without a model');
+  throw new Error(MODEL_NEEDED);
 }
 
 function analysedFor(task: Pick<MemberTask, 'runId' | 'modelJson' | 'modelData' | 'designCode' | 'stability'>): Analysed {
@@ -57,6 +57,21 @@ export function stationsJson(s: StationForces): Stations {
   };
 }
 
+/** The largest node translation of each loading, per analysis (a member page costs its member, not the model). */
+const largestTranslations = new WeakMap<AnalysisResult, Map<number, number>>();
+function largestTranslation(analysis: AnalysisResult, loading: number): number {
+  let byLoading = largestTranslations.get(analysis);
+  if (!byLoading) largestTranslations.set(analysis, (byLoading = new Map()));
+  let largest = byLoading.get(loading);
+  if (largest === undefined) {
+    const u = analysis.displacements(loading);
+    largest = 0;
+    for (let i = 0; i < u.length; i += 6) largest = Math.max(largest, Math.hypot(u[i], u[i + 1], u[i + 2]) || 0);
+    byLoading.set(loading, largest);
+  }
+  return largest;
+}
+
 /**
  * One member's diagrams with numerical noise as zero (shared/design/noise.ts): forces and
  * moments against the floor the exports use (every loading of the run); deflections against
@@ -64,10 +79,7 @@ export function stationsJson(s: StationForces): Stations {
  */
 export function memberStations(model: Model, analysis: AnalysisResult, member: number, loading: number): Stations {
   const out = stationsJson(denoise(analysis.memberForces(member, loading), noiseFloor(model, analysis)));
-  const u = analysis.displacements(loading);
-  let largest = 0;
-  for (let i = 0; i < u.length; i += 6) largest = Math.max(largest, Math.hypot(u[i], u[i + 1], u[i + 2]) || 0);
-  const floor = NOISE_RELATIVE * largest;
+  const floor = NOISE_RELATIVE * largestTranslation(analysis, loading);
   out.d_major = out.d_major.map((v) => clean(v, floor));
   out.d_minor = out.d_minor.map((v) => clean(v, floor));
   return out;

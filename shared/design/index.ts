@@ -157,8 +157,8 @@ function prepare(model: Model, analysis: AnalysisResult, only?: number): Context
   const geometries = new Map<string, DesignGeometry>();
   const prepared: Prepared[] = [];
   const sectionNets = new Map(model.sections.map((q) => [q.id, q.net]));
-  model.members.forEach((member, mi) => {
-    if (only !== undefined && mi !== only) { prepared.push(null as unknown as Prepared); return; }
+  // one member's page prepares that member alone (`prepared` stays sparse): nothing per call grows with the model
+  const each = (member: Model['members'][number], mi: number) => {
     const L = analysis.memberLength(mi);
     const a = nodeIndex.get(member.start) ?? -1, b = nodeIndex.get(member.end) ?? -1;
     const freeA = a >= 0 && degree[a] === 1 && !supported.has(a);
@@ -177,7 +177,7 @@ function prepare(model: Model, analysis: AnalysisResult, only?: number): Context
       tip: freeA ? a : b, root: freeA ? b : a, axis,
       deflectionLimit: member.deflectionLimit ?? model.settings.deflectionLimit,
     };
-    prepared.push(p);
+    prepared[mi] = p;
     if (code === 'none') { p.reason = 'no design code selected'; return; }
     const section = resolveSection(model, member.section, sections);
     const material = resolveMaterial(model, member.material, materials);
@@ -205,7 +205,9 @@ function prepare(model: Model, analysis: AnalysisResult, only?: number): Context
     }
     plans.set(key, plan);
     p.plan = plan;
-  });
+  };
+  if (only !== undefined) each(model.members[only], only);
+  else model.members.forEach(each);
   const combos = analysis.loadings.map((l, i) => ({ l, i })).filter(({ l }) => l.kind === 'combination');
   const strength = combos.length
     ? combos.filter(({ l }) => l.limitState !== 'service').map(({ i }) => i)

@@ -1,6 +1,8 @@
 /** Runs: worker pool end to end, results for the grid, member detail, picture, history, compare. */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeRunPool } from '../../../server/runs/worker-pool.js';
+import { MODEL_NEEDED } from '../../../server/runs/worker-protocol.js';
+import { runWorkerTask } from '../../../server/runs/worker-tasks.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import { CSV, importDemo, newProject, upload } from '../models/fixture.js';
 import { settle } from './poll.js';
@@ -63,6 +65,18 @@ describe('runs', () => {
     expect(bad.status).toBe(400);
     const missing = await t.as('engineer').get(`/api/runs/${firstRun}/members/M99`);
     expect(missing.status).toBe(404);
+  });
+
+  it('gives the same member detail from the thread holding the analysis (sent without the model) and after the threads were replaced (sent with it)', async () => {
+    const held = await t.as('engineer').get(`/api/runs/${firstRun}/members/M1?loading=ULS`);
+    expect(held.status).toBe(200);
+    await closeRunPool();
+    const fresh = await t.as('engineer').get(`/api/runs/${firstRun}/members/M1?loading=ULS`);
+    expect(fresh.status).toBe(200);
+    expect(fresh.body).toEqual(held.body);
+    // a worker asked without the model for a run it does not hold says so (the service then sends the model)
+    expect(() => runWorkerTask({ kind: 'member', runId: 987654, designCode: 'en1993-1-1', member: 0, loading: 0, governing: -1, stability: null }, () => {}))
+      .toThrow(MODEL_NEEDED);
   });
 
   it('gives the picture: nodes, members with ratio, supports, loads and displacements', async () => {
