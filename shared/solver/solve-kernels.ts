@@ -7,14 +7,16 @@
  * solveForward(o8, nc, nr, xf8, ld8, rowsB, xB): with L the supernode's row-major nr × nc
  * block at o8, X1 the nc rows of X from xf8 and rows[t] (Int32 at rowsB) the freedom of
  * block row t:
- *   X1 ← L11⁻¹ X1 (row by row, dot products along the stored rows of L11), then
+ *   X1 ← L11⁻¹ X1 four rows at a time (the product with the rows already solved as a register
+ *   tile of four rows of L11 by four load cases, then the 4 × 4 triangle in registers), then
  *   X[rows[t]] −= Σ_k L[t, k] · X1[k] for nc ≤ t < nr, four block rows by four load cases
  *   at a time in registers (a small matrix product reading L in its stored order).
  *
  * solveBackward(o8, nc, nr, xf8, ld8, rowsB, xB, eB): gathers E[t − nc] = X[rows[t]] into
  * the scratch at eB, then
  *   X1[k] −= Σ_t L[t, k] · E[t] for four columns k by four load cases at a time (reading the
- *   rows of L21 in their stored order), then X1 ← L11⁻ᵀ X1, last row first.
+ *   rows of L21 in their stored order), then X1 ← L11⁻ᵀ X1 four rows at a time, last first
+ *   (the same tile over the rows of L11 below, then the 4 × 4 triangle).
  */
 import { FunctionBuilder, I32, V128 } from './wasm-emitter.js';
 
@@ -47,25 +49,52 @@ export function buildSolveForward(fused: boolean): FunctionBuilder {
 
   f.get(nc).i32(3).shl().set(nc8);
 
-  // X1[i] = (X1[i] − Σ_{k<i} L[i, k] X1[k]) / L[i, i]
+  // X1[i] = (X1[i] − Σ_{k<i} L[i, k] X1[k]) / L[i, i], mr rows at a time: the product with the
+  // solved rows above as a register tile (mr rows by four load cases, L read in stored order),
+  // then the mr × mr triangle in registers
+  const triangle = (mr: number): void => {
+    loadCaseChunks(f, q8, ld8, (nv) => {
+      // pa[a] = &L[i + a, 0], end = &L[i, i], px = &X1[0] + q8
+      f.get(o8).get(i).get(nc8).mul().add().set(pa[0]);
+      for (let a = 1; a < mr; a++) f.get(pa[a - 1]).get(nc8).add().set(pa[a]);
+      f.get(pa[0]).get(i).i32(3).shl().add().set(end);
+      f.get(xf8).get(q8).add().set(px);
+      for (let a = 0; a < mr; a++) for (let c = 0; c < nv; c++) f.v128Zero().set(acc[a][c]);
+      f.block().loop();
+      f.get(pa[0]).get(end).geU().brIf(1);
+      for (let c = 0; c < nv; c++) f.get(px).v128Load(16 * c).set(xv[c]);
+      for (let a = 0; a < mr; a++) {
+        f.get(pa[a]).f64Load().splat().set(lv[a]);
+        for (let c = 0; c < nv; c++) f.mulAdd(acc[a][c], () => f.get(lv[a]), () => f.get(xv[c]));
+      }
+      for (let a = 0; a < mr; a++) f.inc(pa[a], 8);
+      f.get(px).get(ld8).add().set(px);
+      f.br(0).end().end();
+      // pa[a] = &L[i + a, i], px = &X1[i] + q8; acc[a] ← the solved row i + a
+      f.get(px).set(addr);
+      for (let a = 0; a < mr; a++) {
+        if (a > 0) f.get(addr).get(ld8).add().set(addr);
+        for (let c = 0; c < nv; c++) f.get(addr).v128Load(16 * c).get(acc[a][c]).vsub().set(acc[a][c]);
+        for (let b = 0; b < a; b++) {
+          f.get(pa[a]).f64Load(8 * b).splat().set(lv[0]);
+          for (let c = 0; c < nv; c++) f.mulSub(acc[a][c], () => f.get(lv[0]), () => f.get(acc[b][c]));
+        }
+        f.get(pa[a]).f64Load(8 * a).splat().set(lv[0]);
+        for (let c = 0; c < nv; c++) {
+          f.get(acc[a][c]).get(lv[0]).vdiv().set(acc[a][c]);
+          f.get(addr).get(acc[a][c]).v128Store(16 * c);
+        }
+      }
+    });
+  };
   f.i32(0).set(i);
   f.block().loop();
+  f.get(i).i32(4).add().get(nc).gtS().brIf(1);
+  triangle(4);
+  f.inc(i, 4).br(0).end().end();
+  f.block().loop();
   f.get(i).get(nc).geS().brIf(1);
-  loadCaseChunks(f, q8, ld8, (nv) => {
-    f.get(xf8).get(i).get(ld8).mul().add().get(q8).add().set(addr);
-    for (let c = 0; c < nv; c++) f.get(addr).v128Load(16 * c).set(acc[0][c]);
-    f.get(o8).get(i).get(nc8).mul().add().set(pa[0]);
-    f.get(pa[0]).get(i).i32(3).shl().add().set(end);
-    f.get(xf8).get(q8).add().set(px);
-    f.block().loop();
-    f.get(pa[0]).get(end).geU().brIf(1);
-    f.get(pa[0]).f64Load().splat().set(lv[0]);
-    for (let c = 0; c < nv; c++) f.mulSub(acc[0][c], () => f.get(lv[0]), () => f.get(px).v128Load(16 * c));
-    f.inc(pa[0], 8).get(px).get(ld8).add().set(px);
-    f.br(0).end().end();
-    f.get(pa[0]).f64Load().splat().set(lv[0]);
-    for (let c = 0; c < nv; c++) f.get(addr).get(acc[0][c]).get(lv[0]).vdiv().v128Store(16 * c);
-  });
+  triangle(1);
   f.inc(i, 1).br(0).end().end();
 
   // X[rows[t]] −= Σ_k L[t, k] X1[k], mr rows at a time
@@ -117,6 +146,7 @@ export function buildSolveBackward(fused: boolean): FunctionBuilder {
   const pe = f.local(I32);
   const src = f.local(I32);
   const addr = f.local(I32);
+  const diag = f.local(I32);
   const acc: number[][] = [];
   for (let a = 0; a < 4; a++) acc.push([f.local(V128), f.local(V128)]);
   const lv = [f.local(V128), f.local(V128), f.local(V128), f.local(V128)];
@@ -176,27 +206,55 @@ export function buildSolveBackward(fused: boolean): FunctionBuilder {
   f.inc(k, 1).br(0).end().end();
   f.end();
 
-  // X1[k] = (X1[k] − Σ_{j>k} L[j, k] X1[j]) / L[k, k], last row first
-  f.get(nc).i32(1).sub().set(k);
+  // X1[k] = (X1[k] − Σ_{j>k} L[j, k] X1[j]) / L[k, k], last row first, mk columns at a time:
+  // the product with the solved rows below as a register tile (mk columns by four load cases,
+  // each row of L read as mk adjacent values), then the mk × mk triangle in registers
+  const triangle = (mk: number): void => {
+    loadCaseChunks(f, q8, ld8, (nv) => {
+      // diag = &L[k, k]; pl = &L[k + mk, k], end = &L[nc, k], pe = &X1[k + mk] + q8
+      f.get(o8).get(k).get(nc).mul().get(k).add().i32(3).shl().add().set(diag);
+      f.get(diag).get(nc8).i32(mk).mul().add().set(pl);
+      f.get(o8).get(nc).get(nc8).mul().add().get(k).i32(3).shl().add().set(end);
+      f.get(xf8).get(k).i32(mk).add().get(ld8).mul().add().get(q8).add().set(pe);
+      for (let a = 0; a < mk; a++) for (let c = 0; c < nv; c++) f.v128Zero().set(acc[a][c]);
+      f.block().loop();
+      f.get(pl).get(end).geU().brIf(1);
+      for (let c = 0; c < nv; c++) f.get(pe).v128Load(16 * c).set(ev[c]);
+      for (let a = 0; a < mk; a++) {
+        f.get(pl).f64Load(8 * a).splat().set(lv[a]);
+        for (let c = 0; c < nv; c++) f.mulAdd(acc[a][c], () => f.get(lv[a]), () => f.get(ev[c]));
+      }
+      f.get(pl).get(nc8).add().set(pl);
+      f.get(pe).get(ld8).add().set(pe);
+      f.br(0).end().end();
+      for (let a = mk - 1; a >= 0; a--) {
+        // addr = &X1[k + a] + q8; acc[a] ← the solved row k + a
+        f.get(xf8).get(k).i32(a).add().get(ld8).mul().add().get(q8).add().set(addr);
+        for (let c = 0; c < nv; c++) f.get(addr).v128Load(16 * c).get(acc[a][c]).vsub().set(acc[a][c]);
+        for (let b = a + 1; b < mk; b++) {
+          // L[k + b, k + a]
+          f.get(diag).get(nc8).i32(b).mul().add().f64Load(8 * a).splat().set(lv[0]);
+          for (let c = 0; c < nv; c++) f.mulSub(acc[a][c], () => f.get(lv[0]), () => f.get(acc[b][c]));
+        }
+        f.get(diag).get(nc8).i32(a).mul().add().f64Load(8 * a).splat().set(lv[0]);
+        for (let c = 0; c < nv; c++) {
+          f.get(acc[a][c]).get(lv[0]).vdiv().set(acc[a][c]);
+          f.get(addr).get(acc[a][c]).v128Store(16 * c);
+        }
+      }
+    });
+  };
+  // blocks [k, k + 4) from the end, then single columns
+  f.get(nc).i32(4).sub().set(k);
   f.block().loop();
   f.get(k).i32(0).ltS().brIf(1);
-  loadCaseChunks(f, q8, ld8, (nv) => {
-    f.get(xf8).get(k).get(ld8).mul().add().get(q8).add().set(addr);
-    for (let c = 0; c < nv; c++) f.get(addr).v128Load(16 * c).set(acc[0][c]);
-    // pl = &L[k + 1, k], end = &L[nc, k], pe = &X1[k + 1] + q8
-    f.get(o8).get(k).i32(1).add().get(nc8).mul().add().get(k).i32(3).shl().add().set(pl);
-    f.get(o8).get(nc).get(nc8).mul().add().get(k).i32(3).shl().add().set(end);
-    f.get(addr).get(ld8).add().set(pe);
-    f.block().loop();
-    f.get(pl).get(end).geU().brIf(1);
-    f.get(pl).f64Load().splat().set(lv[0]);
-    for (let c = 0; c < nv; c++) f.mulSub(acc[0][c], () => f.get(lv[0]), () => f.get(pe).v128Load(16 * c));
-    f.get(pl).get(nc8).add().set(pl);
-    f.get(pe).get(ld8).add().set(pe);
-    f.br(0).end().end();
-    f.get(o8).get(k).get(nc8).mul().add().get(k).i32(3).shl().add().f64Load().splat().set(lv[0]);
-    for (let c = 0; c < nv; c++) f.get(addr).get(acc[0][c]).get(lv[0]).vdiv().v128Store(16 * c);
-  });
+  triangle(4);
+  f.get(k).i32(4).sub().set(k);
+  f.br(0).end().end();
+  f.get(k).i32(3).add().set(k);
+  f.block().loop();
+  f.get(k).i32(0).ltS().brIf(1);
+  triangle(1);
   f.get(k).i32(1).sub().set(k);
   f.br(0).end().end();
   return f;
