@@ -405,3 +405,64 @@ export function wholeRun(r: EngineBenchRow): {
   const rerun = rr ? rr.analyse.cpu + (rr.checks?.cpu ?? 0) : null;
   return { solver, around, ratio: around / solver, parts, first, rerun, rerunOrderingMs: rr?.['ordering (reused when 0)'].wall ?? NaN };
 }
+
+/** A line of issue 14's targets table (bench/solver.ts TargetRow has the same shape). */
+export interface WholeRunTarget {
+  target: string;
+  measured: string;
+  met: boolean | null;
+  cause: string;
+}
+
+/**
+ * Issue 14 item 4 on a whole-run row (the 10k frame): everything around the solver ≤ 1.0× the
+ * solver, checks ≥ 400,000 member-loading checks per CPU second for each code, the rerun after
+ * a section edit ≤ 0.5× the first run; each gap with the phase that dominates it.
+ */
+export function wholeRunTargets(r: EngineBenchRow | undefined): WholeRunTarget[] {
+  const out: WholeRunTarget[] = [];
+  const w = r ? wholeRun(r) : null;
+  if (!r || !w) {
+    const why = 'not measured: needs the frame10k item with the reader and the design checks';
+    out.push({ target: 'around the solver ≤ 1.0× the solver (10k frame, CPU)', measured: '–', met: null, cause: why });
+    out.push({ target: 'checks ≥ 400,000 member-loading checks per CPU second, each code', measured: '–', met: null, cause: why });
+    out.push({ target: 'rerun after a section edit ≤ 0.5× the first run (CPU)', measured: '–', met: null, cause: why });
+    return out;
+  }
+  const names: Record<string, string> = { read: 'read/validate', mesh: 'mesh + load sets', assembly: 'assembly', loads: 'loads', nodes: 'displacements/reactions', checks: 'checks with their recovery' };
+  const parts = Object.entries(w.parts).sort((a, b) => b[1] - a[1]);
+  const met1 = w.ratio <= 1.0;
+  out.push({
+    target: 'around the solver ≤ 1.0× the solver (10k frame, CPU)',
+    measured: `${w.ratio.toFixed(2)}× (${w.around.toFixed(0)} / ${w.solver.toFixed(0)} ms)`,
+    met: met1,
+    cause: met1 ? '' : `${parts.slice(0, 3).map(([k, v]) => `${names[k]} ${v.toFixed(0)} ms (${((100 * v) / w.around).toFixed(0)}%)`).join(', ')}: the ${names[parts[0][0]]} dominate${parts[0][0] === 'checks' ? '' : 's'}`,
+  });
+  for (const c of r.codeChecks) {
+    const rate = c.evaluations / (c.cpu / 1000);
+    const met = rate >= 400_000;
+    const rec = Object.entries(r.phases).find(([k]) => k.startsWith('recovery'))?.[1].cpu;
+    out.push({
+      target: `checks ≥ 400,000 member-loading checks per CPU second, ${c.code}`,
+      measured: `${Math.round(rate).toLocaleString('en-US')} (${c.evaluations.toLocaleString('en-US')} in ${c.cpu.toFixed(0)} ms)`,
+      met,
+      cause: met ? '' : `${(c.cpu / c.evaluations * 1e6).toFixed(2)} µs CPU per check against 2.5 for the target; recovering every member's station forces for every loading alone takes ${rec === undefined ? '–' : rec.toFixed(0)} ms (${rec === undefined ? '–' : ((100 * rec) / c.cpu).toFixed(0)}% of these checks)`,
+    });
+  }
+  if (w.rerun === null || !r.rerunPhases) {
+    out.push({ target: 'rerun after a section edit ≤ 0.5× the first run (CPU)', measured: '–', met: null, cause: 'not measured: no rerun asked (frame10k item)' });
+  } else {
+    const ratio = w.rerun / w.first;
+    const met = ratio <= 0.5;
+    const rp = r.rerunPhases;
+    const fac = rp['ordering + factorisation']?.cpu ?? NaN;
+    const chk = rp.checks?.cpu ?? NaN;
+    out.push({
+      target: 'rerun after a section edit ≤ 0.5× the first run (CPU)',
+      measured: `${ratio.toFixed(2)}× (${w.rerun.toFixed(0)} / ${w.first.toFixed(0)} ms)`,
+      met,
+      cause: met ? '' : `rerun = analysis ${rp.analyse.cpu.toFixed(0)} ms (factorisation ${fac.toFixed(0)}, ordering reused: ${w.rerunOrderingMs === 0 ? 'yes' : `no, ${w.rerunOrderingMs.toFixed(0)} ms`}) + checks ${chk.toFixed(0)} ms: a section edit changes every member's forces, so every check is repeated`,
+    });
+  }
+  return out;
+}

@@ -7,6 +7,9 @@
  * fairer figure when other work shares the machine; `cpu refactor` is a refactorisation of the
  * same pattern (what second-order iterations and reruns after a section edit pay).
  */
+import { spawnSync } from 'node:child_process';
+import { existsSync, readFileSync, realpathSync } from 'node:fs';
+import { resolve } from 'node:path';
 import { factorise, type SymmetricCsc } from '../shared/solver/index.js';
 
 export interface FrameSpec {
@@ -337,6 +340,210 @@ function printTable(rows: SolverBenchRow[]): void {
   const fmt = (cells: string[]): string => cells.map((c, i) => c.padStart(widths[i])).join('  ');
   console.log(fmt(head));
   for (const l of lines) console.log(fmt(l));
+}
+
+/** A line of issue 14's targets table: the target, what was measured, met or not, and for a gap its measured cause. */
+export interface TargetRow {
+  target: string;
+  measured: string;
+  /** null: not measured in this run (the reason is in `cause`) */
+  met: boolean | null;
+  cause: string;
+}
+
+/** The side-by-side tool against CHOLMOD (../shared/perf/run.sh beside the project). */
+export const PERF_SCRIPT = resolve(process.cwd(), '../shared/perf/run.sh');
+
+/** Per-phase figures of one side of a pair (ms, page faults), as ../shared/perf/pair.mts prints them. */
+interface PairSide {
+  analyze_ms: number;
+  factor_ms: number;
+  solve_ms: number;
+  faults_solve: number;
+  flops: number;
+  nnz_L: number;
+}
+
+/** One matrix side by side: medians of the per-pair ratios and of each side's phase times. */
+export interface SideBySideMatrix {
+  name: string;
+  pairs: number;
+  /** load average (1, 5, 15 min) before each pair */
+  loads: string[];
+  ratio: Record<'analyze' | 'factor' | 'solve' | 'total' | 'nnz_L' | 'flops', number>;
+  product: Record<'analyze' | 'factor' | 'solve' | 'faultsSolve' | 'flops' | 'nnzL', number>;
+  cholmod: Record<'analyze' | 'factor' | 'solve' | 'faultsSolve' | 'flops' | 'nnzL', number>;
+}
+
+export interface SideBySide {
+  /** where the figures came from: the run.sh command or the file of its JSON lines */
+  source: string;
+  /** the BLAS behind CHOLMOD (libblas.so.3 resolved), which its dense kernels run on */
+  blas: string;
+  matrices: Map<string, SideBySideMatrix>;
+}
+
+/** lower median, as ../shared/perf/pair.mts takes it */
+function median(v: number[]): number {
+  const s = v.filter((x) => Number.isFinite(x)).sort((a, b) => a - b);
+  return s.length ? s[Math.floor((s.length - 1) / 2)] : NaN;
+}
+
+/** Medians per matrix of the pair lines (JSON, kind 'pair') that run.sh prints on stdout. */
+export function summarisePairs(lines: string[]): Map<string, SideBySideMatrix> {
+  const by = new Map<string, Array<{ loadavg_before: string; product: PairSide; cholmod: { analyze_ms: number; factor_ms: number; solve_ms: number; faults_solve: number; flops: number; nnz_L: number }; ratio: Record<string, number> }>>();
+  for (const line of lines) {
+    if (!line.startsWith('{')) continue;
+    let j: { kind?: string; name?: string; ratio?: unknown };
+    try {
+      j = JSON.parse(line);
+    } catch {
+      continue;
+    }
+    if (j.kind !== 'pair' || !j.ratio || !j.name) continue;
+    if (!by.has(j.name)) by.set(j.name, []);
+    by.get(j.name)!.push(j as never);
+  }
+  const out = new Map<string, SideBySideMatrix>();
+  for (const [name, ps] of by) {
+    const r = (k: string) => median(ps.map((p) => p.ratio[k]));
+    const side = (pick: (p: (typeof ps)[number]) => PairSide) => ({
+      analyze: median(ps.map((p) => pick(p).analyze_ms)),
+      factor: median(ps.map((p) => pick(p).factor_ms)),
+      solve: median(ps.map((p) => pick(p).solve_ms)),
+      faultsSolve: median(ps.map((p) => pick(p).faults_solve)),
+      flops: median(ps.map((p) => pick(p).flops)),
+      nnzL: median(ps.map((p) => pick(p).nnz_L)),
+    });
+    out.set(name, {
+      name,
+      pairs: ps.length,
+      loads: ps.map((p) => p.loadavg_before),
+      ratio: { analyze: r('analyze'), factor: r('factor'), solve: r('solve'), total: r('total'), nnz_L: r('nnz_L'), flops: r('flops') },
+      product: side((p) => p.product),
+      cholmod: side((p) => p.cholmod),
+    });
+  }
+  return out;
+}
+
+/** The BLAS that libblas.so.3 resolves to (CHOLMOD's dense kernels), or 'unknown'. */
+export function cholmodBlas(): string {
+  for (const p of ['/usr/lib/x86_64-linux-gnu/libblas.so.3', '/usr/lib/aarch64-linux-gnu/libblas.so.3', '/usr/lib/libblas.so.3']) {
+    try {
+      const real = realpathSync(p);
+      return /openblas/i.test(real) ? `OpenBLAS (${real})` : `${real} (not OpenBLAS: reference BLAS makes CHOLMOD several times slower at 10k and above; install libopenblas0-serial)`;
+    } catch {
+      // next
+    }
+  }
+  return 'unknown';
+}
+
+/** matrices and pairs for run.sh: BENCH_PERF_SPECS, else these (frame_150k with --all) */
+export function perfSpecs(all: boolean): string[] {
+  const env = process.env.BENCH_PERF_SPECS?.trim();
+  if (env) return env.split(/\s+/);
+  return ['frame_1k:5', 'pratt_10k:5', 'frame_10k:5', 'frame_50k:3', ...(all ? ['frame_150k:1'] : [])];
+}
+
+/**
+ * The solver against CHOLMOD on the same matrices: the JSON lines of a saved run.sh output
+ * (BENCH_PERF_JSONL=file), else a run of ../shared/perf/run.sh (its progress on stderr). A
+ * string says why there are no figures.
+ */
+export function sideBySide(specs: string[]): SideBySide | string {
+  const saved = process.env.BENCH_PERF_JSONL;
+  if (saved) {
+    if (!existsSync(saved)) return `BENCH_PERF_JSONL=${saved} does not exist`;
+    return { source: saved, blas: cholmodBlas(), matrices: summarisePairs(readFileSync(saved, 'utf8').split('\n')) };
+  }
+  if (!existsSync(PERF_SCRIPT)) return `${PERF_SCRIPT} is absent: the side-by-side figures against CHOLMOD need it`;
+  console.log(`\nsolver against CHOLMOD: ${PERF_SCRIPT} ${specs.join(' ')} (minutes; progress below)`);
+  const r = spawnSync('bash', [PERF_SCRIPT, ...specs], { cwd: process.cwd(), encoding: 'utf8', stdio: ['ignore', 'pipe', 'inherit'], maxBuffer: 1 << 28 });
+  if (r.status !== 0) return `${PERF_SCRIPT} failed (exit ${r.status ?? r.signal}): no side-by-side figures`;
+  return { source: `${PERF_SCRIPT} ${specs.join(' ')}`, blas: cholmodBlas(), matrices: summarisePairs(r.stdout.split('\n')) };
+}
+
+const x2 = (v: number): string => `${v.toFixed(2)}×`;
+
+/** "analysis +a, factor +b, solve +c ms over CHOLMOD (medians): <largest> dominates" */
+function excess(m: SideBySideMatrix): string {
+  const parts: Array<[string, number]> = [
+    ['analysis', m.product.analyze - m.cholmod.analyze],
+    ['factor', m.product.factor - m.cholmod.factor],
+    ['solve', m.product.solve - m.cholmod.solve],
+  ];
+  const worst = parts.reduce((a, b) => (b[1] > a[1] ? b : a));
+  const f = (v: number) => `${v >= 0 ? '+' : ''}${v.toFixed(v > -10 && v < 10 ? 1 : 0)}`;
+  return `median ms over CHOLMOD: ${parts.map(([k, v]) => `${k} ${f(v)}`).join(', ')} → the ${worst[0]} dominates`
+    + ` (product ${m.product.analyze.toFixed(1)} / ${m.product.factor.toFixed(1)} / ${m.product.solve.toFixed(1)}, CHOLMOD ${m.cholmod.analyze.toFixed(1)} / ${m.cholmod.factor.toFixed(1)} / ${m.cholmod.solve.toFixed(1)} ms)`;
+}
+
+/** GFLOP/s of the substitution: 2 passes × 2 flops × nnz(L) × load cases */
+function solveRate(nnzL: number, ms: number, nrhs: number): number {
+  return (4 * nnzL * nrhs) / ms / 1e6;
+}
+
+/**
+ * Issue 14's solver targets against the side-by-side figures: block solve ≤ 1.5× at 10k, 50k
+ * and 150k; frame_1k total ≤ 1.2×, pratt_10k total ≤ 2×; factor ≤ 1.0× at 50k and 150k.
+ */
+export function solverTargets(side: SideBySide | string, nrhs = 20): TargetRow[] {
+  const rows: TargetRow[] = [];
+  const want: Array<[string, 'solve' | 'total' | 'factor', number, string]> = [
+    ['frame_10k', 'solve', 1.5, 'block solve (20 cases) ≤ 1.5× CHOLMOD, frame_10k'],
+    ['frame_50k', 'solve', 1.5, 'block solve (20 cases) ≤ 1.5× CHOLMOD, frame_50k'],
+    ['frame_150k', 'solve', 1.5, 'block solve (20 cases) ≤ 1.5× CHOLMOD, frame_150k'],
+    ['frame_1k', 'total', 1.2, 'total ≤ 1.2× CHOLMOD, frame_1k'],
+    ['pratt_10k', 'total', 2.0, 'total ≤ 2× CHOLMOD, pratt_10k'],
+    ['frame_50k', 'factor', 1.0, 'factor ≤ 1.0× CHOLMOD, frame_50k'],
+    ['frame_150k', 'factor', 1.0, 'factor ≤ 1.0× CHOLMOD, frame_150k'],
+  ];
+  for (const [name, phase, limit, target] of want) {
+    if (typeof side === 'string') {
+      rows.push({ target, measured: '–', met: null, cause: `not measured: ${side}` });
+      continue;
+    }
+    const m = side.matrices.get(name);
+    if (!m) {
+      rows.push({ target, measured: '–', met: null, cause: `not measured: ${name} was not among the matrices run (BENCH_PERF_SPECS, or --all for frame_150k)` });
+      continue;
+    }
+    const v = m.ratio[phase];
+    const met = v <= limit;
+    const measured = `${x2(v)} (median of ${m.pairs} pair${m.pairs === 1 ? '' : 's'})`;
+    let cause = '';
+    if (!met) {
+      if (phase === 'total') cause = excess(m);
+      else if (phase === 'solve') {
+        const pr = solveRate(m.product.nnzL, m.product.solve, nrhs);
+        const cr = solveRate(m.cholmod.nnzL, m.cholmod.solve, nrhs);
+        cause = `substitution rate ${pr.toFixed(1)} GFLOP/s against CHOLMOD's ${cr.toFixed(1)} (nnz(L) ${x2(m.ratio.nnz_L)} of CHOLMOD's): 128-bit SIMD kernels`
+          + ` against its BLAS${side.blas.startsWith('OpenBLAS') ? ' (OpenBLAS, 256-bit with fused multiply-add)' : ''}; page faults in the solve ${m.product.faultsSolve.toFixed(0)} against ${m.cholmod.faultsSolve.toFixed(0)}`;
+      } else {
+        const pr = m.product.flops / m.product.factor / 1e6;
+        const cr = m.cholmod.flops / m.cholmod.factor / 1e6;
+        cause = `factor rate ${pr.toFixed(1)} GFLOP/s against CHOLMOD's ${cr.toFixed(1)} with ${x2(m.ratio.flops)} its operations: the dense kernels (128-bit SIMD) are slower than its BLAS`;
+      }
+    }
+    rows.push({ target, measured, met, cause });
+  }
+  return rows;
+}
+
+/** Prints the side-by-side medians per matrix (what the targets are read from). */
+export function printSideBySide(side: SideBySide | string): void {
+  if (typeof side === 'string') {
+    console.log(`\nsolver against CHOLMOD: ${side}`);
+    return;
+  }
+  console.log(`\nsolver against CHOLMOD (medians of per-pair ratios, project / CHOLMOD; ${side.source}; CHOLMOD's BLAS: ${side.blas})`);
+  console.log(`  ${'matrix'.padEnd(12)}${'pairs'.padStart(6)}${'analysis'.padStart(10)}${'factor'.padStart(8)}${'solve'.padStart(8)}${'total'.padStart(8)}${'nnz(L)'.padStart(8)}${'flops'.padStart(8)}  load average before the pairs`);
+  for (const m of side.matrices.values()) {
+    const f = (v: number) => v.toFixed(2).padStart(8);
+    console.log(`  ${m.name.padEnd(12)}${String(m.pairs).padStart(6)}${m.ratio.analyze.toFixed(2).padStart(10)}${f(m.ratio.factor)}${f(m.ratio.solve)}${f(m.ratio.total)}${f(m.ratio.nnz_L)}${f(m.ratio.flops)}  ${[...new Set(m.loads.map((l) => l.split(' ')[0]))].join(', ')}`);
+  }
 }
 
 const isMain = process.argv[1] !== undefined && import.meta.url === new URL(`file://${process.argv[1]}`).href;
