@@ -12,8 +12,8 @@ import { accountLimiter, accountRateLimitsFromEnv } from './rate-limits.js';
 export function accountRouter({ dataSource, logger }: AppContext): Router {
   const router = Router();
   const limits = accountRateLimitsFromEnv();
-  const forgotLimiter = accountLimiter(limits);
-  const setLimiter = accountLimiter(limits);
+  const forgotLimiter = accountLimiter(limits, 'forgot');
+  const setLimiter = accountLimiter(limits, 'set-password');
   const mailer = () => mailerFor(dataSource, logger);
 
   router.post('/invite', requireRole('admin'), async (req, res) => {

@@ -16,13 +16,12 @@ export function accountRateLimitsFromEnv(env: Record<string, string | undefined>
   return { limit: v.success ? v.data : 5, windowMs: 15 * 60_000 };
 }
 
-let accountLimiters = 0;
-
-export function accountLimiter(limits: AccountRateLimits): RequestHandler {
+/** `name` keeps the limiters apart and the same on every web server (their counts are shared in Redis). */
+export function accountLimiter(limits: AccountRateLimits, name: 'forgot' | 'set-password'): RequestHandler {
   return rateLimit({
     windowMs: limits.windowMs,
     limit: limits.limit,
-    store: sharedRateStore(`account:${++accountLimiters}`),
+    store: sharedRateStore(`account:${name}`),
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'Too many requests; wait a few minutes and try again')),

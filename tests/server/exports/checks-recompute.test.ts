@@ -2,7 +2,7 @@
 import { gunzipSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeRunPool } from '../../../server/runs/worker-pool.js';
-import { createTestApp, type TestApp } from '../helpers/test-app.js';
+import { createTestApp, onlyEmbedded, type TestApp } from '../helpers/test-app.js';
 import { importDemo, newProject } from '../models/fixture.js';
 import { settle } from '../runs/poll.js';
 
@@ -22,9 +22,9 @@ afterAll(async () => {
   await t.close();
 });
 
-describe('checks export without kept records', () => {
+describe.skipIf(onlyEmbedded('RUN_MAX_STORED_RECORDS is read by the run workers, which the scaled-api suite starts once for every file'))('checks export without kept records', () => {
   it('keeps no records and still exports every member’s checks', async () => {
-    const [row] = await t.dataSource.query('SELECT recordsData FROM run_results WHERE runId = ?', [runId]);
+    const [row] = await t.sql('SELECT "recordsData" FROM run_results WHERE "runId" = ?', [runId]);
     expect(gunzipSync(row.recordsData).toString()).toBe('null');
     const res = await t.as('engineer').get(`/api/runs/${runId}/exports/checks.csv`);
     expect(res.status).toBe(200);

@@ -23,6 +23,7 @@ import { hashPassword } from '../../../server/auth/password.js';
 import { SESSION_COOKIE, signSession } from '../../../server/auth/session-token.js';
 import type { AppConfig } from '../../../server/config/app-config.js';
 import { createLogger, type LogLevel } from '../../../server/config/logger.js';
+import { mailerFor } from '../../../server/mail/mailer.js';
 import { openDatabase } from '../../../server/db/data-source.js';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, seedDemoAccounts, seedDemoData } from '../../../server/db/seed.js';
 import type { UserRecord } from '../../../server/users/user.entity.js';
@@ -50,6 +51,10 @@ export interface TestApp {
     put(url: string): request.Test;
     delete(url: string): request.Test;
   };
+  /** A raw query with `?` placeholders on either database (PostgreSQL gets `$1`, `$2`, …); quote camelCase names. */
+  sql(query: string, params?: unknown[]): Promise<any>;
+  /** Waits until every mail this app's server instances queued is in the outbox. */
+  mailIdle(): Promise<void>;
   /** Signs in with e-mail and password; returns the cookie header value or throws. */
   signIn(email: string, password: string): Promise<string>;
   close(): Promise<void>;
@@ -146,11 +151,12 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
   let dataSource: DataSource;
   let app: Express;
   let close: () => Promise<void>;
+  let sources: DataSource[];
   // nested test apps on the engines share the one database: only the first empties and seeds it
   let seeded = false;
   if (ENGINE_DATABASE_URL) {
     const opened = await Promise.all([openDatabase({ url: ENGINE_DATABASE_URL }), openDatabase({ url: ENGINE_DATABASE_URL })]);
-    const sources = opened.map((o) => o.dataSource);
+    sources = opened.map((o) => o.dataSource);
     dataSource = sources[0]!;
     if (openOnEngines === 0) await resetEngines(dataSource);
     else seeded = (await dataSource.getRepository('User').count()) > 0;
@@ -167,6 +173,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
     };
   } else {
     dataSource = (await openDatabase({ database: ':memory:' })).dataSource;
+    sources = [dataSource];
     app = createApp({ config, dataSource, logger });
     close = () => dataSource.destroy();
   }
@@ -216,5 +223,14 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
     };
   };
 
-  return { app, dataSource, config, users, cookieFor, as, signIn, close };
+  const mailIdle = async () => {
+    await Promise.all(sources.map((ds) => mailerFor(ds, logger).idle()));
+  };
+
+  const sql = (query: string, params: unknown[] = []) => {
+    let n = 0;
+    return dataSource.query(ENGINE_DATABASE_URL ? query.replace(/\?/g, () => `$${++n}`) : query, params);
+  };
+
+  return { app, dataSource, config, users, cookieFor, as, signIn, sql, mailIdle, close };
 }

@@ -13,7 +13,7 @@ let t: TestApp;
 interface Msg { to: string[]; subject: string; text: string; html: string; kind: string }
 
 async function outbox(): Promise<Msg[]> {
-  await mailerFor(t.dataSource, createLogger('silent')).idle();
+  await t.mailIdle();
   return (await t.as('admin').get('/api/outbox')).body as Msg[];
 }
 const linkToken = (text: string) => /set-password\?token=([A-Za-z0-9_-]+)/.exec(text)?.[1] ?? null;

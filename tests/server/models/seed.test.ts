@@ -14,7 +14,7 @@ describe('demo seed', () => {
     const samples = listSamples();
     const models: { id: number; name: string }[] = await t.dataSource.query('SELECT id, name FROM models');
     expect(models.length).toBe(samples.length);
-    const runs: { modelId: number; status: string; passCount: number | null }[] = await t.dataSource.query('SELECT modelId, status, passCount FROM runs');
+    const runs: { modelId: number; status: string; passCount: number | null }[] = await t.sql('SELECT "modelId", status, "passCount" FROM runs');
     for (const m of models) {
       const run = runs.find((r) => r.modelId === m.id);
       expect(run?.status, m.name).toBe('done');
@@ -23,7 +23,7 @@ describe('demo seed', () => {
 
   it('keeps the stability summary of a seeded second-order run (analysis order, αcr, modes)', async () => {
     const [m] = await t.dataSource.query("SELECT id FROM models WHERE name LIKE '%second order%'");
-    const [run] = await t.dataSource.query('SELECT id FROM runs WHERE modelId = ?', [m.id]);
+    const [run] = await t.sql('SELECT id FROM runs WHERE "modelId" = ?', [m.id]);
     const r = await t.as('engineer').get(`/api/runs/${run.id}`);
     expect(r.status).toBe(200);
     expect(r.body.stability.analysis).toBe('second_order');

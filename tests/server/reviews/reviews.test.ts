@@ -5,8 +5,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { ReviewAction } from '../../../shared/schemas/reviews.js';
 import type { ReviewStatus } from '../../../shared/schemas/runs.js';
-import { createLogger } from '../../../server/config/logger.js';
-import { closeMailers, mailerFor } from '../../../server/mail/mailer.js';
+import { closeMailers } from '../../../server/mail/mailer.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import { CSV, importDemo, upload } from '../models/fixture.js';
 import { makeTeam, type Team } from '../membership/fixture.js';
@@ -16,7 +15,7 @@ import { RunEntity } from '../../../server/runs/run.entity.js';
 let t: TestApp;
 let team: Team;
 let modelId: number;
-const idle = () => mailerFor(t.dataSource, createLogger('silent')).idle();
+const idle = () => t.mailIdle();
 
 beforeAll(async () => {
   t = await createTestApp();

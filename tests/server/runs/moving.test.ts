@@ -7,7 +7,7 @@ let runId = 0;
 beforeAll(async () => {
   t = await createTestApp({ seed: 'demo' });
   const rows: { id: number }[] = await t.dataSource.query(
-    "SELECT runs.id AS id FROM runs JOIN models ON models.id = runs.modelId WHERE models.name LIKE '%road%' OR models.name LIKE '%Mill Lane%'",
+    `SELECT runs.id AS id FROM runs JOIN models ON models.id = runs."modelId" WHERE models.name LIKE '%road%' OR models.name LIKE '%Mill Lane%'`,
   );
   runId = rows[0]?.id ?? 0;
 }, 180_000);

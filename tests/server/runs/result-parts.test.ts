@@ -68,9 +68,9 @@ describe('results in parts', () => {
       all.set(b.subarray(0, n), l * n);
       all.set(b.subarray(n), (blocks.length + l) * n);
     });
-    await t.dataSource.query(`UPDATE "run_results" SET "nodeData" = ? WHERE "runId" = ?`, [gzipSync(Buffer.from(all.buffer)), runId]);
-    await t.dataSource.query(`DELETE FROM "run_member_results" WHERE "runId" = ?`, [runId]);
-    await t.dataSource.query(`DELETE FROM "run_loading_results" WHERE "runId" = ?`, [runId]);
+    await t.sql(`UPDATE "run_results" SET "nodeData" = ? WHERE "runId" = ?`, [gzipSync(Buffer.from(all.buffer)), runId]);
+    await t.sql(`DELETE FROM "run_member_results" WHERE "runId" = ?`, [runId]);
+    await t.sql(`DELETE FROM "run_loading_results" WHERE "runId" = ?`, [runId]);
     const after = await answers();
     expect(after.detail).toEqual(before.detail);
     expect(after.picture).toEqual(before.picture);
