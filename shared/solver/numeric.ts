@@ -26,6 +26,9 @@ interface Kernel {
   tColB: number;
 }
 
+/** load cases whose substitution work array the factor's memory holds from the start (more grow it) */
+const SOLVE_RESERVE = 32;
+
 /** reciprocals of the diagonal of the current column block */
 const inv = new Float64Array(NB);
 
@@ -60,7 +63,7 @@ interface Workspace {
 
 /** The factor's memory (in the SIMD kernels' memory when they exist) and its scratch. */
 function allocate(sym: SymbolicFactor): NumericFactor {
-  const { n, nsuper, superRowPtr, superRows, superValPtr } = sym;
+  const { n, nsuper, superFirst, superRowPtr, superRows, superValPtr } = sym;
   let maxRows = 0;
   for (let s = 0; s < nsuper; s++) maxRows = Math.max(maxRows, superRowPtr[s + 1] - superRowPtr[s]);
   // the factor and the scatter maps share one WebAssembly memory when SIMD kernels exist
@@ -68,7 +71,12 @@ function allocate(sym: SymbolicFactor): NumericFactor {
   const nRows = superRowPtr[nsuper];
   const rowsB = nL * 8 + 3 * 4 * maxRows;
   const freeB = Math.ceil((rowsB + 4 * nRows) / 16) * 16;
-  const simd = simdKernels(freeB);
+  // room for the substitution's work array of up to SOLVE_RESERVE load cases from the start:
+  // growing the memory on the first solve detaches its buffer, which costs fresh pages then
+  // and, the first time in a process, the optimised code of every typed-array loop
+  let below = 0;
+  for (let s = 0; s < nsuper; s++) below = Math.max(below, superRowPtr[s + 1] - superRowPtr[s] - (superFirst[s + 1] - superFirst[s]));
+  const simd = simdKernels(freeB + (n + below) * SOLVE_RESERVE * 8);
   const buf = simd ? simd.memory.buffer : null;
   const Lx = buf ? new Float64Array(buf, 0, nL) : new Float64Array(nL);
   if (buf) new Int32Array(buf, rowsB, nRows).set(superRows.subarray(0, nRows));
