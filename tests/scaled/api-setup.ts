@@ -32,8 +32,11 @@ export const WORKERS = 2;
 export default async function setup(project: TestProject): Promise<() => Promise<void>> {
   const engines: Engine[] = [];
   const procs: Proc[] = [];
+  /** per worker: runs and tasks (other than upload reads) taken (from its log), printed at the end as proof the queue was used */
+  const tally: { runs: number; tasks: number }[] = [];
   const dataDir = mkdtempSync(path.join(tmpdir(), 'trestle-scaled-api-'));
   const teardown = async () => {
+    if (tally.length) console.log(`scaled-api workers: ${tally.map((c, i) => `#${i + 1} ${c.runs} runs, ${c.tasks} tasks`).join('; ')}`);
     await Promise.all(procs.map((p) => stopChild(p.child, 'SIGTERM', 8000)));
     await Promise.all(engines.map((e) => e.stop()));
     rmSync(dataDir, { recursive: true, force: true });
@@ -51,6 +54,13 @@ export default async function setup(project: TestProject): Promise<() => Promise
       Array.from({ length: WORKERS }, async (_, i) => {
         const w = launch('server/worker.ts', env);
         procs.push(w);
+        const count = { runs: 0, tasks: 0 };
+        tally.push(count);
+        w.child.stdout!.on('data', (d: Buffer) => {
+          const text = d.toString();
+          count.runs += text.match(/run \d+: started/g)?.length ?? 0;
+          count.tasks += text.match(/task \w+ of run/g)?.length ?? 0;
+        });
         await until(`worker ${i + 1}`, w, async () => /Trestle worker \S+:/.test(w.output()));
       }),
     );
