@@ -149,7 +149,8 @@ export function blockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float6
  * pass. The work array (rows padded to an even number of load cases) and the scratch of the
  * backward pass lie in the kernels' memory after the factor (grown when needed). The
  * permutations in and out stay JavaScript loops: staging the right-hand sides in the kernels'
- * memory cost more in fresh pages than the loops (measured, pratt_10k first solve 30 vs 8 ms).
+ * memory cost more in fresh pages than the loops (measured, pratt_10k first solve 30 vs 8 ms);
+ * they run in the freedoms' original order (sequential streams of every load case).
  * Returns null if the memory cannot grow.
  */
 function simdBlockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float64Array, nrhs: number): Float64Array | null {
@@ -173,12 +174,14 @@ function simdBlockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float64Ar
     factor.Lx = new Float64Array(simd.memory.buffer, 0, factor.Lx.length);
   }
   const X = new Float64Array(simd.memory.buffer, xB, n * ld);
-  const perm = sym.perm;
-  for (let q = 0; q < nrhs; q++) {
-    const bq = q * n;
-    for (let k = 0; k < n; k++) X[k * ld + q] = B[bq + perm[k]];
+  // in the original order of the freedoms: every load case read (and, below, written) as a
+  // sequential stream, each row of X written (read) whole, once
+  const pinv = inversePermutation(sym);
+  for (let i = 0; i < n; i++) {
+    const xr = pinv[i] * ld;
+    for (let q = 0, b = i; q < nrhs; q++, b += n) X[xr + q] = B[b];
+    if (ld !== nrhs) X[xr + nrhs] = 0;
   }
-  if (ld !== nrhs) for (let k = 0; k < n; k++) X[k * ld + nrhs] = 0;
   const { solveForward, solveBackward } = simd;
   const rowsB = factor.rowsB;
   for (let s = 0; s < nsuper; s++) {
@@ -192,9 +195,23 @@ function simdBlockSolve(sym: SymbolicFactor, factor: NumericFactor, B: Float64Ar
     solveBackward(superValPtr[s] * 8, superFirst[s + 1] - f, superRowPtr[s + 1] - r0, xB + f * ld8, ld8, rowsB + r0 * 4, xB, eB);
   }
   const out = new Float64Array(n * nrhs);
-  for (let q = 0; q < nrhs; q++) {
-    const bq = q * n;
-    for (let k = 0; k < n; k++) out[bq + perm[k]] = X[k * ld + q];
+  for (let i = 0; i < n; i++) {
+    const xr = pinv[i] * ld;
+    for (let q = 0, o = i; q < nrhs; q++, o += n) out[o] = X[xr + q];
   }
   return out;
+}
+
+/** pinv[i] = the step at which freedom i is eliminated, kept per analysis */
+const inverses = new WeakMap<SymbolicFactor, Int32Array>();
+
+function inversePermutation(sym: SymbolicFactor): Int32Array {
+  let pinv = inverses.get(sym);
+  if (!pinv) {
+    const { n, perm } = sym;
+    pinv = new Int32Array(n);
+    for (let k = 0; k < n; k++) pinv[perm[k]] = k;
+    inverses.set(sym, pinv);
+  }
+  return pinv;
 }

@@ -9,7 +9,7 @@
  * two products per instruction) with the factor in the kernels' memory; where that is not
  * available, the TypeScript kernels below (two rows by two columns) do the same work.
  */
-import { simdKernels, type SimdKernels } from './simd-kernels.js';
+import { MAX_BYTES, simdKernels, type SimdKernels } from './simd-kernels.js';
 import type { SymbolicFactor } from './symbolic.js';
 import { SingularMatrixError } from './types.js';
 
@@ -76,7 +76,8 @@ function allocate(sym: SymbolicFactor): NumericFactor {
   // and, the first time in a process, the optimised code of every typed-array loop
   let below = 0;
   for (let s = 0; s < nsuper; s++) below = Math.max(below, superRowPtr[s + 1] - superRowPtr[s] - (superFirst[s + 1] - superFirst[s]));
-  const simd = simdKernels(freeB + (n + below) * SOLVE_RESERVE * 8);
+  const reserved = freeB + (n + below) * SOLVE_RESERVE * 8;
+  const simd = simdKernels(reserved <= MAX_BYTES ? reserved : freeB);
   const buf = simd ? simd.memory.buffer : null;
   const Lx = buf ? new Float64Array(buf, 0, nL) : new Float64Array(nL);
   if (buf) new Int32Array(buf, rowsB, nRows).set(superRows.subarray(0, nRows));

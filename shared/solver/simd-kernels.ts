@@ -340,7 +340,7 @@ export function hasFusedMultiplyAdd(): boolean {
 }
 
 /** largest memory asked for (bytes); beyond it the TypeScript kernels are used */
-const MAX_BYTES = 2 ** 32 - 2 ** 16;
+export const MAX_BYTES = 2 ** 32 - 2 ** 16;
 
 let enabled = true;
 
