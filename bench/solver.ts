@@ -371,6 +371,8 @@ export interface SideBySideMatrix {
   /** load average (1, 5, 15 min) before each pair */
   loads: string[];
   ratio: Record<'analyze' | 'factor' | 'solve' | 'total' | 'nnz_L' | 'flops', number>;
+  /** medians of per-pair CPU-time ratios (user + system): ordering + factor, solve, all; less disturbed by other work than wall time */
+  cpuRatio: Record<'analyzeFactor' | 'solve' | 'total', number>;
   product: Record<'analyze' | 'factor' | 'solve' | 'faultsSolve' | 'flops' | 'nnzL', number>;
   cholmod: Record<'analyze' | 'factor' | 'solve' | 'faultsSolve' | 'flops' | 'nnzL', number>;
 }
@@ -391,7 +393,8 @@ function median(v: number[]): number {
 
 /** Medians per matrix of the pair lines (JSON, kind 'pair') that run.sh prints on stdout. */
 export function summarisePairs(lines: string[]): Map<string, SideBySideMatrix> {
-  const by = new Map<string, Array<{ loadavg_before: string; product: PairSide; cholmod: { analyze_ms: number; factor_ms: number; solve_ms: number; faults_solve: number; flops: number; nnz_L: number }; ratio: Record<string, number> }>>();
+  type Cpu = { cpu_factorise_ms: number; cpu_solve_ms: number; cpu_analyze_ms: number; cpu_factor_ms: number };
+  const by = new Map<string, Array<{ loadavg_before: string; product: PairSide & Cpu; cholmod: PairSide & Cpu; ratio: Record<string, number> }>>();
   for (const line of lines) {
     if (!line.startsWith('{')) continue;
     let j: { kind?: string; name?: string; ratio?: unknown };
@@ -420,6 +423,11 @@ export function summarisePairs(lines: string[]): Map<string, SideBySideMatrix> {
       pairs: ps.length,
       loads: ps.map((p) => p.loadavg_before),
       ratio: { analyze: r('analyze'), factor: r('factor'), solve: r('solve'), total: r('total'), nnz_L: r('nnz_L'), flops: r('flops') },
+      cpuRatio: {
+        analyzeFactor: r('cpu_analyze_plus_factor'),
+        solve: r('cpu_solve'),
+        total: median(ps.map((p) => (p.product.cpu_factorise_ms + p.product.cpu_solve_ms) / (p.cholmod.cpu_analyze_ms + p.cholmod.cpu_factor_ms + p.cholmod.cpu_solve_ms))),
+      },
       product: side((p) => p.product),
       cholmod: side((p) => p.cholmod),
     });
@@ -512,7 +520,8 @@ export function solverTargets(side: SideBySide | string, nrhs = 20): TargetRow[]
     }
     const v = m.ratio[phase];
     const met = v <= limit;
-    const measured = `${x2(v)} (median of ${m.pairs} pair${m.pairs === 1 ? '' : 's'})`;
+    const cpu = phase === 'solve' ? m.cpuRatio.solve : phase === 'total' ? m.cpuRatio.total : NaN;
+    const measured = `${x2(v)} (median of ${m.pairs} pair${m.pairs === 1 ? '' : 's'}${Number.isFinite(cpu) ? `; CPU time ${x2(cpu)}` : ''})`;
     let cause = '';
     if (!met) {
       if (phase === 'total') cause = excess(m);
@@ -539,10 +548,10 @@ export function printSideBySide(side: SideBySide | string): void {
     return;
   }
   console.log(`\nsolver against CHOLMOD (medians of per-pair ratios, project / CHOLMOD; ${side.source}; CHOLMOD's BLAS: ${side.blas})`);
-  console.log(`  ${'matrix'.padEnd(12)}${'pairs'.padStart(6)}${'analysis'.padStart(10)}${'factor'.padStart(8)}${'solve'.padStart(8)}${'total'.padStart(8)}${'nnz(L)'.padStart(8)}${'flops'.padStart(8)}  load average before the pairs`);
+  console.log(`  ${'matrix'.padEnd(12)}${'pairs'.padStart(6)}${'analysis'.padStart(10)}${'factor'.padStart(8)}${'solve'.padStart(8)}${'total'.padStart(8)}${'nnz(L)'.padStart(8)}${'flops'.padStart(8)}  ${'CPU: an+fa'.padStart(10)}${'solve'.padStart(7)}${'total'.padStart(7)}  load average before the pairs`);
   for (const m of side.matrices.values()) {
-    const f = (v: number) => v.toFixed(2).padStart(8);
-    console.log(`  ${m.name.padEnd(12)}${String(m.pairs).padStart(6)}${m.ratio.analyze.toFixed(2).padStart(10)}${f(m.ratio.factor)}${f(m.ratio.solve)}${f(m.ratio.total)}${f(m.ratio.nnz_L)}${f(m.ratio.flops)}  ${[...new Set(m.loads.map((l) => l.split(' ')[0]))].join(', ')}`);
+    const f = (v: number, w = 8) => v.toFixed(2).padStart(w);
+    console.log(`  ${m.name.padEnd(12)}${String(m.pairs).padStart(6)}${f(m.ratio.analyze, 10)}${f(m.ratio.factor)}${f(m.ratio.solve)}${f(m.ratio.total)}${f(m.ratio.nnz_L)}${f(m.ratio.flops)}  ${f(m.cpuRatio.analyzeFactor, 10)}${f(m.cpuRatio.solve, 7)}${f(m.cpuRatio.total, 7)}  ${[...new Set(m.loads.map((l) => l.split(' ')[0]))].join(', ')}`);
   }
 }
 
