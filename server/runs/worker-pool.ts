@@ -17,6 +17,13 @@ import type { TaskResult, WorkerReply, WorkerTask } from './worker-protocol.js';
 const HOLDER_WAIT_MS = 3000;
 /** Tasks that work on a run's analysis (an export needs it for member forces and recomputed checks). */
 const USES_ANALYSIS = new Set<WorkerTask['kind']>(['member', 'forces', 'checks', 'export', 'suggest']);
+/**
+ * Short tasks a worker answers synchronously, one message after the other: several may be
+ * sent to the worker holding their run while it answers one (up to PIPELINE_DEPTH), so fifty
+ * readers of one big run are not held up by a round trip through the HTTP thread per page.
+ */
+const PIPELINED = new Set<WorkerTask['kind']>(['member']);
+const PIPELINE_DEPTH = 8;
 
 interface Pending {
   id: number;
@@ -32,7 +39,8 @@ interface Pending {
 interface Slot {
   /** null after a crash: a new worker starts when the next task needs this slot */
   worker: Worker | null;
-  busy: Pending | null;
+  /** tasks sent and not yet answered, in the order sent (more than one only for PIPELINED tasks) */
+  inFlight: Pending[];
   /** runs whose analysis this worker holds, newest last */
   runs: number[];
   /** settled when the worker has loaded its modules */
@@ -65,11 +73,13 @@ export class WorkerPool implements TaskRunner {
   private readonly slots: Slot[] = [];
   private readonly queue: Pending[] = [];
   private nextId = 1;
+  /** the most tasks one worker had in flight at once (1 unless member tasks were pipelined) */
+  peakInFlight = 0;
   private closed = false;
   private retry: ReturnType<typeof setTimeout> | null = null;
 
   constructor(readonly size = Math.max(1, Math.min(2, os.availableParallelism?.() ?? os.cpus().length))) {
-    for (let i = 0; i < size; i++) this.slots.push({ worker: null, busy: null, runs: [] });
+    for (let i = 0; i < size; i++) this.slots.push({ worker: null, inFlight: [], runs: [] });
   }
 
   /** Start every worker now (module loading and TypeScript transpiling happen before the first run). */
@@ -110,25 +120,38 @@ export class WorkerPool implements TaskRunner {
     return this.slots.some((s) => s.worker && s.runs.includes(runId));
   }
 
+  /** Whether the slot can take the task now: idle, or answering only pipelined tasks with room for one more. */
+  private canTake(slot: Slot, task: WorkerTask): boolean {
+    if (slot.inFlight.length === 0) return true;
+    return PIPELINED.has(task.kind) && slot.inFlight.length < PIPELINE_DEPTH && slot.inFlight.every((p) => PIPELINED.has(p.task.kind));
+  }
+
   private pump(): void {
     for (let i = 0; i < this.queue.length; ) {
-      const idle = this.slots.filter((s) => !s.busy);
-      if (idle.length === 0) return;
       const next = this.queue[i];
-      // a task that needs a run's analysis waits a little for the busy worker holding it
-      // rather than re-analysing the model on an idle one (HOLDER_WAIT_MS at most)
       const holder = USES_ANALYSIS.has(next.task.kind) ? this.slots.find((s) => s.runs.includes(next.task.runId)) : undefined;
-      if (holder?.busy && Date.now() - next.queuedAt < HOLDER_WAIT_MS) {
-        if (!this.retry) this.retry = setTimeout(() => {
-          this.retry = null;
-          this.pump();
-        }, HOLDER_WAIT_MS).unref();
-        i++;
-        continue;
+      let slot: Slot | undefined = holder && this.canTake(holder, next.task) ? holder : undefined;
+      if (!slot) {
+        const idle = this.slots.filter((s) => s.inFlight.length === 0);
+        if (idle.length === 0) {
+          i++;
+          continue;
+        }
+        // a task that needs a run's analysis waits a little for the busy worker holding it
+        // rather than re-analysing the model on an idle one (HOLDER_WAIT_MS at most)
+        if (holder && Date.now() - next.queuedAt < HOLDER_WAIT_MS) {
+          if (!this.retry) this.retry = setTimeout(() => {
+            this.retry = null;
+            this.pump();
+          }, HOLDER_WAIT_MS).unref();
+          i++;
+          continue;
+        }
+        slot = idle.find((s) => s.runs.includes(next.task.runId)) ?? idle[0];
       }
       this.queue.splice(i, 1);
-      const slot = holder && !holder.busy ? holder : idle.find((s) => s.runs.includes(next.task.runId)) ?? idle[0];
-      slot.busy = next;
+      slot.inFlight.push(next);
+      this.peakInFlight = Math.max(this.peakInFlight, slot.inFlight.length);
       slot.runs = [...slot.runs.filter((r) => r !== next.task.runId), next.task.runId].slice(-2);
       next.onStart?.();
       const worker = slot.worker ?? this.spawn(slot);
@@ -137,11 +160,9 @@ export class WorkerPool implements TaskRunner {
     }
   }
 
-  private finish(slot: Slot): Pending | null {
-    const done = slot.busy;
-    slot.busy = null;
-    slot.worker?.unref();
-    return done;
+  private finish(slot: Slot, pending: Pending): void {
+    slot.inFlight = slot.inFlight.filter((p) => p !== pending);
+    if (slot.inFlight.length === 0) slot.worker?.unref();
   }
 
   private onReply(slot: Slot, reply: WorkerReply): void {
@@ -149,8 +170,8 @@ export class WorkerPool implements TaskRunner {
       slot.onReady?.();
       return;
     }
-    const pending = slot.busy;
-    if (!pending || pending.id !== reply.id) return;
+    const pending = slot.inFlight.find((p) => p.id === reply.id);
+    if (!pending) return;
     if (reply.type === 'progress') {
       pending.onPhase?.(reply.phase);
       return;
@@ -159,7 +180,7 @@ export class WorkerPool implements TaskRunner {
       pending.onChunk?.(reply.data);
       return;
     }
-    this.finish(slot);
+    this.finish(slot, pending);
     if (reply.type === 'done') pending.resolve(reply.result);
     else pending.reject(new Error(reply.message));
     this.pump();
@@ -167,12 +188,13 @@ export class WorkerPool implements TaskRunner {
 
   private onCrash(slot: Slot, worker: Worker, err: Error): void {
     if (slot.worker !== worker) return; // already handled (error then exit)
-    const pending = this.finish(slot);
+    const lost = slot.inFlight;
+    slot.inFlight = [];
     slot.onReady?.();
     slot.worker = null;
     slot.runs = [];
     void worker.terminate();
-    pending?.reject(err);
+    for (const pending of lost) pending.reject(err);
     if (!this.closed) this.pump();
   }
 

@@ -14,15 +14,25 @@ import { exportModel, storedTable, streamTable, type ExportTask, type ExportTask
 import { readCsvBytes, readWorkbook } from '../../shared/reader/index.js';
 import { clean, denoise, NOISE_RELATIVE, noiseFloor } from '../../shared/design/noise.js';
 import { runSuggestTask } from '../suggestions/suggest-task.js';
+import { forgetPatterns } from '../../shared/engine/solverBridge.js';
 
 /** Analyses kept per worker, newest last. */
 const CACHE_SIZE = 2;
 const cache = new Map<number, Analysed>();
 
+/**
+ * Solver analyses kept between tasks (shared/engine/solverBridge.ts) serve a rerun of the same
+ * pattern; past this many factor entries (160 MB) they are let go after the task instead —
+ * at 110k members the factor and its pattern analyses would otherwise stay in this thread
+ * for as long as it lives, and a rerun of such a model repeats only its ordering.
+ */
+export const KEEP_PATTERNS_UP_TO = 20_000_000;
+
 function remember(runId: number, analysed: Analysed): void {
   cache.delete(runId);
   cache.set(runId, analysed);
   while (cache.size > CACHE_SIZE) cache.delete(cache.keys().next().value as number);
+  if (analysed.analysis.diagnostics.nnzFactor > KEEP_PATTERNS_UP_TO) forgetPatterns();
 }
 
 /** The model JSON of a task: given as text, or as the stored gzip blob (unzipped only when needed). */
