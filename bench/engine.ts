@@ -446,7 +446,7 @@ export function wholeRunTargets(r: EngineBenchRow | undefined): WholeRunTarget[]
       target: `checks ≥ 400,000 member-loading checks per CPU second, ${c.code}`,
       measured: `${Math.round(rate).toLocaleString('en-US')} (${c.evaluations.toLocaleString('en-US')} in ${c.cpu.toFixed(0)} ms)`,
       met,
-      cause: met ? '' : `${(c.cpu / c.evaluations * 1e6).toFixed(2)} µs CPU per check against 2.5 for the target; recovering every member's station forces for every loading alone takes ${rec === undefined ? '–' : rec.toFixed(0)} ms (${rec === undefined ? '–' : ((100 * rec) / c.cpu).toFixed(0)}% of these checks)`,
+      cause: met ? '' : `${((c.cpu * 1000) / c.evaluations).toFixed(2)} µs CPU per check against 2.5 for the target; recovering every member's station forces for every loading alone takes ${rec === undefined ? '–' : rec.toFixed(0)} ms (${rec === undefined ? '–' : ((100 * rec) / c.cpu).toFixed(0)}% of these checks)`,
     });
   }
   if (w.rerun === null || !r.rerunPhases) {

@@ -360,6 +360,10 @@ interface PairSide {
   factor_ms: number;
   solve_ms: number;
   faults_solve: number;
+  /** the project's ordering + factorisation; CHOLMOD reports analysis and factor apart */
+  faults_factorise?: number;
+  faults_analyze?: number;
+  faults_factor?: number;
   flops: number;
   nnz_L: number;
 }
@@ -373,8 +377,8 @@ export interface SideBySideMatrix {
   ratio: Record<'analyze' | 'factor' | 'solve' | 'total' | 'nnz_L' | 'flops', number>;
   /** medians of per-pair CPU-time ratios (user + system): ordering + factor, solve, all; less disturbed by other work than wall time */
   cpuRatio: Record<'analyzeFactor' | 'solve' | 'total', number>;
-  product: Record<'analyze' | 'factor' | 'solve' | 'faultsSolve' | 'flops' | 'nnzL', number>;
-  cholmod: Record<'analyze' | 'factor' | 'solve' | 'faultsSolve' | 'flops' | 'nnzL', number>;
+  product: Record<'analyze' | 'factor' | 'solve' | 'faultsSolve' | 'faultsFactorise' | 'flops' | 'nnzL', number>;
+  cholmod: Record<'analyze' | 'factor' | 'solve' | 'faultsSolve' | 'faultsFactorise' | 'flops' | 'nnzL', number>;
 }
 
 export interface SideBySide {
@@ -415,6 +419,7 @@ export function summarisePairs(lines: string[]): Map<string, SideBySideMatrix> {
       factor: median(ps.map((p) => pick(p).factor_ms)),
       solve: median(ps.map((p) => pick(p).solve_ms)),
       faultsSolve: median(ps.map((p) => pick(p).faults_solve)),
+      faultsFactorise: median(ps.map((p) => { const x = pick(p); return x.faults_factorise ?? (x.faults_analyze ?? NaN) + (x.faults_factor ?? NaN); })),
       flops: median(ps.map((p) => pick(p).flops)),
       nnzL: median(ps.map((p) => pick(p).nnz_L)),
     });
@@ -485,7 +490,8 @@ function excess(m: SideBySideMatrix): string {
   const worst = parts.reduce((a, b) => (b[1] > a[1] ? b : a));
   const f = (v: number) => `${v >= 0 ? '+' : ''}${v.toFixed(v > -10 && v < 10 ? 1 : 0)}`;
   return `median ms over CHOLMOD: ${parts.map(([k, v]) => `${k} ${f(v)}`).join(', ')} → the ${worst[0]} dominates`
-    + ` (product ${m.product.analyze.toFixed(1)} / ${m.product.factor.toFixed(1)} / ${m.product.solve.toFixed(1)}, CHOLMOD ${m.cholmod.analyze.toFixed(1)} / ${m.cholmod.factor.toFixed(1)} / ${m.cholmod.solve.toFixed(1)} ms)`;
+    + ` (product ${m.product.analyze.toFixed(1)} / ${m.product.factor.toFixed(1)} / ${m.product.solve.toFixed(1)}, CHOLMOD ${m.cholmod.analyze.toFixed(1)} / ${m.cholmod.factor.toFixed(1)} / ${m.cholmod.solve.toFixed(1)} ms);`
+    + ` page faults in ordering + factor / solve: product ${m.product.faultsFactorise.toFixed(0)} / ${m.product.faultsSolve.toFixed(0)}, CHOLMOD ${m.cholmod.faultsFactorise.toFixed(0)} / ${m.cholmod.faultsSolve.toFixed(0)}`;
 }
 
 /** GFLOP/s of the substitution: 2 passes × 2 flops × nnz(L) × load cases */
@@ -520,10 +526,11 @@ export function solverTargets(side: SideBySide | string, nrhs = 20): TargetRow[]
     }
     const v = m.ratio[phase];
     const met = v <= limit;
-    const cpu = phase === 'solve' ? m.cpuRatio.solve : phase === 'total' ? m.cpuRatio.total : NaN;
-    const measured = `${x2(v)} (median of ${m.pairs} pair${m.pairs === 1 ? '' : 's'}${Number.isFinite(cpu) ? `; CPU time ${x2(cpu)}` : ''})`;
+    const cpu = phase === 'solve' ? m.cpuRatio.solve : phase === 'total' ? m.cpuRatio.total : m.cpuRatio.analyzeFactor;
+    const cpuLabel = phase === 'factor' ? 'CPU time of ordering + factor' : 'CPU time';
+    const measured = `${x2(v)} (median of ${m.pairs} pair${m.pairs === 1 ? '' : 's'}${Number.isFinite(cpu) ? `; ${cpuLabel} ${x2(cpu)}` : ''})`;
     let cause = '';
-    if (!met) {
+    if (!met || cpu > limit) {
       if (phase === 'total') cause = excess(m);
       else if (phase === 'solve') {
         const pr = solveRate(m.product.nnzL, m.product.solve, nrhs);
@@ -535,6 +542,9 @@ export function solverTargets(side: SideBySide | string, nrhs = 20): TargetRow[]
         const cr = m.cholmod.flops / m.cholmod.factor / 1e6;
         cause = `factor rate ${pr.toFixed(1)} GFLOP/s against CHOLMOD's ${cr.toFixed(1)} with ${x2(m.ratio.flops)} its operations: the dense kernels (128-bit SIMD) are slower than its BLAS`;
       }
+    }
+    if (Number.isFinite(cpu) && cpu <= limit !== met) {
+      cause = `${cause ? `${cause}; ` : ''}the CPU-time ratio says ${cpu <= limit ? 'met' : 'not met'}: the wall figure moved with the machine's load`;
     }
     rows.push({ target, measured, met, cause });
   }
