@@ -256,6 +256,7 @@ export async function benchResults(bays = 60, storeys = 10, log: (line: string) 
 
     // 50 clients reading the run (status and one member's detail), 4 rounds each
     const lat: number[] = [];
+    const byKind: Record<'status' | 'member', number[]> = { status: [], member: [] };
     let errors = 0;
     const memberIds = tables['members.csv'].split('\n').slice(1, 51).map((l) => l.split(',')[0]);
     await Promise.all(memberIds.map(async (m) => {
@@ -270,11 +271,12 @@ export async function benchResults(bays = 60, storeys = 10, log: (line: string) 
             errors++;
           }
           lat.push(performance.now() - t1);
+          byKind[path.includes('/members/') ? 'member' : 'status'].push(performance.now() - t1);
         }
       }
     }));
     const readers = { clients: 50, requests: lat.length, p95Ms: pct(lat, 95), errors };
-    log(`  50 clients reading (run status + member detail, 4 rounds): p95 ${readers.p95Ms.toFixed(0)} ms, ${errors} errors of ${lat.length} (target p95 ≤ 300 ms, 0 errors)`);
+    log(`  50 clients reading (run status + member detail, 4 rounds): p95 ${readers.p95Ms.toFixed(0)} ms, ${errors} errors of ${lat.length} (target p95 ≤ 300 ms, 0 errors); run status p50/p95 ${pct(byKind.status, 50).toFixed(0)}/${pct(byKind.status, 95).toFixed(0)} ms, member detail p50/p95 ${pct(byKind.member, 50).toFixed(0)}/${pct(byKind.member, 95).toFixed(0)} ms`);
     const peakRssMb = peakRss / 1048576;
     log(`  peak RSS of the server process (worker threads included) while serving results and exports ${peakRssMb.toFixed(0)} MB (target ≤ 1536 MB)`);
     return { members, importMs, runMs, grid, exports, threeExports, peakRssMb, readers };

@@ -32,6 +32,7 @@ import { findModel, findVersion } from '../models/model.service.js';
 import type { PackedRun } from './run-compute.js';
 import { RunEntity, RunResultEntity, type RunRecord, type RunResultRecord } from './run.entity.js';
 import { resultsPool, runPool, WorkerPool } from './worker-pool.js';
+import { gridPayloads } from './payload-cache.js';
 import { MODEL_NEEDED, type MemberTask, type MemberTaskResult } from './worker-protocol.js';
 import { shapeFromBlock } from './stability-codec.js';
 import { UserEntity } from '../users/user.entity.js';
@@ -203,6 +204,9 @@ export function runFailureText(err: unknown): { text: string; internal: boolean 
   return { text: internal ? 'an internal error stopped the analysis (the server log has the details)' : raw, internal };
 }
 
+/** Runs of at least this many members have their grid payload built as soon as they are saved. */
+const GRID_WARM_MEMBERS = 5000;
+
 function dispatch(ds: DataSource, runId: number, modelJson: string, designCode: DesignCode): void {
   const logger = loggers.get(ds);
   const url = queueUrl();
@@ -234,6 +238,9 @@ function dispatch(ds: DataSource, runId: number, modelJson: string, designCode: 
     .then(async (output) => {
       await chain;
       await saveResults(ds, runId, output);
+      // a big run's grid payload is built at once, so whoever opens the grid first joins that build (payload-cache.ts)
+      const { pass, fail, notChecked } = output.counts;
+      if (pass + fail + notChecked >= GRID_WARM_MEMBERS) void getRunMembers(ds, runId, 'table', true).catch(() => undefined);
     })
     .catch(async (err: unknown) => {
       await chain;
@@ -356,17 +363,23 @@ async function previousDone(ds: DataSource, run: RunRecord, columns?: (keyof Run
  * neither unzips nor parses them): rows, or column by column with `layout: 'table'`.
  */
 export async function getRunMembers(ds: DataSource, id: number, layout: MembersLayout = 'rows', gzip = false): Promise<Uint8Array> {
-  const { run, result } = await doneRun(ds, id);
-  const prev = await previousDone(ds, run);
-  const settings = JSON.parse(run.settingsJson) as { units?: 'metric' | 'us' };
-  return resultsPool().run({
-    kind: 'members',
-    runId: run.id,
-    meta: { runId: run.id, previousRunId: prev?.run.id ?? null, units: settings.units ?? 'metric', designCode: run.designCode },
-    layout,
-    gzip,
-    membersData: result.membersData,
-    ...(prev ? { previousData: prev.result.membersData } : {}),
+  const { run } = await doneRun(ds, id, []);
+  const prevRun = await previousDone(ds, run, []);
+  // a run's payload changes with nothing but the previous done run (payload-cache.ts)
+  const key = `${run.id}|${prevRun?.run.id ?? '-'}|${layout}|${gzip ? 'gzip' : 'plain'}`;
+  return gridPayloads(ds).get(key, async () => {
+    const { result } = await doneRun(ds, id, ['membersData']);
+    const prev = prevRun ? await ds.getRepository(RunResultEntity).findOne({ where: { runId: prevRun.run.id }, select: selectOf(['membersData']) }) : null;
+    const settings = JSON.parse(run.settingsJson) as { units?: 'metric' | 'us' };
+    return resultsPool().run({
+      kind: 'members',
+      runId: run.id,
+      meta: { runId: run.id, previousRunId: prevRun?.run.id ?? null, units: settings.units ?? 'metric', designCode: run.designCode },
+      layout,
+      gzip,
+      membersData: result.membersData,
+      ...(prev ? { previousData: prev.membersData } : {}),
+    });
   });
 }
 
