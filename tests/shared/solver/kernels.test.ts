@@ -2,6 +2,7 @@ import { setFlagsFromString } from 'node:v8';
 import { afterEach, describe, expect, it } from 'vitest';
 import { factorise, SingularMatrixError, type SymmetricCsc } from '../../../shared/solver/index.js';
 import { hasFusedMultiplyAdd, simdKernels, useFusedMultiplyAdd, useSimdKernels } from '../../../shared/solver/simd-kernels.js';
+import { BLOCKED_FROM } from '../../../shared/solver/solve-kernels.js';
 
 // relaxed SIMD (fused multiply-add) is behind a flag in Node 20: on, so that both kernel
 // variants are tested (the flag must be set before the first kernels are built)
@@ -85,9 +86,10 @@ describe('dense kernels of the factorisation', () => {
   }
 
   // a dense matrix is one supernode, so its substitution is all triangle: the blocked triangle
-  // kernels (four rows at a time, then the remainder rows one by one) against the plain loops,
-  // for every remainder of the size by 4 and odd and even numbers of load cases
-  for (const n of [4, 9, 10, 11, 64]) {
+  // kernels (four rows at a time, then the remainder rows one by one; the backward pass blocked
+  // from BLOCKED_FROM columns, column by column below) against the plain loops, for every
+  // remainder of the size by 4, both sides of BLOCKED_FROM and odd and even numbers of load cases
+  for (const n of [4, 9, 10, 11, BLOCKED_FROM - 1, BLOCKED_FROM, BLOCKED_FROM + 5, 64]) {
     for (const nrhs of [1, 3, 20]) {
       it(`blocked triangle substitution of a dense ${n}×${n} system, ${nrhs} load case(s), fused and unfused, agrees with the TypeScript one (1e-12)`, () => {
         const K = denseSpd(n, 100 + n);
