@@ -2,6 +2,7 @@
  * The work of one run, as the worker thread does it: read the model JSON, analyse every
  * loading, check every member, and pack what the server keeps. Pure apart from timing.
  */
+import { exposedGc } from './garbage.js';
 import { performance } from 'node:perf_hooks';
 import { gzipSync } from 'node:zlib';
 import { maxRatio, statusCounts } from '../../shared/results/member-rows.js';
@@ -83,11 +84,23 @@ const ENGINE_PHASES: Record<string, RunPhase> = {
   recovery: 'recovering',
 };
 
+/**
+ * Past this many factor entries (160 MB) a factorisation is followed, before the run's next
+ * one, by a collection of garbage: the first-order factor of a big model is garbage once its
+ * loads are solved, but V8 would keep it until it needs room, so it would sit beside the
+ * stability warning's larger factor (110k members: 135 M entries, then the warning's mesh).
+ */
+const COLLECT_BETWEEN_FACTORS_ABOVE = 20_000_000;
+const gc = exposedGc();
+
 /** The engine's factorise hook, reporting the solver's phases. */
 function phaseReportingFactorise(onPhase: (phase: RunPhase) => void): NonNullable<AnalyseOptions['factorise']> {
+  let collect = false;
   return (K, opts) => {
     onPhase('factorising');
+    if (collect && gc) gc();
     const f = factoriseSystem(K, opts);
+    collect = f.nnzFactor > COLLECT_BETWEEN_FACTORS_ABOVE;
     let solving = false;
     return {
       n: f.n,
