@@ -85,17 +85,25 @@ export function membersTable(meta: MembersMeta, members: MemberUtilisation[], pr
 
 const decode = <T>(b: Uint8Array): T => JSON.parse(gunzipSync(b).toString('utf8')) as T;
 
+/** The previous run's ratio and section by member, from its stored blob. */
+export function previousMembers(previousData: Uint8Array | undefined): Map<string, PreviousMember> | undefined {
+  return previousData
+    ? new Map(decode<MemberUtilisation[]>(previousData).map((m): [string, PreviousMember] => [m.member, { ratio: m.ratio, section: m.section }]))
+    : undefined;
+}
+
 /** The payload as JSON bytes (gzip when asked): what the worker hands back. */
 export function membersPayload(task: MembersTask): Uint8Array {
-  const members = decode<MemberUtilisation[]>(task.membersData);
-  const previous = task.previousData
-    ? new Map(decode<MemberUtilisation[]>(task.previousData).map((m): [string, PreviousMember] => [m.member, { ratio: m.ratio, section: m.section }]))
-    : undefined;
-  const body: RunMembers | RunMembersTable = task.layout === 'table'
-    ? membersTable(task.meta, members, previous)
-    : { ...task.meta, families: familiesPresent(members), counts: statusCounts(members), members: memberRows(members, previous) };
+  return payloadOf(task.meta, decode<MemberUtilisation[]>(task.membersData), previousMembers(task.previousData), task.layout, task.gzip);
+}
+
+/** The payload of members in hand (a run builds its grid's with its results). */
+export function payloadOf(meta: MembersMeta, members: MemberUtilisation[], previous: Map<string, PreviousMember> | undefined, layout: MembersLayout, gzip: boolean): Uint8Array {
+  const body: RunMembers | RunMembersTable = layout === 'table'
+    ? membersTable(meta, members, previous)
+    : { ...meta, families: familiesPresent(members), counts: statusCounts(members), members: memberRows(members, previous) };
   const json = Buffer.from(JSON.stringify(body), 'utf8');
-  const out = task.gzip ? gzipSync(json, { level: 4 }) : json;
+  const out = gzip ? gzipSync(json, { level: 4 }) : json;
   // a buffer of its own, so it moves to the HTTP thread without a copy
   return new Uint8Array(out.buffer.slice(out.byteOffset, out.byteOffset + out.byteLength));
 }

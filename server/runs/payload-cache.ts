@@ -35,6 +35,16 @@ export class PayloadCache {
     return p;
   }
 
+  /** Keeps a payload built elsewhere (a run builds its grid's with its results). */
+  put(key: string, bytes: Uint8Array): void {
+    const old = this.kept.get(key);
+    if (old) {
+      this.kept.delete(key);
+      this.bytes -= old.byteLength;
+    }
+    this.keep(key, bytes);
+  }
+
   private keep(key: string, bytes: Uint8Array): void {
     if (bytes.byteLength > this.budgetBytes) return;
     this.kept.set(key, bytes);

@@ -219,6 +219,8 @@ export interface PackedRun {
   shapesData: Uint8Array;
   /** gzip(JSON Model) of the model the analysis ran on when it differs from the input; empty otherwise */
   analysedModelData: Uint8Array;
+  /** the grid's payload (column layout, gzip) when the task asked for it (RunTask.grid) */
+  gridTable?: Uint8Array;
 }
 
 /**

@@ -33,7 +33,7 @@ import type { PackedRun } from './run-compute.js';
 import { RunEntity, RunResultEntity, type RunRecord, type RunResultRecord } from './run.entity.js';
 import { resultsPool, runPool, WorkerPool } from './worker-pool.js';
 import { gridPayloads } from './payload-cache.js';
-import { MODEL_NEEDED, type MemberTask, type MemberTaskResult } from './worker-protocol.js';
+import { MODEL_NEEDED, type MemberTask, type MemberTaskResult, type RunTask } from './worker-protocol.js';
 import { shapeFromBlock } from './stability-codec.js';
 import { UserEntity } from '../users/user.entity.js';
 import { queueUrl } from '../queue/connection.js';
@@ -188,7 +188,7 @@ export async function startRun(ds: DataSource, modelId: number, userId: number |
       createdBy: userId,
     }),
   );
-  dispatch(ds, run.id, modelJson, designCode);
+  dispatch(ds, run.id, modelJson, designCode, queueUrl() ? undefined : await gridOfRun(ds, run, settings.units));
   return toRunSummary(run, await userNames(ds, [userId]));
 }
 
@@ -204,10 +204,24 @@ export function runFailureText(err: unknown): { text: string; internal: boolean 
   return { text: internal ? 'an internal error stopped the analysis (the server log has the details)' : raw, internal };
 }
 
-/** Runs of at least this many members have their grid payload built as soon as they are saved. */
-const GRID_WARM_MEMBERS = 5000;
+/**
+ * What the run's worker needs to build the grid's payload with the results (RunTask.grid):
+ * the previous done run of the model now, and its members. Should another run finish first
+ * and become the previous one, the payload built here is simply not the one asked for.
+ */
+async function gridOfRun(ds: DataSource, run: RunRecord, units: 'metric' | 'us' | undefined): Promise<NonNullable<RunTask['grid']>> {
+  const prev = await previousDone(ds, run, ['membersData']);
+  return {
+    meta: { runId: run.id, previousRunId: prev?.run.id ?? null, units: units ?? 'metric', designCode: run.designCode },
+    ...(prev ? { previousData: prev.result.membersData } : {}),
+  };
+}
 
-function dispatch(ds: DataSource, runId: number, modelJson: string, designCode: DesignCode): void {
+/** The cache key of a run's grid payload (payload-cache.ts): it changes with nothing but the previous done run. */
+const gridKey = (runId: number, previousRunId: number | null, layout: MembersLayout, gzip: boolean) =>
+  `${runId}|${previousRunId ?? '-'}|${layout}|${gzip ? 'gzip' : 'plain'}`;
+
+function dispatch(ds: DataSource, runId: number, modelJson: string, designCode: DesignCode, grid?: RunTask['grid']): void {
   const logger = loggers.get(ds);
   const url = queueUrl();
   if (url) {
@@ -229,7 +243,7 @@ function dispatch(ds: DataSource, runId: number, modelJson: string, designCode: 
   };
   const done = runPool()
     .run(
-      { kind: 'run', runId, modelJson, designCode },
+      { kind: 'run', runId, modelJson, designCode, ...(grid ? { grid } : {}) },
       {
         onStart: () => void write({ status: 'running', startedAt: new Date(), phase: 'reading', progress: PHASE_PROGRESS.reading }),
         onPhase: (phase) => void write({ phase, progress: PHASE_PROGRESS[phase] }),
@@ -237,10 +251,9 @@ function dispatch(ds: DataSource, runId: number, modelJson: string, designCode: 
     )
     .then(async (output) => {
       await chain;
+      // the grid's payload came with the results: whoever opens the grid first gets it as it is
+      if (output.gridTable && grid) gridPayloads(ds).put(gridKey(runId, grid.meta.previousRunId, 'table', true), output.gridTable);
       await saveResults(ds, runId, output);
-      // a big run's grid payload is built at once, so whoever opens the grid first joins that build (payload-cache.ts)
-      const { pass, fail, notChecked } = output.counts;
-      if (pass + fail + notChecked >= GRID_WARM_MEMBERS) void getRunMembers(ds, runId, 'table', true).catch(() => undefined);
     })
     .catch(async (err: unknown) => {
       await chain;
@@ -352,6 +365,8 @@ async function previousDone(ds: DataSource, run: RunRecord, columns?: (keyof Run
     .orderBy('r.id', 'DESC')
     .getOne();
   if (!prev) return null;
+  // no columns wanted: the run alone (a done run has its results row)
+  if (columns?.length === 0) return { run: prev, result: { runId: prev.id } as RunResultRecord };
   const result = columns
     ? await ds.getRepository(RunResultEntity).findOne({ where: { runId: prev.id }, select: selectOf(columns) })
     : await ds.getRepository(RunResultEntity).findOneBy({ runId: prev.id });
@@ -365,8 +380,7 @@ async function previousDone(ds: DataSource, run: RunRecord, columns?: (keyof Run
 export async function getRunMembers(ds: DataSource, id: number, layout: MembersLayout = 'rows', gzip = false): Promise<Uint8Array> {
   const { run } = await doneRun(ds, id, []);
   const prevRun = await previousDone(ds, run, []);
-  // a run's payload changes with nothing but the previous done run (payload-cache.ts)
-  const key = `${run.id}|${prevRun?.run.id ?? '-'}|${layout}|${gzip ? 'gzip' : 'plain'}`;
+  const key = gridKey(run.id, prevRun?.run.id ?? null, layout, gzip);
   return gridPayloads(ds).get(key, async () => {
     const { result } = await doneRun(ds, id, ['membersData']);
     const prev = prevRun ? await ds.getRepository(RunResultEntity).findOne({ where: { runId: prevRun.run.id }, select: selectOf(['membersData']) }) : null;

@@ -9,7 +9,7 @@ import type { PackedRun } from './run-compute.js';
 import type { ExportTask, ExportTaskResult } from '../exports/export-task.js';
 
 export type { ExportTask } from '../exports/export-task.js';
-import type { MembersTask } from './members-table.js';
+import type { MembersMeta, MembersTask } from './members-table.js';
 
 export type { MembersTask } from './members-table.js';
 import type { SuggestTask, SuggestTaskResult } from '../suggestions/suggest-task.js';
@@ -30,6 +30,11 @@ interface TaskBase {
 
 export interface RunTask extends TaskBase {
   kind: 'run';
+  /**
+   * The grid's payload is built with the run (from the members in hand, nothing to unzip or
+   * parse) when this is given: its fixed fields and the previous done run's members.
+   */
+  grid?: { meta: MembersMeta; previousData?: Uint8Array };
 }
 
 export interface MemberTask extends TaskBase {

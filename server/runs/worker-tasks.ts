@@ -8,7 +8,7 @@ import type { RunPhase, Stations } from '../../shared/schemas/runs.js';
 import { analyseOnly, checkMemberWithStability, checkWithStability, computeRun, packRun, type Analysed } from './run-compute.js';
 import { MODEL_NEEDED, type ChecksTask, type ForcesTask, type ForcesTaskResult, type MemberTask, type MemberTaskResult, type ReadTask, type WorkerTask } from './worker-protocol.js';
 import type { ReadResult } from '../../shared/model/types.js';
-import { membersPayload } from './members-table.js';
+import { membersPayload, payloadOf, previousMembers } from './members-table.js';
 import { comparePayload, geometryPayload } from './read-tasks.js';
 import { exportModel, storedTable, streamTable, type ExportTask, type ExportTaskResult } from '../exports/export-task.js';
 import { readCsvBytes, readWorkbook } from '../../shared/reader/index.js';
@@ -114,7 +114,13 @@ export function runWorkerTask(task: WorkerTask, onPhase: (phase: RunPhase) => vo
     case 'run': {
       const { output, analysed } = computeRun(taskModelJson(task), task.designCode, onPhase);
       remember(task.runId, analysed);
-      return packRun(output, analysed.model);
+      const packed = packRun(output, analysed.model);
+      if (task.grid) {
+        const t0 = performance.now();
+        packed.gridTable = payloadOf(task.grid.meta, output.members, previousMembers(task.grid.previousData), 'table', true);
+        packed.timings.packing = (packed.timings.packing ?? 0) + (performance.now() - t0);
+      }
+      return packed;
     }
     case 'member': {
       const { model, analysis, stability } = analysedFor(task);
