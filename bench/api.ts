@@ -201,8 +201,10 @@ export async function benchResults(bays = 60, storeys = 10, log: (line: string) 
     const runMs = performance.now() - t0;
     // the run itself (its factorisations and eigen solves) is one peak; serving results another
     const runPeakRss = peakRss;
+    // the worker collects the run's garbage right after its reply (server/runs/garbage.ts): serving starts after that
+    await new Promise((res) => setTimeout(res, 3000));
     peakRss = process.memoryUsage().rss;
-    log(`  import ${importMs.toFixed(0)} ms, run ${runMs.toFixed(0)} ms; peak RSS up to the end of the run ${(runPeakRss / 1048576).toFixed(0)} MB`);
+    log(`  import ${importMs.toFixed(0)} ms, run ${runMs.toFixed(0)} ms; peak RSS up to the end of the run ${(runPeakRss / 1048576).toFixed(0)} MB, 3 s after it ${(peakRss / 1048576).toFixed(0)} MB`);
 
     // fetch() asks for gzip and unzips; the bytes on the wire are Content-Length-less, so count them raw
     const wire = async (path: string, gzip: boolean) => {
@@ -270,7 +272,7 @@ export async function benchResults(bays = 60, storeys = 10, log: (line: string) 
     const readers = { clients: 50, requests: lat.length, p95Ms: pct(lat, 95), errors };
     log(`  50 clients reading (run status + member detail, 4 rounds; clients in their own thread): p95 ${readers.p95Ms.toFixed(0)} ms, ${errors} errors of ${lat.length} (target p95 ≤ 300 ms, 0 errors); run status p50/p95 ${pct(byKind.status, 50).toFixed(0)}/${pct(byKind.status, 95).toFixed(0)} ms, member detail p50/p95 ${pct(byKind.member, 50).toFixed(0)}/${pct(byKind.member, 95).toFixed(0)} ms`);
     const peakRssMb = peakRss / 1048576;
-    log(`  peak RSS of the server process (worker threads included) while serving results and exports ${peakRssMb.toFixed(0)} MB (target ≤ 1536 MB)`);
+    log(`  peak RSS of the server process (worker threads included) while serving results and exports ${peakRssMb.toFixed(0)} MB (target ≤ 1536 MB); at the end ${(process.memoryUsage().rss / 1048576).toFixed(0)} MB`);
     return { members, importMs, runMs, grid, exports, threeExports, peakRssMb, readers };
   } finally {
     clearInterval(sampler);
