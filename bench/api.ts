@@ -144,12 +144,16 @@ export async function benchResults(bays = 60, storeys = 10, log: (line: string) 
     process.env.IMPORT_MAX_ROWS = String(Math.ceil(rowCount / 10_000) * 10_000);
     log(`  IMPORT_MAX_ROWS=${process.env.IMPORT_MAX_ROWS} for this bench (default 200,000)`);
   }
-  const { dataSource } = await openDatabase({ database: ':memory:' });
+  // the database in a file, as `npm start` keeps it under DATA_DIR (an in-memory one would count the whole database in the RSS)
+  const { mkdtempSync, rmSync } = await import('node:fs');
+  const { tmpdir } = await import('node:os');
+  const dbDir = mkdtempSync(`${tmpdir()}/trestle-bench-`);
+  const { dataSource } = await openDatabase({ database: `${dbDir}/trestle.sqlite` });
   await dataSource.transaction((m) => seedDemoAccounts(m));
   const app = createApp({
     config: {
       jwtSecret: 'bench-secret-bench-secret-bench-secret-0123', sessionHours: 1, cookieSecure: false, loginRateLimit: 1000,
-      loginRateWindowMs: 60_000, trustProxy: false, distDir: '/nonexistent', dataDir: '/nonexistent', production: false,
+      loginRateWindowMs: 60_000, trustProxy: false, distDir: '/nonexistent', dataDir: dbDir, production: false,
     },
     dataSource,
     logger: createLogger('silent'),
@@ -280,6 +284,7 @@ export async function benchResults(bays = 60, storeys = 10, log: (line: string) 
     await new Promise((resolve) => server.close(resolve));
     await closeRunPool();
     await dataSource.destroy();
+    rmSync(dbDir, { recursive: true, force: true });
   }
 }
 
