@@ -2,7 +2,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { gridPayloads, PayloadCache } from '../../../server/runs/payload-cache.js';
 import { closeRunPool } from '../../../server/runs/worker-pool.js';
-import { createTestApp, type TestApp } from '../helpers/test-app.js';
+import { createTestApp, onlyEmbedded, type TestApp } from '../helpers/test-app.js';
 import { importDemo, newProject } from '../models/fixture.js';
 import { settle } from './poll.js';
 
@@ -55,26 +55,33 @@ describe('grid payload through the cache', () => {
     await t.close();
   });
 
-  it('answers the grid payload built with the run, and builds any other layout once', async () => {
+  it.skipIf(onlyEmbedded('runs are saved by worker processes there (no payload comes with them), and each web-server instance keeps its own cache'))(
+    'sends the payload built with the run on the first load, and builds any other layout once', async () => {
     const cache = gridPayloads(t.dataSource);
     const before = { ...cache.stats };
-    // the run's worker built the column layout (gzip) with the results: the first load is a hit
+    // the run's worker built the column layout (gzip) with the results: loads of it are hits
     const first = await t.as('engineer').get(`/api/runs/${runId}/members?layout=table`).set('Accept-Encoding', 'gzip');
     expect(first.status).toBe(200);
     expect(cache.stats.built - before.built).toBe(0);
     expect(cache.stats.hits - before.hits).toBe(1);
-    const second = await t.as('viewer').get(`/api/runs/${runId}/members?layout=table`);
-    expect(second.status).toBe(404); // a viewer who is not on the project is refused (as if the run did not exist) before any payload
-    // the same layout built afresh from the stored blobs (no gzip: another key) says the same
+    // the same layout without gzip is another key: built once from the stored blobs, then kept
     const plain = await t.as('engineer').get(`/api/runs/${runId}/members?layout=table`).set('Accept-Encoding', 'identity');
-    expect(plain.body).toEqual(first.body);
     const again = await t.as('engineer').get(`/api/runs/${runId}/members?layout=table`).set('Accept-Encoding', 'identity');
-    expect(again.body).toEqual(first.body);
-    const rows = await t.as('engineer').get(`/api/runs/${runId}/members`).set('Accept-Encoding', 'identity');
-    expect(rows.body.members).toHaveLength(first.body.count);
-    expect(cache.stats.built - before.built).toBe(2);
+    expect(again.body).toEqual(plain.body);
+    expect(cache.stats.built - before.built).toBe(1);
     expect(cache.stats.hits - before.hits).toBe(2);
     // another database (another test app) has its own cache
     expect(gridPayloads({})).not.toBe(cache);
+  });
+
+  it('answers the same grid payload whichever way it was built', async () => {
+    const first = await t.as('engineer').get(`/api/runs/${runId}/members?layout=table`).set('Accept-Encoding', 'gzip');
+    expect(first.status).toBe(200);
+    const second = await t.as('viewer').get(`/api/runs/${runId}/members?layout=table`);
+    expect(second.status).toBe(404); // a viewer who is not on the project is refused (as if the run did not exist) before any payload
+    const plain = await t.as('engineer').get(`/api/runs/${runId}/members?layout=table`).set('Accept-Encoding', 'identity');
+    expect(plain.body).toEqual(first.body);
+    const rows = await t.as('engineer').get(`/api/runs/${runId}/members`).set('Accept-Encoding', 'identity');
+    expect(rows.body.members).toHaveLength(first.body.count);
   });
 });
